@@ -1,0 +1,31 @@
+import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+
+export type SiteRole = 'admin' | 'member';
+
+/** A person who signs in with GitHub (or the local stand-in). */
+@Entity({ name: 'users' })
+export class User {
+  @PrimaryGeneratedColumn({ type: 'int', unsigned: true })
+  id!: number;
+
+  @Column({ type: 'varchar', length: 100, unique: true })
+  login!: string;
+
+  @Column({ type: 'varchar', length: 200, default: '' })
+  name!: string;
+
+  @Column({ type: 'varchar', length: 320, nullable: true })
+  email!: string | null;
+
+  @Column({ type: 'varchar', length: 20, default: 'member' })
+  siteRole!: SiteRole;
+
+  @Column({ type: 'boolean', default: false })
+  disabled!: boolean;
+
+  @CreateDateColumn({ type: 'datetime', precision: 3 })
+  createdAt!: Date;
+
+  @UpdateDateColumn({ type: 'datetime', precision: 3 })
+  updatedAt!: Date;
+}

@@ -1,0 +1,82 @@
+/**
+ * API errors: a handful of factories with stable ids, and one middleware that serialises
+ * them as `{ error, message, details }`. Anything unknown becomes `internal` without details.
+ */
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+
+export type ErrorId =
+  | 'not_found'
+  | 'validation'
+  | 'conflict'
+  | 'unauthenticated'
+  | 'forbidden'
+  | 'too_large'
+  | 'unavailable'
+  | 'internal';
+
+const statusOf: Record<ErrorId, number> = {
+  not_found: 404,
+  validation: 400,
+  conflict: 409,
+  unauthenticated: 401,
+  forbidden: 403,
+  too_large: 413,
+  unavailable: 503,
+  internal: 500,
+};
+
+export class ApiError extends Error {
+  constructor(
+    readonly id: ErrorId,
+    message: string,
+    readonly details?: unknown,
+  ) {
+    super(message);
+  }
+
+  get status(): number {
+    return statusOf[this.id];
+  }
+}
+
+export const notFound = (what = 'That') => new ApiError('not_found', `${what} was not found.`);
+export const validation = (message: string, details?: unknown) => new ApiError('validation', message, details);
+export const conflict = (message: string, details?: unknown) => new ApiError('conflict', message, details);
+export const unauthenticated = () => new ApiError('unauthenticated', 'Sign in first.');
+export const forbidden = (message = 'You may not do that.') => new ApiError('forbidden', message);
+export const tooLarge = (message: string) => new ApiError('too_large', message);
+export const unavailable = (message: string) => new ApiError('unavailable', message);
+
+/** Answers 404 for any /api route that nothing handled. */
+export const unknownRoute: RequestHandler = (req, _res, next) => {
+  next(new ApiError('not_found', `No API route ${req.method} ${req.path}.`));
+};
+
+interface BodyParserError {
+  type?: string;
+  status?: number;
+  expose?: boolean;
+}
+
+/** Turns body-parser's own errors (bad JSON, too large) into our ids. */
+function fromBodyParser(error: BodyParserError): ApiError | null {
+  if (error.type === 'entity.parse.failed') return validation('The request body is not valid JSON.');
+  if (error.type === 'entity.too.large') return tooLarge('The request body is too large.');
+  if (error.type === 'encoding.unsupported' || error.type === 'charset.unsupported') {
+    return validation('The request body uses an encoding the API does not read.');
+  }
+  if (typeof error.status === 'number' && error.status >= 400 && error.status < 500 && error.expose) {
+    return validation('The request could not be read.');
+  }
+  return null;
+}
+
+export const errorMiddleware: ErrorRequestHandler = (error: unknown, _req, res, _next) => {
+  const known = error instanceof ApiError ? error : fromBodyParser(error as BodyParserError);
+  if (!known) {
+    console.error(error);
+    res.status(500).json({ error: 'internal', message: 'Something went wrong on our side.' });
+    return;
+  }
+  res.status(known.status).json({ error: known.id, message: known.message, ...(known.details === undefined ? {} : { details: known.details }) });
+};

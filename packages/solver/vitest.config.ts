@@ -1,0 +1,11 @@
+import { defineConfig } from 'vitest/config';
+
+const results = process.env.TEST_RESULTS_DIR;
+
+export default defineConfig({
+  test: {
+    include: ['test/**/*.test.ts'],
+    reporters: results ? ['default', 'json'] : ['default'],
+    outputFile: results ? { json: `${results}/solver.json` } : undefined,
+  },
+});
