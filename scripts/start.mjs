@@ -3,18 +3,22 @@
 import path from 'node:path';
 import { ensureMariadbInstalled } from './lib/mariadb.mjs';
 import { takeLock } from './lib/lock.mjs';
-import { fail, ok, runMain, step, warn } from './lib/log.mjs';
+import { fail, info, ok, runMain, step, warn } from './lib/log.mjs';
 import { requireFreePort, waitForPort } from './lib/ports.mjs';
-import { apiDist, installAndBuild, migrate, root, startDatabase } from './lib/prepare.mjs';
-import { mustRun, startService } from './lib/run.mjs';
+import { apiDist, installAndBuild, migrate, root, seedDemoData, startDatabase } from './lib/prepare.mjs';
+import { startService } from './lib/run.mjs';
+import { defaultAdminLogins, requireStandinPort, sessionSecret, startSignIn } from './lib/sign-in.mjs';
 
 const apiPort = Number(process.env.API_PORT ?? 4410);
 const dbPort = Number(process.env.DB_PORT ?? 3407);
+const oauthPort = Number(process.env.OAUTH_STANDIN_PORT ?? 4411);
+const publicUrl = process.env.PUBLIC_URL ?? `http://127.0.0.1:${apiPort}`;
 
 await runMain(async () => {
   const release = takeLock(path.join(root, '.data/start.lock'), 'Rolloff (npm start)');
   process.on('exit', release);
   await requireFreePort(apiPort, 'the Rolloff server', 'API_PORT');
+  await requireStandinPort(oauthPort, 'OAUTH_STANDIN_PORT');
   if (!process.env.DATABASE_URL) await ensureMariadbInstalled();
   await installAndBuild();
 
@@ -37,8 +41,23 @@ await runMain(async () => {
   try {
     const env = { ...process.env, ...db.env, NODE_ENV: 'production', API_PORT: String(apiPort) };
     await migrate(env);
-    step('Loading the demo data (only the first time)');
-    await mustRun('Loading the demo data', process.execPath, [path.join(apiDist, 'db/seed-cli.js')], { cwd: root, env });
+    await seedDemoData(env);
+
+    const signIn = await startSignIn(oauthPort);
+    if (signIn.service) {
+      services.push(signIn.service);
+      signIn.service.exited.then(({ code }) => {
+        if (!stopping) {
+          warn(`The sign-in stand-in stopped unexpectedly (exit ${code}).`);
+          void stopAndExit(1);
+        }
+      });
+    }
+    Object.assign(env, signIn.env, {
+      PUBLIC_URL: publicUrl,
+      SESSION_SECRET: sessionSecret(),
+      ADMIN_LOGINS: process.env.ADMIN_LOGINS ?? defaultAdminLogins,
+    });
 
     step('Starting the server');
     const api = startService('api', process.execPath, [path.join(apiDist, 'server.js')], { cwd: root, env });
@@ -50,7 +69,8 @@ await runMain(async () => {
       }
     });
     if (!(await waitForPort(apiPort, 20_000))) fail('The server did not start listening within 20 s.');
-    ok(`Rolloff is running: open http://127.0.0.1:${apiPort}/  (Ctrl-C stops it)`);
+    ok(`Rolloff is running: open ${publicUrl}/  (Ctrl-C stops it)`);
+    if (signIn.service) info('Sign in with the local stand-in: pick one of the demo team, or type a new login.');
   } catch (error) {
     await shutdown();
     throw error;

@@ -8,11 +8,13 @@ import { ensureMariadbInstalled } from './lib/mariadb.mjs';
 import { takeLock } from './lib/lock.mjs';
 import { fail, info, runMain, step } from './lib/log.mjs';
 import { requireFreePort, waitForPort } from './lib/ports.mjs';
-import { apiDist, installAndBuild, migrate, root, startDatabase } from './lib/prepare.mjs';
+import { apiDist, installAndBuild, migrate, root, seedDemoData, startDatabase } from './lib/prepare.mjs';
 import { run, startService } from './lib/run.mjs';
+import { defaultAdminLogins, requireStandinPort, startSignIn } from './lib/sign-in.mjs';
 
 const apiPort = Number(process.env.TEST_API_PORT ?? 4420);
 const dbPort = Number(process.env.TEST_DB_PORT ?? 3417);
+const oauthPort = Number(process.env.TEST_OAUTH_STANDIN_PORT ?? 4421);
 const resultsDir = path.join(root, '.test-results');
 const suites = [
   { name: 'solver', file: 'solver.json' },
@@ -35,6 +37,7 @@ await runMain(async () => {
   const release = takeLock(path.join(root, '.data/test.lock'), 'Rolloff tests (npm test)');
   process.on('exit', release);
   await requireFreePort(apiPort, 'the test server', 'TEST_API_PORT');
+  await requireStandinPort(oauthPort, 'TEST_OAUTH_STANDIN_PORT');
   if (!process.env.DATABASE_URL) await ensureMariadbInstalled();
   await ensureDebianPackages({ chromium: 'chromium' }, 'the end-to-end tests');
   await installAndBuild();
@@ -46,6 +49,19 @@ await runMain(async () => {
   mkdirSync(resultsDir, { recursive: true });
   const db = await startDatabase({ dataDir, port: dbPort, database: 'rolloff_test' });
   const services = [];
+  // Ctrl-C: stop what this run started (the stand-in, the server, MariaDB) before leaving.
+  let interrupted = false;
+  const stopOnSignal = () => {
+    if (interrupted) return;
+    interrupted = true;
+    void (async () => {
+      for (const service of [...services].reverse()) await service.stop();
+      await db.stop();
+      process.exit(130);
+    })();
+  };
+  process.on('SIGINT', stopOnSignal);
+  process.on('SIGTERM', stopOnSignal);
   const env = {
     ...process.env,
     ...db.env,
@@ -56,18 +72,29 @@ await runMain(async () => {
   };
   try {
     await migrate(env);
+    // The same demo data as `npm start`, so the end-to-end tests can sign in as the demo team.
+    await seedDemoData(env);
 
     step('Unit and API tests (turbo run test)');
     await run('npx', ['turbo', 'run', 'test', '--concurrency=1', '--continue', '--output-logs=full'], { cwd: root, env });
 
     step('End-to-end tests in headless Chromium');
-    const serverEnv = { ...env, NODE_ENV: 'production', API_PORT: String(apiPort) };
+    const signIn = await startSignIn(oauthPort);
+    if (signIn.service) services.push(signIn.service);
+    const serverEnv = {
+      ...env,
+      ...signIn.env,
+      NODE_ENV: 'production',
+      API_PORT: String(apiPort),
+      PUBLIC_URL: `http://127.0.0.1:${apiPort}`,
+      ADMIN_LOGINS: process.env.ADMIN_LOGINS ?? defaultAdminLogins,
+    };
     const api = startService('api', process.execPath, [path.join(apiDist, 'server.js')], { cwd: root, env: serverEnv });
     services.push(api);
     if (!(await waitForPort(apiPort, 20_000))) fail('The test server did not start listening within 20 s.');
     await run('npx', ['vitest', 'run', '--config', 'vitest.e2e.config.ts'], {
       cwd: path.join(root, 'packages/web'),
-      env: { ...env, E2E_BASE_URL: `http://127.0.0.1:${apiPort}`, SCREENSHOT_DIR: path.join(root, 'test-output/screenshots') },
+      env: { ...env, ...signIn.env, E2E_BASE_URL: `http://127.0.0.1:${apiPort}`, SCREENSHOT_DIR: path.join(root, 'test-output/screenshots') },
     });
   } finally {
     for (const service of services.reverse()) await service.stop();

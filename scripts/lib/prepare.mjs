@@ -42,3 +42,9 @@ export async function migrate(env) {
   step('Migrating the database');
   await mustRun('The migrations', process.execPath, [path.join(apiDist, 'db/migrate.js')], { cwd: root, env: { ...process.env, ...env } });
 }
+
+/** Loads the demo data with the built API (only the first time for a database). */
+export async function seedDemoData(env) {
+  step('Loading the demo data (only the first time)');
+  await mustRun('Loading the demo data', process.execPath, [path.join(apiDist, 'db/seed-cli.js')], { cwd: root, env: { ...process.env, ...env } });
+}

@@ -1,34 +1,61 @@
 /**
- * The Express application: JSON API under /api, and in production the built web app with
- * a fallback to index.html for the client-side routes.
+ * The Express application: sign-in under /auth, the JSON API under /api, and in production
+ * the built web app with a fallback to index.html for the client-side routes.
  */
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import express from 'express';
 import type { Express } from 'express';
+import { csrfCheck, csrfCookie } from './auth/csrf.js';
+import { createAuth } from './auth/setup.js';
+import { authConfig } from './config.js';
+import type { AuthConfig } from './config.js';
+import { connect } from './db/connection.js';
 import { errorMiddleware, unknownRoute } from './errors.js';
+import { adminRouter } from './routes/admin/router.js';
+import { authRouter } from './routes/auth/router.js';
 import { healthRouter } from './routes/health/router.js';
+import { meRouter } from './routes/me/router.js';
+import { notebooksRouter } from './routes/notebooks/router.js';
+import { usersRouter } from './routes/users/router.js';
 
 export interface AppOptions {
   /** Folder of the built web app to serve, or null to serve none. */
   webDist: string | null;
+  /** Sign-in settings; by default read from the environment (see config.ts). */
+  auth?: AuthConfig;
 }
 
-export function createApp({ webDist }: AppOptions): Express {
+export function createApp({ webDist, auth: settings = authConfig() }: AppOptions): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
+  app.use(csrfCookie);
+
+  // Health answers without a session, so it works while MariaDB is down.
+  app.use('/api/health', healthRouter);
+
+  const auth = createAuth(settings, connect);
+  const checkCsrf = csrfCheck(settings.publicUrl);
+  app.use(['/api', '/auth'], auth.session, auth.passport.initialize(), auth.passport.session());
+  app.use('/auth/logout', checkCsrf);
+  app.use('/auth', authRouter(auth));
 
   const api = express.Router();
-  api.use(express.json({ limit: '256kb' }));
-  api.use('/health', healthRouter);
+  api.use(checkCsrf);
+  // Cell text is capped at 64 KiB by the schemas; the body limit leaves room for JSON escapes.
+  api.use(express.json({ limit: '1mb' }));
+  api.use('/me', meRouter);
+  api.use('/users', usersRouter);
+  api.use('/admin', adminRouter);
+  api.use('/notebooks', notebooksRouter);
   api.use(unknownRoute);
   app.use('/api', api);
 
   if (webDist && existsSync(path.join(webDist, 'index.html'))) {
     app.use(express.static(webDist, { index: false, maxAge: '1h' }));
-    // Client-side routes: anything that is not an API call or a file gets the app.
-    app.get(/^(?!\/api\/).*/, (_req, res) => {
+    // Client-side routes: anything that is not an API or sign-in call, or a file, gets the app.
+    app.get(/^(?!\/(api|auth)\/).*/, (_req, res) => {
       res.sendFile(path.join(webDist, 'index.html'), { maxAge: 0 });
     });
   }

@@ -2,6 +2,7 @@
  * Settings read from the environment once, with defaults that suit a private development
  * setup on loopback. The start and test scripts set these for the processes they launch.
  */
+import { randomBytes } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 
@@ -47,3 +48,91 @@ export const config = {
   /** The built web app, served in production mode. */
   webDist: process.env.WEB_DIST ?? fileURLToPath(new URL('../../web/dist', import.meta.url)),
 };
+
+/** Where passport-github2 sends people and asks about them: real GitHub or the stand-in. */
+export interface OAuthConfig {
+  /** `standin` when OAUTH_BASE_URL names the local stand-in, else `github`. */
+  provider: 'github' | 'standin';
+  clientId: string;
+  clientSecret: string;
+  authorizationURL: string;
+  tokenURL: string;
+  userProfileURL: string;
+  userEmailURL: string;
+}
+
+/** The client the stand-in knows when nothing else is configured. */
+export const standinClient = { id: 'rolloff-local', secret: 'rolloff-local-secret' } as const;
+
+/**
+ * OAUTH_BASE_URL (the stand-in) wins; otherwise GITHUB_CLIENT_ID/GITHUB_CLIENT_SECRET mean
+ * real GitHub; otherwise sign-in is off (null). Each URL can be overridden on its own with
+ * OAUTH_AUTHORIZATION_URL, OAUTH_TOKEN_URL, OAUTH_PROFILE_URL and OAUTH_EMAILS_URL.
+ */
+export function oauthConfig(env: NodeJS.ProcessEnv = process.env): OAuthConfig | null {
+  let base: OAuthConfig;
+  if (env.OAUTH_BASE_URL) {
+    const root = env.OAUTH_BASE_URL.replace(/\/+$/, '');
+    base = {
+      provider: 'standin',
+      clientId: env.OAUTH_CLIENT_ID ?? standinClient.id,
+      clientSecret: env.OAUTH_CLIENT_SECRET ?? standinClient.secret,
+      authorizationURL: `${root}/login/oauth/authorize`,
+      tokenURL: `${root}/login/oauth/access_token`,
+      userProfileURL: `${root}/user`,
+      userEmailURL: `${root}/user/emails`,
+    };
+  } else if (env.GITHUB_CLIENT_ID && env.GITHUB_CLIENT_SECRET) {
+    base = {
+      provider: 'github',
+      clientId: env.GITHUB_CLIENT_ID,
+      clientSecret: env.GITHUB_CLIENT_SECRET,
+      authorizationURL: 'https://github.com/login/oauth/authorize',
+      tokenURL: 'https://github.com/login/oauth/access_token',
+      userProfileURL: 'https://api.github.com/user',
+      userEmailURL: 'https://api.github.com/user/emails',
+    };
+  } else {
+    return null;
+  }
+  return {
+    ...base,
+    authorizationURL: env.OAUTH_AUTHORIZATION_URL ?? base.authorizationURL,
+    tokenURL: env.OAUTH_TOKEN_URL ?? base.tokenURL,
+    userProfileURL: env.OAUTH_PROFILE_URL ?? base.userProfileURL,
+    userEmailURL: env.OAUTH_EMAILS_URL ?? base.userEmailURL,
+  };
+}
+
+/** Settings of sign-in and sessions. */
+export interface AuthConfig {
+  oauth: OAuthConfig | null;
+  /** The address people open (`https://rolloff.example.com`); null: the request's own host. */
+  publicUrl: string | null;
+  sessionSecret: string;
+  /** Logins made site admins when they sign in. */
+  adminLogins: string[];
+}
+
+let warnedAboutSecret = false;
+
+export function authConfig(env: NodeJS.ProcessEnv = process.env): AuthConfig {
+  let sessionSecret = env.SESSION_SECRET ?? '';
+  if (!sessionSecret) {
+    // Without a configured secret, sessions last as long as this process.
+    sessionSecret = randomBytes(32).toString('hex');
+    if (env.NODE_ENV === 'production' && !warnedAboutSecret) {
+      warnedAboutSecret = true;
+      console.warn('SESSION_SECRET is not set: sessions end when the server restarts.');
+    }
+  }
+  return {
+    oauth: oauthConfig(env),
+    publicUrl: env.PUBLIC_URL ? env.PUBLIC_URL.replace(/\/+$/, '') : null,
+    sessionSecret,
+    adminLogins: (env.ADMIN_LOGINS ?? '')
+      .split(',')
+      .map((login) => login.trim())
+      .filter(Boolean),
+  };
+}

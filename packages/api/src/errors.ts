@@ -71,8 +71,17 @@ function fromBodyParser(error: BodyParserError): ApiError | null {
   return null;
 }
 
+const unreachable = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'PROTOCOL_CONNECTION_LOST', 'ER_CON_COUNT_ERROR']);
+
+/** A database that cannot be reached is a 503 the client may retry, not an internal error. */
+function fromDatabase(error: { code?: string; driverError?: { code?: string } } | null): ApiError | null {
+  const code = error?.code ?? error?.driverError?.code;
+  return code && unreachable.has(code) ? unavailable('The database is not answering; try again in a moment.') : null;
+}
+
 export const errorMiddleware: ErrorRequestHandler = (error: unknown, _req, res, _next) => {
-  const known = error instanceof ApiError ? error : fromBodyParser(error as BodyParserError);
+  const known =
+    error instanceof ApiError ? error : (fromBodyParser(error as BodyParserError) ?? fromDatabase(error as { code?: string }));
   if (!known) {
     console.error(error);
     res.status(500).json({ error: 'internal', message: 'Something went wrong on our side.' });

@@ -16,7 +16,86 @@ describe('the migrations', () => {
     const tables: { name: string }[] = await scratch.db.query(
       'SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() ORDER BY table_name',
     );
-    expect(tables.map((t) => t.name)).toEqual(expect.arrayContaining(['app_state', 'migrations', 'users']));
+    expect(tables.map((t) => t.name)).toEqual(
+      expect.arrayContaining([
+        'app_state',
+        'migrations',
+        'users',
+        'sessions',
+        'notebooks',
+        'notebook_members',
+        'cells',
+        'cell_revisions',
+        'notebook_versions',
+        'notebook_version_cells',
+      ]),
+    );
+  });
+
+  it('link the tables with foreign keys', async () => {
+    const keys: { child: string; columnName: string; parent: string; parentColumn: string; onDelete: string }[] = await scratch.db.query(
+      `SELECT k.table_name AS child, k.column_name AS columnName, k.referenced_table_name AS parent,
+              k.referenced_column_name AS parentColumn, r.delete_rule AS onDelete
+         FROM information_schema.key_column_usage k
+         JOIN information_schema.referential_constraints r
+           ON r.constraint_schema = k.constraint_schema AND r.constraint_name = k.constraint_name
+        WHERE k.table_schema = DATABASE() AND k.referenced_table_name IS NOT NULL`,
+    );
+    const found = keys.map((k) => `${k.child}.${k.columnName} -> ${k.parent}.${k.parentColumn} ${k.onDelete}`).sort();
+    expect(found).toEqual(
+      [
+        'cell_revisions.authorId -> users.id SET NULL',
+        'cell_revisions.cellId -> cells.id CASCADE',
+        'cells.notebookId -> notebooks.id CASCADE',
+        'notebook_members.notebookId -> notebooks.id CASCADE',
+        'notebook_members.userId -> users.id CASCADE',
+        'notebook_version_cells.cellId -> cells.id CASCADE',
+        'notebook_version_cells.revisionId -> cell_revisions.id CASCADE',
+        'notebook_version_cells.versionId -> notebook_versions.id CASCADE',
+        'notebook_versions.authorId -> users.id SET NULL',
+        'notebook_versions.notebookId -> notebooks.id CASCADE',
+        'notebooks.forkedFromId -> notebooks.id SET NULL',
+        'notebooks.forkedFromVersionId -> notebook_versions.id SET NULL',
+        'notebooks.ownerId -> users.id RESTRICT',
+        'sessions.userId -> users.id CASCADE',
+      ].sort(),
+    );
+  });
+
+  it('have the indexes the list and lookup queries use', async () => {
+    const rows: { tableName: string; indexName: string; columns: string; nonUnique: number | string }[] = await scratch.db.query(
+      `SELECT table_name AS tableName, index_name AS indexName, MAX(non_unique) AS nonUnique,
+              GROUP_CONCAT(column_name ORDER BY seq_in_index) AS columns
+         FROM information_schema.statistics
+        WHERE table_schema = DATABASE()
+        GROUP BY table_name, index_name`,
+    );
+    const index = (table: string, columns: string) => rows.find((r) => r.tableName === table && r.columns === columns);
+    // scope=mine and an admin's scope=all, newest change first, paged by (updatedAt, id)
+    expect(index('notebooks', 'ownerId,deletedAt,updatedAt,id')).toBeDefined();
+    expect(index('notebooks', 'deletedAt,updatedAt,id')).toBeDefined();
+    // scope=shared, and the caller's role in every notebook read
+    expect(index('notebook_members', 'userId,notebookId')).toBeDefined();
+    expect(index('notebook_members', 'notebookId,userId')).toMatchObject({ indexName: 'PRIMARY' });
+    // forks of a notebook and fork counts
+    expect(index('notebooks', 'forkedFromId,createdAt')).toBeDefined();
+    // a notebook's cells in order; a cell's current revision by number (unique)
+    expect(index('cells', 'notebookId,deletedAt,position')).toBeDefined();
+    expect(Number(index('cell_revisions', 'cellId,number')?.nonUnique)).toBe(0);
+    expect(Number(index('notebook_versions', 'notebookId,number')?.nonUnique)).toBe(0);
+    // sign-in by GitHub id or login; a disabled user's sessions; expired sessions
+    expect(Number(index('users', 'githubId')?.nonUnique)).toBe(0);
+    expect(Number(index('users', 'login')?.nonUnique)).toBe(0);
+    expect(index('sessions', 'userId')).toBeDefined();
+    expect(index('sessions', 'expiresAt')).toBeDefined();
+  });
+
+  it('plan the notebook list with the owner index rather than a table scan', async () => {
+    const plan: { key: string | null; type: string }[] = await scratch.db.query(
+      `EXPLAIN SELECT id FROM notebooks WHERE ownerId = 1 AND deletedAt IS NULL ORDER BY updatedAt DESC, id DESC LIMIT 21`,
+    );
+    expect(plan[0]!.key).toBe('idx_notebooks_owner_changed');
+    expect(plan[0]!.type).not.toBe('ALL');
   });
 
   it('undo cleanly, one by one', async () => {

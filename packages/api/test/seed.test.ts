@@ -1,7 +1,9 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { User } from '../src/db/entities/user.js';
 import { seedDemoData } from '../src/db/seed.js';
+import { demoNotebooks } from '../src/db/seed/demo-notebooks.js';
 import { demoUsers } from '../src/db/seed/demo-users.js';
+import { checkCircuitText } from '../src/services/cell-check.js';
 import { createScratchDb } from './scratch-db.js';
 import type { ScratchDb } from './scratch-db.js';
 
@@ -17,11 +19,15 @@ describe('the demo data', () => {
     const { db } = scratch;
     expect(await seedDemoData(db)).toBe('loaded');
     expect(await db.getRepository(User).count()).toBe(demoUsers.length);
+    const notebooks = Number((await db.query('SELECT COUNT(*) AS n FROM notebooks'))[0].n);
+    expect(notebooks).toBe(demoNotebooks.length + 1);
     expect(await seedDemoData(db)).toBe('already-loaded');
     expect(await db.getRepository(User).count()).toBe(demoUsers.length);
+    expect(Number((await db.query('SELECT COUNT(*) AS n FROM notebooks'))[0].n)).toBe(notebooks);
 
-    // A team that removed the demo people does not get them back on the next start.
-    await db.getRepository(User).clear();
+    // A team that removed the demo people and notebooks does not get them back on the next start.
+    await db.query('DELETE FROM notebooks');
+    await db.query('DELETE FROM users');
     expect(await seedDemoData(db)).toBe('already-loaded');
     expect(await db.getRepository(User).count()).toBe(0);
   });
@@ -33,5 +39,54 @@ describe('the demo data', () => {
     expect(await seedDemoData(db)).toBe('has-user-data');
     const logins = (await db.getRepository(User).find()).map((user) => user.login);
     expect(logins).toEqual(['someone-real']);
+    expect(await db.query('SELECT id FROM notebooks')).toEqual([]);
+  });
+
+  it('tells the product.md story: four notebooks with notes, circuits, versions, a fork and every role', async () => {
+    scratch = await createScratchDb('seed_story');
+    const { db } = scratch;
+    await seedDemoData(db);
+    const titles: { title: string; forkedFromId: string | null }[] = await db.query('SELECT title, forkedFromId FROM notebooks ORDER BY createdAt');
+    expect(titles.filter((n) => !n.forkedFromId).map((n) => n.title)).toEqual([
+      'Anti-alias filter for the vibration-sensor converter',
+      'Tone network for the bench audio amplifier',
+      'Decoupling network for the mixed-signal board',
+      'Compensation of the 3.3 V regulator loop',
+    ]);
+    expect(titles.filter((n) => n.forkedFromId)).toHaveLength(1);
+
+    const perNotebook: { title: string; notes: string; circuits: string; versions: string }[] = await db.query(
+      `SELECT n.title,
+              (SELECT COUNT(*) FROM cells c WHERE c.notebookId = n.id AND c.kind = 'note') AS notes,
+              (SELECT COUNT(*) FROM cells c WHERE c.notebookId = n.id AND c.kind = 'circuit') AS circuits,
+              (SELECT COUNT(*) FROM notebook_versions v WHERE v.notebookId = n.id) AS versions
+         FROM notebooks n WHERE n.forkedFromId IS NULL`,
+    );
+    for (const notebook of perNotebook) {
+      expect(Number(notebook.notes), notebook.title).toBeGreaterThan(0);
+      expect(Number(notebook.circuits), notebook.title).toBeGreaterThan(0);
+      expect(Number(notebook.versions), notebook.title).toBeGreaterThan(0);
+    }
+    const fork: { versionId: number | null }[] = await db.query('SELECT forkedFromVersionId AS versionId FROM notebooks WHERE forkedFromId IS NOT NULL');
+    expect(fork[0]!.versionId).not.toBeNull();
+
+    const roles: { role: string }[] = await db.query('SELECT DISTINCT role FROM notebook_members ORDER BY role');
+    expect(roles.map((r) => r.role)).toEqual(['editor', 'reviewer', 'viewer']);
+    const owners: { n: string }[] = await db.query('SELECT COUNT(DISTINCT ownerId) AS n FROM notebooks');
+    expect(Number(owners[0]!.n)).toBeGreaterThanOrEqual(4);
+    expect(await db.query("SELECT id FROM notebooks WHERE visibility = 'link'")).toHaveLength(1);
+
+    // Every circuit revision ever saved compiles without errors, checked again here.
+    const circuits: { text: string; diagnosticErrors: number }[] = await db.query(
+      `SELECT r.text, r.diagnosticErrors FROM cell_revisions r JOIN cells c ON c.id = r.cellId WHERE c.kind = 'circuit'`,
+    );
+    expect(circuits.length).toBeGreaterThan(10);
+    for (const circuit of circuits) {
+      expect(checkCircuitText(circuit.text).errors, circuit.text).toBe(0);
+      expect(circuit.diagnosticErrors).toBe(0);
+    }
+    expect(circuits.some((c) => /^show loop /m.test(c.text))).toBe(true);
+    const revised: { n: string }[] = await db.query('SELECT COUNT(*) AS n FROM cells WHERE revision > 1');
+    expect(Number(revised[0]!.n)).toBeGreaterThan(0);
   });
 });

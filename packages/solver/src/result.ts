@@ -62,6 +62,13 @@ export interface RequirementResult {
   measured: number;
   /** Hz where the worst value was found; null for single-number measures. */
   worstAt: number | null;
+  /**
+   * `not-available` when the requirement could not be checked (its measure is not computed
+   * yet, or the trace has no such readout in the sweep); `pass` is then false.
+   */
+  status?: 'pass' | 'fail' | 'not-available';
+  /** Unit of `measured`: "dB", "deg", "s", "Hz", or the trace's unit for `magnitude`. */
+  unit?: string;
 }
 
 export interface StepResult {

@@ -51,7 +51,7 @@ export type SuffixReading =
 export type SuffixProblem =
   | { kind: 'mega'; spelling: string; replacement: string }
   | { kind: 'capital-prefix'; letter: string; replacement: string }
-  | { kind: 'unit-case'; spelling: string; replacement: string | null }
+  | { kind: 'unit-case'; spelling: string; replacement: string | null; hint?: string }
   | { kind: 'prefixed-unit'; prefix: string; unit: string }
   | { kind: 'unknown'; spelling: string };
 
@@ -98,8 +98,19 @@ export function readSuffix(suffix: string): SuffixReading {
     }
     if (rest === 'hz' || rest === 'HZ') {
       // `mhz` could be milli- or megahertz; `khz` can only be kilohertz.
-      const replacement = first === 'm' || first === 'M' ? null : first + 'Hz';
-      return { kind: 'bad', reason: { kind: 'unit-case', spelling: suffix, replacement } };
+      if (first === 'm' || first === 'M') {
+        return { kind: 'bad', reason: { kind: 'unit-case', spelling: suffix, replacement: null, hint: 'write mHz for millihertz or MHz for megahertz' } };
+      }
+      return { kind: 'bad', reason: { kind: 'unit-case', spelling: suffix, replacement: first + 'Hz' } };
+    }
+    if (rest === 'f' || rest === 'h') {
+      // `nf` is nano-femto as written; farads and henries are capital F and H.
+      const unit = rest.toUpperCase();
+      if (first === 'm') {
+        const name = unit === 'F' ? 'farads' : 'henries';
+        return { kind: 'bad', reason: { kind: 'unit-case', spelling: suffix, replacement: null, hint: `${name} are ${unit}: write m${unit} for milli${name}, or u${unit} if micro was meant` } };
+      }
+      return { kind: 'bad', reason: { kind: 'unit-case', spelling: suffix, replacement: first + unit } };
     }
     const mis = UNIT_MISSPELLINGS[rest];
     if (mis !== undefined && mis !== null) {

@@ -1,5 +1,38 @@
 /**
  * The request and response schemas that the API and the web share. The web imports this
  * module as `@rolloff/api/contract` and never re-declares an API type by hand.
+ *
+ * Routes (all JSON; errors are `ErrorBodySchema` with a stable `error` id):
+ * - `GET /auth/github[?login=NAME&returnTo=/path]` starts GitHub sign-in (or the stand-in's);
+ *   `GET /auth/github/callback` finishes it and redirects to `/notebooks` (or `returnTo`);
+ *   `POST /auth/logout` → 204. `GET /api/me` → MeSchema, 401 when signed out.
+ * - `GET /api/notebooks` (NotebookListQuerySchema → NotebookListSchema), `POST /api/notebooks`,
+ *   `GET|PATCH|DELETE /api/notebooks/:id`, `POST /api/notebooks/:id/restore`.
+ * - `POST /api/notebooks/:id/cells`, `PUT|DELETE /api/notebooks/:id/cells/:cellId`,
+ *   `POST …/cells/:cellId/move`, `POST …/cells/:cellId/restore`,
+ *   `GET …/cells/:cellId/revisions`, `GET …/cells/:cellId/revisions/:number`.
+ * - `POST|GET /api/notebooks/:id/versions`, `GET /api/notebooks/:id/versions/:number`.
+ * - `POST|GET /api/notebooks/:id/forks`.
+ * - `GET /api/notebooks/:id/members`, `PUT|DELETE /api/notebooks/:id/members/:userId`.
+ * - `GET /api/users?q=` (people to share with); admins: `GET /api/admin/users`,
+ *   `PATCH /api/admin/users/:userId`.
+ *
+ * A notebook the caller may not read answers 404 `not_found`, exactly like one that does not
+ * exist; one the caller may read but not change answers 403 `forbidden`.
+ *
+ * Cross-site request forgery (double-submit cookie): every response that arrives without it
+ * sets the cookie `rolloff_csrf` (CSRF_COOKIE) to a random token; it is not HttpOnly, so the
+ * page's script can read it. Every POST, PUT, PATCH and DELETE under `/api` and `/auth/logout`
+ * must send that value in the `x-csrf-token` header (CSRF_HEADER), or it is refused with 403
+ * `forbidden`. A request whose `Origin` header names another site is refused the same way.
+ * Another site can make a browser send our cookies but can neither read the token nor set
+ * the header, and the session cookie is `SameSite=Lax` besides.
  */
+export * from './common.js';
 export * from './health.js';
+export * from './users.js';
+export * from './cells.js';
+export * from './versions.js';
+export * from './notebooks.js';
+export * from './forks.js';
+export * from './members.js';

@@ -1,10 +1,19 @@
 /**
  * The demo data, loaded once per database by `npm start` (through seed-cli.ts). A marker row in app_state records
  * that it ran, so it never runs again, and it never touches a database that has users.
+ * Everything loads in one transaction, through the same services the API uses.
  */
-import type { DataSource } from 'typeorm';
+import type { DataSource, EntityManager } from 'typeorm';
 import { User } from './entities/user.js';
+import { demoFork, demoNotebooks } from './seed/demo-notebooks.js';
+import type { DemoNotebook } from './seed/demo-notebooks.js';
 import { demoUsers } from './seed/demo-users.js';
+import type { Actor } from '../policy.js';
+import { saveCell } from '../services/cells.js';
+import { forkNotebook } from '../services/forks.js';
+import { putMember } from '../services/members.js';
+import { createNotebook, updateNotebook } from '../services/notebooks.js';
+import { createVersion } from '../services/versions.js';
 
 const marker = 'demo-data-loaded';
 
@@ -15,7 +24,75 @@ export async function seedDemoData(db: DataSource): Promise<'loaded' | 'already-
     if (done.length > 0) return 'already-loaded';
     if ((await manager.count(User)) > 0) return 'has-user-data';
     await manager.insert(User, demoUsers.map((user) => ({ ...user })));
+    await loadNotebooks(manager);
     await manager.query('INSERT INTO app_state (name, value) VALUES (?, ?)', [marker, new Date().toISOString()]);
     return 'loaded';
   });
+}
+
+async function loadNotebooks(manager: EntityManager): Promise<void> {
+  const users = new Map((await manager.find(User)).map((user) => [user.login, user]));
+  const actor = (login: string): Actor => {
+    const user = users.get(login);
+    if (!user) throw new Error(`demo data names an unknown user ${login}`);
+    return { id: user.id, siteRole: user.siteRole, disabled: user.disabled };
+  };
+
+  const ids = new Map<string, string>();
+  for (const demo of demoNotebooks) {
+    const id = await loadNotebook(manager, demo, actor);
+    ids.set(demo.key, id);
+    await backdate(manager, id, demo.daysAgo);
+  }
+
+  const source = ids.get(demoFork.from)!;
+  const fork = await forkNotebook(manager, actor(demoFork.by), source, { version: demoFork.version, title: demoFork.title });
+  const cell = fork.cells[demoFork.edit.position]!;
+  await saveCell(manager, actor(demoFork.by), fork.id, cell.id, { text: demoFork.edit.text, baseRevision: cell.revision });
+  for (const [login, role] of demoFork.members) await putMember(manager, actor(demoFork.by), fork.id, users.get(login)!.id, role);
+  await backdate(manager, fork.id, demoFork.daysAgo);
+}
+
+async function loadNotebook(manager: EntityManager, demo: DemoNotebook, actor: (login: string) => Actor): Promise<string> {
+  const owner = actor(demo.owner);
+  const notebook = await createNotebook(manager, owner, {
+    title: demo.title,
+    cells: demo.cells.map((cell) => ({ kind: cell.kind, text: cell.text })),
+  });
+  for (const [login, role] of demo.members) await putMember(manager, owner, notebook.id, actor(login).id, role);
+  for (const [position, cell] of demo.cells.entries()) {
+    let revision = 1;
+    for (const edit of cell.edits ?? []) {
+      const saved = await saveCell(manager, actor(edit.by), notebook.id, notebook.cells[position]!.id, { text: edit.text, baseRevision: revision });
+      revision = saved.body.cell.revision;
+    }
+  }
+  for (const version of demo.versions) await createVersion(manager, actor(version.by), notebook.id, version.label);
+  if (demo.visibility === 'link') await updateNotebook(manager, owner, notebook.id, { visibility: 'link' });
+  return notebook.id;
+}
+
+/**
+ * Moves a freshly loaded notebook's history `days` into the past: the notebook and its cells
+ * start a few hours before their last change, and each cell's revisions an hour and a half
+ * apart, so lists and histories read like real work.
+ */
+async function backdate(manager: EntityManager, notebookId: string, days: number): Promise<void> {
+  const shift = (column: string) => `${column} = ${column} - INTERVAL ${Number(days)} DAY`;
+  await manager.query(
+    `UPDATE notebooks SET createdAt = createdAt - INTERVAL ${Number(days)} DAY - INTERVAL 6 HOUR, ${shift('updatedAt')} WHERE id = ?`,
+    [notebookId],
+  );
+  await manager.query(
+    `UPDATE cells SET createdAt = createdAt - INTERVAL ${Number(days)} DAY - INTERVAL 6 HOUR, ${shift('updatedAt')} WHERE notebookId = ?`,
+    [notebookId],
+  );
+  await manager.query(
+    `UPDATE cell_revisions r JOIN cells c ON c.id = r.cellId
+        SET r.createdAt = r.createdAt - INTERVAL ${Number(days)} DAY - INTERVAL ((c.revision - r.number) * 90) MINUTE
+      WHERE c.notebookId = ?`,
+    [notebookId],
+  );
+  await manager.query(`UPDATE notebook_versions SET ${shift('createdAt')} WHERE notebookId = ?`, [notebookId]);
+  await manager.query(`UPDATE notebook_members SET createdAt = createdAt - INTERVAL ${Number(days)} DAY - INTERVAL 6 HOUR WHERE notebookId = ?`, [notebookId]);
 }

@@ -23,6 +23,13 @@ export class User {
   @Column({ type: 'boolean', default: false })
   disabled!: boolean;
 
+  /** GitHub's numeric user id (as text); null until the person first signs in. */
+  @Column({ type: 'varchar', length: 40, nullable: true, unique: true })
+  githubId!: string | null;
+
+  @Column({ type: 'datetime', precision: 3, nullable: true })
+  lastSignInAt!: Date | null;
+
   @CreateDateColumn({ type: 'datetime', precision: 3 })
   createdAt!: Date;
 

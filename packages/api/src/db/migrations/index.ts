@@ -1,8 +1,21 @@
 import { CreateUsers1764633600000 } from './1764633600000-create-users.js';
 import { CreateAppState1764633600001 } from './1764633600001-create-app-state.js';
+import { AddUserSignIn1764633600002 } from './1764633600002-add-user-sign-in.js';
+import { CreateSessions1764633600003 } from './1764633600003-create-sessions.js';
+import { CreateNotebooks1764633600004 } from './1764633600004-create-notebooks.js';
+import { CreateCells1764633600005 } from './1764633600005-create-cells.js';
+import { CreateVersions1764633600006 } from './1764633600006-create-versions.js';
 
 /**
  * Every migration, oldest first. Listed by class rather than found by a file glob, so the
  * same DataSource works built, under tsx and under Vitest. Add a new migration here.
  */
-export const migrations = [CreateUsers1764633600000, CreateAppState1764633600001];
+export const migrations = [
+  CreateUsers1764633600000,
+  CreateAppState1764633600001,
+  AddUserSignIn1764633600002,
+  CreateSessions1764633600003,
+  CreateNotebooks1764633600004,
+  CreateCells1764633600005,
+  CreateVersions1764633600006,
+];

@@ -1,0 +1,17 @@
+/** What passport puts on `req.user`, and what the session keeps besides passport's own. */
+import type { User as Account } from '../db/entities/user.js';
+
+declare global {
+  namespace Express {
+    interface User extends Pick<Account, 'id' | 'login' | 'name' | 'email' | 'siteRole' | 'disabled'> {}
+  }
+}
+
+declare module 'express-session' {
+  interface SessionData {
+    /** Where to go after sign-in (a path on this site). */
+    returnTo?: string;
+  }
+}
+
+export {};

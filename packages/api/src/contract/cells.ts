@@ -1,0 +1,95 @@
+import { z } from 'zod';
+import { CellTextSchema, DiagnosticCountsSchema, LIMITS, TimestampSchema, UserRefSchema } from './common.js';
+
+export const CellKindSchema = z.enum(['circuit', 'note']);
+export type CellKind = z.infer<typeof CellKindSchema>;
+
+/** A cell at its current revision. `diagnostics` is null for note cells. */
+export const CellSchema = z.object({
+  id: z.number().int(),
+  kind: CellKindSchema,
+  /** 0-based place among the notebook's live cells. */
+  position: z.number().int().nonnegative(),
+  text: z.string(),
+  /** Number of the current revision (1 for a new cell); send it back as `baseRevision`. */
+  revision: z.number().int().positive(),
+  diagnostics: DiagnosticCountsSchema.nullable(),
+  updatedAt: TimestampSchema,
+  updatedBy: UserRefSchema.nullable(),
+  /** Set on a deleted cell (restorable with `POST …/cells/:cellId/restore`). */
+  deletedAt: TimestampSchema.nullable(),
+});
+export type Cell = z.infer<typeof CellSchema>;
+
+/** `POST /api/notebooks/:id/cells`: a new cell at `position` (default: at the end). */
+export const CellCreateSchema = z.strictObject({
+  kind: CellKindSchema,
+  position: z.number().int().nonnegative().max(LIMITS.cellsPerNotebook).optional(),
+  text: CellTextSchema.default(''),
+});
+export type CellCreate = z.input<typeof CellCreateSchema>;
+
+/** `PUT /api/notebooks/:id/cells/:cellId`: the new text and the revision it was based on. */
+export const CellSaveSchema = z.strictObject({
+  text: CellTextSchema,
+  baseRevision: z.number().int().positive(),
+});
+export type CellSave = z.infer<typeof CellSaveSchema>;
+
+/** `POST /api/notebooks/:id/cells/:cellId/move`: the cell's new 0-based position. */
+export const CellMoveSchema = z.strictObject({
+  position: z.number().int().nonnegative(),
+});
+export type CellMove = z.infer<typeof CellMoveSchema>;
+
+/** One immutable revision of a cell, with its text. */
+export const CellRevisionSchema = z.object({
+  cellId: z.number().int(),
+  number: z.number().int().positive(),
+  text: z.string(),
+  author: UserRefSchema.nullable(),
+  createdAt: TimestampSchema,
+  diagnostics: DiagnosticCountsSchema.nullable(),
+});
+export type CellRevision = z.infer<typeof CellRevisionSchema>;
+
+/** A revision in a list: everything but the text (fetch one revision for its text). */
+export const CellRevisionSummarySchema = CellRevisionSchema.omit({ text: true }).extend({
+  /** Size of the text in UTF-8 bytes. */
+  size: z.number().int().nonnegative(),
+});
+export type CellRevisionSummary = z.infer<typeof CellRevisionSummarySchema>;
+
+/** `GET …/cells/:cellId/revisions?cursor=&limit=`: newest first. */
+export const CellRevisionListSchema = z.object({
+  items: z.array(CellRevisionSummarySchema),
+  nextCursor: z.string().nullable(),
+});
+export type CellRevisionList = z.infer<typeof CellRevisionListSchema>;
+
+/**
+ * The answer to a create (201), a save (201 with a new revision; 200 when the text equals the
+ * current one and nothing was stored), a move, a delete and a restore (200). A circuit cell's
+ * text is checked by the solver on every save and stored even with errors; `diagnostics`
+ * counts them (null for note cells).
+ */
+export const CellSavedSchema = z.object({
+  cell: CellSchema,
+  revision: CellRevisionSummarySchema,
+  diagnostics: DiagnosticCountsSchema.nullable(),
+});
+export type CellSaved = z.infer<typeof CellSavedSchema>;
+
+/**
+ * 409 body of a stale save: the revision that is current now (with its text) and the text
+ * that was refused, so nothing typed is lost; merge and save again on `current.number`.
+ */
+export const ConflictSchema = z.object({
+  error: z.literal('conflict'),
+  message: z.string(),
+  details: z.object({
+    current: CellRevisionSchema,
+    submitted: z.object({ text: z.string(), baseRevision: z.number().int() }),
+  }),
+});
+export type Conflict = z.infer<typeof ConflictSchema>;

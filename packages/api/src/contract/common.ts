@@ -1,0 +1,119 @@
+import { z } from 'zod';
+
+/** Name of the double-submit cookie that holds the CSRF token (readable by scripts). */
+export const CSRF_COOKIE = 'rolloff_csrf';
+/** Header every state-changing request must carry, equal to the CSRF cookie's value. */
+export const CSRF_HEADER = 'x-csrf-token';
+/** Name of the HttpOnly session cookie. */
+export const SESSION_COOKIE = 'rolloff_session';
+
+/** Limits the API enforces; the web checks the same numbers before it sends. */
+export const LIMITS = {
+  /** Cell text, in UTF-8 bytes (64 KiB). Over it: 413 `too_large`. */
+  cellTextBytes: 64 * 1024,
+  /** Live cells in one notebook. Over it: 413 `too_large`. */
+  cellsPerNotebook: 500,
+  /** Notebook title, in characters. Over it: 400 `validation`. */
+  titleLength: 200,
+  /** Version label, in characters. */
+  versionLabelLength: 200,
+  /** Search text of the notebook list. */
+  searchLength: 200,
+  /** Default and largest page of a paged list. */
+  pageSize: 20,
+  maxPageSize: 100,
+} as const;
+
+export const ErrorIdSchema = z.enum([
+  'not_found',
+  'validation',
+  'conflict',
+  'unauthenticated',
+  'forbidden',
+  'too_large',
+  'unavailable',
+  'internal',
+]);
+export type ErrorId = z.infer<typeof ErrorIdSchema>;
+
+/** One zod issue of a refused request: `path` names the field (`cells.3.text`, `title`). */
+export const ValidationIssueSchema = z.object({
+  path: z.string(),
+  message: z.string(),
+});
+export type ValidationIssue = z.infer<typeof ValidationIssueSchema>;
+
+/** Every error answer: `{ error, message, details? }`; `validation` details are `{ issues }`. */
+export const ErrorBodySchema = z.object({
+  error: ErrorIdSchema,
+  message: z.string(),
+  details: z.unknown().optional(),
+});
+export type ErrorBody = z.infer<typeof ErrorBodySchema>;
+
+export const ValidationDetailsSchema = z.object({ issues: z.array(ValidationIssueSchema) });
+export type ValidationDetails = z.infer<typeof ValidationDetailsSchema>;
+
+/** Times are ISO 8601 strings in UTC with milliseconds (`2026-12-02T10:15:00.000Z`). */
+export const TimestampSchema = z.iso.datetime();
+export type Timestamp = z.infer<typeof TimestampSchema>;
+
+/** Notebook ids are random and URL-safe, so a shared link cannot be guessed from another. */
+export const NotebookIdSchema = z.string().regex(/^[A-Za-z0-9_-]{12}$/, 'not a notebook id');
+export type NotebookId = z.infer<typeof NotebookIdSchema>;
+
+/** Numeric ids of users and cells, as path parameters (`/cells/42`). */
+export const NumericIdSchema = z.coerce.number().int().positive().max(4_294_967_295);
+
+/** A person as other people see them: never their e-mail. */
+export const UserRefSchema = z.object({
+  id: z.number().int(),
+  login: z.string(),
+  name: z.string(),
+});
+export type UserRef = z.infer<typeof UserRefSchema>;
+
+/** Counts of the solver's diagnostics for one circuit-cell text. */
+export const DiagnosticCountsSchema = z.object({
+  errors: z.number().int().nonnegative(),
+  warnings: z.number().int().nonnegative(),
+});
+export type DiagnosticCounts = z.infer<typeof DiagnosticCountsSchema>;
+
+/** Bytes of a string in UTF-8, without TextEncoder allocations for the common ASCII case. */
+export function utf8Length(text: string): number {
+  let bytes = 0;
+  for (let i = 0; i < text.length; i++) {
+    const code = text.charCodeAt(i);
+    if (code < 0x80) bytes += 1;
+    else if (code < 0x800) bytes += 2;
+    else if (code >= 0xd800 && code <= 0xdbff && i + 1 < text.length) {
+      bytes += 4;
+      i++;
+    } else bytes += 3;
+  }
+  return bytes;
+}
+
+/** Marks a zod issue as "over a size limit", which the API answers with 413 `too_large`. */
+export const TOO_LARGE_PARAM = 'tooLarge';
+
+/** A notebook title: trimmed, 1 to 200 characters. */
+export const TitleSchema = z
+  .string()
+  .trim()
+  .min(1, 'A title cannot be empty.')
+  .max(LIMITS.titleLength, `A title has at most ${LIMITS.titleLength} characters.`);
+
+/** The text of a cell: any string up to 64 KiB of UTF-8. */
+export const CellTextSchema = z.string().refine((text) => utf8Length(text) <= LIMITS.cellTextBytes, {
+  message: `A cell holds at most ${LIMITS.cellTextBytes / 1024} KiB of text.`,
+  params: { [TOO_LARGE_PARAM]: true },
+});
+
+/** Query of a paged list: `cursor` is opaque (the previous page's `nextCursor`). */
+export const PageQuerySchema = z.object({
+  cursor: z.string().max(200).optional(),
+  limit: z.coerce.number().int().min(1).max(LIMITS.maxPageSize).default(LIMITS.pageSize),
+});
+export type PageQuery = z.infer<typeof PageQuerySchema>;

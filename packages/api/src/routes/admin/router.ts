@@ -1,0 +1,20 @@
+import { Router } from 'express';
+import { actorOf, requireUser } from '../../auth/require-user.js';
+import { connect } from '../../db/connection.js';
+import { listUsers, updateUser } from '../../services/users.js';
+import { validate } from '../../validate.js';
+import { AdminUserUpdateSchema, UserParamsSchema } from './schema.js';
+
+/** `/api/admin/users`: site admins list people, change site roles, disable and enable. */
+export const adminRouter = Router();
+adminRouter.use(requireUser);
+
+adminRouter.get('/users', async (req, res) => {
+  res.json(await listUsers(await connect(), actorOf(req)));
+});
+
+const update = validate({ params: UserParamsSchema, body: AdminUserUpdateSchema });
+adminRouter.patch('/users/:userId', update, async (req, res) => {
+  const { params, body } = update.input(req);
+  res.json(await updateUser(await connect(), actorOf(req), params.userId, body));
+});

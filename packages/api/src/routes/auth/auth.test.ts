@@ -1,0 +1,181 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { SESSION_COOKIE } from '../../contract/common.js';
+import { MeSchema } from '../../contract/users.js';
+import { connect, disconnect } from '../../db/connection.js';
+import { Session } from '../../db/entities/session.js';
+import { User } from '../../db/entities/user.js';
+import { Client, signedIn } from '../../../test/client.js';
+import { buildUser, uniqueLogin } from '../../../test/factories.js';
+import { startTestServer } from '../../../test/http.js';
+import type { TestServer } from '../../../test/http.js';
+
+describe('sign-in through the OAuth stand-in', () => {
+  let server: TestServer;
+  beforeAll(async () => {
+    server = await startTestServer();
+  });
+  afterAll(async () => {
+    await server.close();
+    await disconnect();
+  });
+
+  it('requires sign-in: GET /api/me answers 401 when signed out', async () => {
+    const reply = await new Client(server.url).get('/api/me');
+    expect(reply.status).toBe(401);
+    expect(reply.body).toMatchObject({ error: 'unauthenticated' });
+  });
+
+  it('goes app → stand-in → callback → /notebooks, and the session then knows the person', async () => {
+    const login = uniqueLogin('octo');
+    const client = new Client(server.url);
+
+    const start = await client.fetch(`/auth/github?login=${login}`);
+    expect(start.status).toBe(302);
+    const authorize = new URL(start.headers.get('location')!);
+    expect(authorize.origin).toBe(server.standin.url);
+    expect(authorize.pathname).toBe('/login/oauth/authorize');
+    expect(authorize.searchParams.get('client_id')).toBe('rolloff-local');
+    expect(authorize.searchParams.get('redirect_uri')).toBe(`${server.url}/auth/github/callback`);
+    expect(authorize.searchParams.get('scope')).toBe('user:email');
+    expect(authorize.searchParams.get('login')).toBe(login);
+    const state = authorize.searchParams.get('state');
+    expect(state).toMatch(/.{8,}/);
+
+    const granted = await client.fetch(authorize.toString());
+    expect(granted.status).toBe(302);
+    const callback = new URL(granted.headers.get('location')!);
+    expect(`${callback.origin}${callback.pathname}`).toBe(`${server.url}/auth/github/callback`);
+    expect(callback.searchParams.get('state')).toBe(state);
+    expect(callback.searchParams.get('code')).toMatch(/^[0-9a-f]{40}$/);
+
+    const landed = await client.fetch(callback.toString());
+    expect(landed.status).toBe(302);
+    expect(landed.headers.get('location')).toBe('/notebooks');
+    const cookie = landed.headers.getSetCookie().find((line) => line.startsWith(`${SESSION_COOKIE}=`));
+    expect(cookie).toMatch(/HttpOnly/i);
+    expect(cookie).toMatch(/SameSite=Lax/i);
+    expect(cookie).not.toMatch(/Secure/i);
+
+    const me = await client.get('/api/me');
+    expect(me.status).toBe(200);
+    expect(MeSchema.parse(me.body)).toMatchObject({ login, email: `${login}@example.com`, siteRole: 'member' });
+
+    // The code is single-use: replaying the callback does not sign anyone in.
+    const replay = await new Client(server.url).fetch(callback.toString());
+    expect(replay.status).toBeGreaterThanOrEqual(400);
+  });
+
+  it('takes a new identity typed on the authorize page, with its e-mail', async () => {
+    const client = new Client(server.url);
+    const start = await client.fetch('/auth/github');
+    const authorize = new URL(start.headers.get('location')!);
+    const page = await client.fetch(authorize.toString());
+    const html = await page.text();
+    expect(page.status).toBe(200);
+    expect(html).toContain('mara.lindqvist');
+    expect(html).toContain('name="email"');
+
+    const login = uniqueLogin('typed');
+    const form = new URLSearchParams({
+      client_id: authorize.searchParams.get('client_id')!,
+      redirect_uri: authorize.searchParams.get('redirect_uri')!,
+      state: authorize.searchParams.get('state')!,
+      scope: authorize.searchParams.get('scope')!,
+      login,
+      name: 'Typed Person',
+      email: `${login}@lab.example.com`,
+    });
+    const granted = await client.fetch(`${server.standin.url}/login/oauth/authorize`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+      body: form.toString(),
+    });
+    expect(granted.status).toBe(302);
+    const landed = await client.fetch(granted.headers.get('location')!);
+    expect(landed.headers.get('location')).toBe('/notebooks');
+    const me = await client.get('/api/me');
+    expect(me.body).toMatchObject({ login, name: 'Typed Person', email: `${login}@lab.example.com` });
+  });
+
+  it('makes the logins in ADMIN_LOGINS site admins', async () => {
+    const admin = await signedIn(server.url, 'mara.lindqvist');
+    expect((await admin.get('/api/me')).body).toMatchObject({ login: 'mara.lindqvist', siteRole: 'admin' });
+  });
+
+  it('returns to the path asked for, and never to another site', async () => {
+    const login = uniqueLogin();
+    const client = new Client(server.url);
+    let url = `${server.url}/auth/github?login=${login}&returnTo=${encodeURIComponent('/notebooks/abcdefghijkl')}`;
+    let response = await client.fetch(url);
+    while (response.status === 302 && !response.headers.get('location')!.startsWith('/notebooks')) {
+      url = new URL(response.headers.get('location')!, url).toString();
+      response = await client.fetch(url);
+    }
+    expect(response.headers.get('location')).toBe('/notebooks/abcdefghijkl');
+
+    const offsite = await client.fetch(`/auth/github?login=${login}&returnTo=${encodeURIComponent('//evil.example.com/')}`);
+    expect(offsite.status).toBe(400);
+  });
+
+  it('refuses a callback whose state it did not issue', async () => {
+    const client = new Client(server.url);
+    await client.fetch('/auth/github?login=someone');
+    const forged = await client.fetch('/auth/github/callback?code=0123&state=not-the-state');
+    expect(forged.status).toBe(401);
+    expect((await client.get('/api/me')).status).toBe(401);
+  });
+
+  it('marks the session cookie Secure when the request came over HTTPS through the proxy', async () => {
+    const client = new Client(server.url);
+    const start = await client.fetch('/auth/github?login=someone', { headers: { 'x-forwarded-proto': 'https' } });
+    const cookie = start.headers.getSetCookie().find((line) => line.startsWith(`${SESSION_COOKIE}=`));
+    expect(cookie).toMatch(/Secure/i);
+  });
+
+  it('signs out with POST /auth/logout, which ends the stored session', async () => {
+    const user = await buildUser();
+    const client = await signedIn(server.url, user.login);
+    const db = await connect();
+    expect(await db.getRepository(Session).countBy({ userId: user.id })).toBe(1);
+
+    const refused = await client.post('/auth/logout', undefined, { noCsrf: true });
+    expect(refused.status).toBe(403);
+    expect((await client.get('/api/me')).status).toBe(200);
+
+    const out = await client.post('/auth/logout');
+    expect(out.status).toBe(204);
+    expect((await client.get('/api/me')).status).toBe(401);
+    expect(await db.getRepository(Session).countBy({ userId: user.id })).toBe(0);
+  });
+
+  it('a disabled user is signed out at once and cannot sign in again until enabled', async () => {
+    const user = await buildUser();
+    const client = await signedIn(server.url, user.login);
+    const second = await signedIn(server.url, user.login);
+    const admin = await signedIn(server.url, 'mara.lindqvist');
+    const db = await connect();
+    expect(await db.getRepository(Session).countBy({ userId: user.id })).toBe(2);
+
+    const disabled = await admin.patch(`/api/admin/users/${user.id}`, { disabled: true });
+    expect(disabled.status).toBe(200);
+    expect(disabled.body).toMatchObject({ id: user.id, disabled: true });
+    expect(await db.getRepository(Session).countBy({ userId: user.id })).toBe(0);
+    expect((await client.get('/api/me')).status).toBe(401);
+    expect((await second.get('/api/notebooks')).status).toBe(401);
+
+    const again = await new Client(server.url).signIn(user.login);
+    const last = again.landing;
+    expect(last.status).toBe(403);
+    expect(await last.text()).toContain('disabled');
+
+    // A session that outlived the delete (say, written back by a request in flight) is refused too.
+    await db.getRepository(User).update({ id: user.id }, { disabled: false });
+    const late = await signedIn(server.url, user.login);
+    await db.getRepository(User).update({ id: user.id }, { disabled: true });
+    expect((await late.get('/api/me')).status).toBe(401);
+
+    expect((await admin.patch(`/api/admin/users/${user.id}`, { disabled: false })).status).toBe(200);
+    const back = await signedIn(server.url, user.login);
+    expect((await back.get('/api/me')).body).toMatchObject({ login: user.login });
+  });
+});

@@ -1,0 +1,52 @@
+/** `/api/notebooks/:id/cells`: add, save (a new revision), move, delete, restore; revisions. */
+import { Router } from 'express';
+import { actorOf } from '../../auth/require-user.js';
+import { connect } from '../../db/connection.js';
+import { createCell, deleteCell, getRevision, listRevisions, moveCell, restoreCell, saveCell } from '../../services/cells.js';
+import { validate } from '../../validate.js';
+import { NotebookParamsSchema } from '../notebooks/schema.js';
+import { CellCreateSchema, CellMoveSchema, CellParamsSchema, CellSaveSchema, RevisionListQuerySchema, RevisionParamsSchema } from './schema.js';
+
+export const cellsRouter = Router({ mergeParams: true });
+
+const create = validate({ params: NotebookParamsSchema, body: CellCreateSchema });
+cellsRouter.post('/', create, async (req, res) => {
+  const { params, body } = create.input(req);
+  res.status(201).json(await createCell(await connect(), actorOf(req), params.id, body));
+});
+
+const save = validate({ params: CellParamsSchema, body: CellSaveSchema });
+cellsRouter.put('/:cellId', save, async (req, res) => {
+  const { params, body } = save.input(req);
+  const outcome = await saveCell(await connect(), actorOf(req), params.id, params.cellId, body);
+  res.status(outcome.created ? 201 : 200).json(outcome.body);
+});
+
+const move = validate({ params: CellParamsSchema, body: CellMoveSchema });
+cellsRouter.post('/:cellId/move', move, async (req, res) => {
+  const { params, body } = move.input(req);
+  res.json(await moveCell(await connect(), actorOf(req), params.id, params.cellId, body.position));
+});
+
+const one = validate({ params: CellParamsSchema });
+cellsRouter.delete('/:cellId', one, async (req, res) => {
+  const { params } = one.input(req);
+  res.json(await deleteCell(await connect(), actorOf(req), params.id, params.cellId));
+});
+
+cellsRouter.post('/:cellId/restore', one, async (req, res) => {
+  const { params } = one.input(req);
+  res.json(await restoreCell(await connect(), actorOf(req), params.id, params.cellId));
+});
+
+const revisions = validate({ params: CellParamsSchema, query: RevisionListQuerySchema });
+cellsRouter.get('/:cellId/revisions', revisions, async (req, res) => {
+  const { params, query } = revisions.input(req);
+  res.json(await listRevisions(await connect(), actorOf(req), params.id, params.cellId, query));
+});
+
+const revision = validate({ params: RevisionParamsSchema });
+cellsRouter.get('/:cellId/revisions/:number', revision, async (req, res) => {
+  const { params } = revision.input(req);
+  res.json(await getRevision(await connect(), actorOf(req), params.id, params.cellId, params.number));
+});

@@ -1,0 +1,1 @@
+export { ForkCreateSchema } from '../../contract/forks.js';

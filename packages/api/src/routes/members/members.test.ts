@@ -1,0 +1,55 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { MemberListSchema, MemberSchema } from '../../contract/members.js';
+import { disconnect } from '../../db/connection.js';
+import { Client, signedIn } from '../../../test/client.js';
+import { buildNotebook, buildUser } from '../../../test/factories.js';
+import { startTestServer } from '../../../test/http.js';
+import type { TestServer } from '../../../test/http.js';
+
+describe('/api/notebooks/:id/members', () => {
+  let server: TestServer;
+  beforeAll(async () => {
+    server = await startTestServer();
+  });
+  afterAll(async () => {
+    await server.close();
+    await disconnect();
+  });
+
+  it('requires sign-in', async () => {
+    const notebook = await buildNotebook();
+    const anonymous = new Client(server.url);
+    expect((await anonymous.get(`/api/notebooks/${notebook.id}/members`)).status).toBe(401);
+    expect((await anonymous.put(`/api/notebooks/${notebook.id}/members/1`, { role: 'viewer' })).status).toBe(401);
+    expect((await anonymous.delete(`/api/notebooks/${notebook.id}/members/1`)).status).toBe(401);
+  });
+
+  it('gives, changes and removes roles (owner only); the owner is listed first', async () => {
+    const notebook = await buildNotebook();
+    const owner = await signedIn(server.url, notebook.ownerUser.login);
+    const person = await buildUser();
+    const base = `/api/notebooks/${notebook.id}/members`;
+
+    const added = await owner.put(`${base}/${person.id}`, { role: 'reviewer' });
+    expect(added.status).toBe(201);
+    expect(MemberSchema.parse(added.body)).toMatchObject({ user: { id: person.id, login: person.login }, role: 'reviewer' });
+    const changed = await owner.put(`${base}/${person.id}`, { role: 'editor' });
+    expect(changed.status).toBe(200);
+
+    const member = await signedIn(server.url, person.login);
+    const list = MemberListSchema.parse((await member.get(base)).body);
+    expect(list.items.map((m) => [m.user.id, m.role])).toEqual([
+      [notebook.ownerUser.id, 'owner'],
+      [person.id, 'editor'],
+    ]);
+    expect((await member.put(`${base}/${person.id}`, { role: 'viewer' })).status).toBe(403);
+
+    expect((await owner.put(`${base}/${notebook.ownerUser.id}`, { role: 'viewer' })).status).toBe(400);
+    expect((await owner.put(`${base}/${person.id}`, { role: 'owner' })).status).toBe(400);
+    expect((await owner.put(`${base}/999999`, { role: 'viewer' })).status).toBe(404);
+
+    expect((await owner.delete(`${base}/${person.id}`)).status).toBe(204);
+    expect((await owner.delete(`${base}/${person.id}`)).status).toBe(404);
+    expect((await member.get(`/api/notebooks/${notebook.id}`)).status).toBe(404);
+  });
+});

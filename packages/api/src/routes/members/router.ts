@@ -1,0 +1,29 @@
+/** `/api/notebooks/:id/members`: who has which role; the owner gives, changes and removes roles. */
+import { Router } from 'express';
+import { actorOf } from '../../auth/require-user.js';
+import { connect } from '../../db/connection.js';
+import { listMembers, putMember, removeMember } from '../../services/members.js';
+import { validate } from '../../validate.js';
+import { NotebookParamsSchema } from '../notebooks/schema.js';
+import { MemberParamsSchema, MemberPutSchema } from './schema.js';
+
+export const membersRouter = Router({ mergeParams: true });
+
+const list = validate({ params: NotebookParamsSchema });
+membersRouter.get('/', list, async (req, res) => {
+  res.json(await listMembers(await connect(), actorOf(req), list.input(req).params.id));
+});
+
+const put = validate({ params: MemberParamsSchema, body: MemberPutSchema });
+membersRouter.put('/:userId', put, async (req, res) => {
+  const { params, body } = put.input(req);
+  const { created, member } = await putMember(await connect(), actorOf(req), params.id, params.userId, body.role);
+  res.status(created ? 201 : 200).json(member);
+});
+
+const remove = validate({ params: MemberParamsSchema });
+membersRouter.delete('/:userId', remove, async (req, res) => {
+  const { params } = remove.input(req);
+  await removeMember(await connect(), actorOf(req), params.id, params.userId);
+  res.status(204).end();
+});

@@ -1,0 +1,1 @@
+export { UserSearchQuerySchema } from '../../contract/users.js';

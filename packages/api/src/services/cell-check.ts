@@ -1,0 +1,32 @@
+/**
+ * The one place the API asks the solver about a circuit cell's text. A save is never refused
+ * for what the solver finds: the counts only travel with the answer and the revision.
+ */
+import { compile } from '@rolloff/solver';
+import type { DiagnosticCounts } from '../contract/common.js';
+
+/** Caps a sweep the check elaborates, so a save never waits on a huge frequency list. */
+const maxPoints = 20_000;
+
+/** Error and warning counts of `text` as a circuit cell (compile: parse + elaborate, no solve). */
+export function checkCircuitText(text: string): DiagnosticCounts {
+  try {
+    const { diagnostics } = compile(text, { maxPoints });
+    let errors = 0;
+    let warnings = 0;
+    for (const diagnostic of diagnostics) {
+      if (diagnostic.severity === 'error') errors++;
+      else warnings++;
+    }
+    return { errors, warnings };
+  } catch (error) {
+    // compile() promises never to throw; if it does, the text still saves, counted as one error.
+    console.error('cell check failed:', error);
+    return { errors: 1, warnings: 0 };
+  }
+}
+
+/** Diagnostic counts for a cell of either kind: null for note cells, which are not checked. */
+export function checkCell(kind: 'circuit' | 'note', text: string): DiagnosticCounts | null {
+  return kind === 'circuit' ? checkCircuitText(text) : null;
+}

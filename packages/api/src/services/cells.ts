@@ -1,0 +1,288 @@
+/**
+ * Cells and their immutable revisions. Every change runs in one transaction that first locks
+ * the notebook row, so changes to one notebook queue up in a fixed lock order (notebook, then
+ * cells) and never deadlock; a save compares `baseRevision` under that lock, so of two saves on
+ * the same revision exactly one wins and the other gets 409 with the winner's text.
+ */
+import type { EntityManager } from 'typeorm';
+import type { CellRevisionList, CellRevision as CellRevisionBody, CellSaved } from '../contract/cells.js';
+import { LIMITS } from '../contract/common.js';
+import type { DiagnosticCounts } from '../contract/common.js';
+import { Cell } from '../db/entities/cell.js';
+import { CellRevision } from '../db/entities/cell-revision.js';
+import { Notebook } from '../db/entities/notebook.js';
+import { ApiError, notFound, tooLarge, validation } from '../errors.js';
+import type { Actor } from '../policy.js';
+import { presentCell, presentCurrentRevision, presentRevision, presentRevisionSummary } from '../presenters/cell.js';
+import { presentDiagnostics } from '../presenters/common.js';
+import type { CellRow, RevisionRow } from '../presenters/rows.js';
+import { checkCell } from './cell-check.js';
+import { inTransaction, managerOf, toInt } from './db.js';
+import type { Database } from './db.js';
+import { loadNotebookFor } from './access.js';
+
+/** A cell with its current revision and that revision's author. */
+export const cellSelect = `
+  SELECT c.id, c.notebookId, c.kind, c.position, c.revision, c.updatedAt, c.deletedAt,
+         r.id AS revisionId, r.text, r.diagnosticErrors, r.diagnosticWarnings, r.authorId,
+         u.login AS authorLogin, u.name AS authorName, r.createdAt AS revisionCreatedAt
+    FROM cells c
+    JOIN cell_revisions r ON r.cellId = c.id AND r.number = c.revision
+    LEFT JOIN users u ON u.id = r.authorId`;
+
+const revisionColumns = `
+  r.cellId, r.number, r.diagnosticErrors, r.diagnosticWarnings, r.authorId,
+  u.login AS authorLogin, u.name AS authorName, r.createdAt`;
+
+/** Live and deleted cells of a notebook: live ones in order first, then deleted, newest first. */
+export async function cellsOf(manager: EntityManager, notebookId: string): Promise<CellRow[]> {
+  return manager.query(
+    `${cellSelect} WHERE c.notebookId = ? ORDER BY c.deletedAt IS NOT NULL, c.position, c.deletedAt DESC, c.id`,
+    [notebookId],
+  );
+}
+
+async function cellRow(manager: EntityManager, notebookId: string, cellId: number): Promise<CellRow | null> {
+  const rows: CellRow[] = await manager.query(`${cellSelect} WHERE c.id = ? AND c.notebookId = ?`, [cellId, notebookId]);
+  return rows[0] ?? null;
+}
+
+async function liveCount(manager: EntityManager, notebookId: string): Promise<number> {
+  const [row] = await manager.query('SELECT COUNT(*) AS n FROM cells WHERE notebookId = ? AND deletedAt IS NULL', [notebookId]);
+  return toInt(row?.n);
+}
+
+function requireRoom(count: number, adding: number): void {
+  if (count + adding > LIMITS.cellsPerNotebook) {
+    throw tooLarge(`A notebook holds at most ${LIMITS.cellsPerNotebook} cells; this one has ${count}.`);
+  }
+}
+
+export interface NewCell {
+  notebookId: string;
+  kind: 'circuit' | 'note';
+  position: number;
+  text: string;
+  authorId: number | null;
+  diagnostics: DiagnosticCounts | null;
+  now: Date;
+}
+
+/** Inserts a cell with its first revision (inside the caller's transaction); returns its id. */
+export async function insertCell(manager: EntityManager, cell: NewCell): Promise<number> {
+  const inserted = await manager.insert(Cell, {
+    notebookId: cell.notebookId,
+    kind: cell.kind,
+    position: cell.position,
+    revision: 1,
+    createdAt: cell.now,
+    updatedAt: cell.now,
+    deletedAt: null,
+  });
+  const cellId = Number(inserted.identifiers[0]?.id);
+  await manager.insert(CellRevision, {
+    cellId,
+    number: 1,
+    text: cell.text,
+    authorId: cell.authorId,
+    diagnosticErrors: cell.diagnostics?.errors ?? null,
+    diagnosticWarnings: cell.diagnostics?.warnings ?? null,
+    createdAt: cell.now,
+  });
+  return cellId;
+}
+
+async function touchNotebook(manager: EntityManager, notebookId: string, now: Date): Promise<void> {
+  await manager.update(Notebook, { id: notebookId }, { updatedAt: now });
+}
+
+function saved(row: CellRow, diagnostics: DiagnosticCounts | null = presentDiagnostics(row.diagnosticErrors, row.diagnosticWarnings)): CellSaved {
+  return { cell: presentCell(row), revision: presentCurrentRevision(row), diagnostics };
+}
+
+async function mustFindCell(manager: EntityManager, notebookId: string, cellId: number): Promise<CellRow> {
+  const row = await cellRow(manager, notebookId, cellId);
+  if (!row) throw notFound('The cell');
+  return row;
+}
+
+/** `POST …/cells`: a new cell at `position` (default: the end), shifting the cells after it. */
+export async function createCell(db: Database, actor: Actor, notebookId: string, input: { kind: 'circuit' | 'note'; position?: number; text: string }): Promise<CellSaved> {
+  const diagnostics = checkCell(input.kind, input.text);
+  return inTransaction(db, async (manager) => {
+    await loadNotebookFor(manager, actor, notebookId, 'edit', { lock: true });
+    const count = await liveCount(manager, notebookId);
+    requireRoom(count, 1);
+    const position = Math.min(input.position ?? count, count);
+    await manager.query(
+      'UPDATE cells SET position = position + 1 WHERE notebookId = ? AND deletedAt IS NULL AND position >= ?',
+      [notebookId, position],
+    );
+    const now = new Date();
+    const cellId = await insertCell(manager, { notebookId, kind: input.kind, position, text: input.text, authorId: actor.id, diagnostics, now });
+    await touchNotebook(manager, notebookId, now);
+    return saved(await mustFindCell(manager, notebookId, cellId), diagnostics);
+  });
+}
+
+/** The outcome of a save: a new revision (201), or nothing new because the text is unchanged (200). */
+export interface SaveOutcome {
+  created: boolean;
+  body: CellSaved;
+}
+
+/**
+ * `PUT …/cells/:cellId`: stores `text` as a new revision if `baseRevision` is still current;
+ * otherwise 409 with the current revision and the refused text, so nothing typed is lost.
+ */
+export async function saveCell(db: Database, actor: Actor, notebookId: string, cellId: number, input: { text: string; baseRevision: number }): Promise<SaveOutcome> {
+  const kindRows: { kind: 'circuit' | 'note' }[] = await db.query('SELECT kind FROM cells WHERE id = ? AND notebookId = ?', [cellId, notebookId]);
+  // The kind never changes, so the solver can run before the transaction holds any lock.
+  const diagnostics = kindRows[0] ? checkCell(kindRows[0].kind, input.text) : null;
+  return inTransaction(db, async (manager) => {
+    await loadNotebookFor(manager, actor, notebookId, 'edit', { lock: true });
+    const locked: Pick<Cell, 'id' | 'revision' | 'deletedAt'>[] = await manager.query(
+      'SELECT id, revision, deletedAt FROM cells WHERE id = ? AND notebookId = ? FOR UPDATE',
+      [cellId, notebookId],
+    );
+    if (!locked[0]) throw notFound('The cell');
+    const current = await mustFindCell(manager, notebookId, cellId);
+    if (current.deletedAt || input.baseRevision !== locked[0].revision) {
+      const why = current.deletedAt
+        ? 'This cell was deleted; restore it to keep editing. Your text is returned in details.submitted.'
+        : `This cell changed since revision ${input.baseRevision}: revision ${current.revision} is current. Merge and save again on it; your text is returned in details.submitted.`;
+      throw new ApiError('conflict', why, {
+        current: presentRevision({
+          cellId,
+          number: current.revision,
+          text: current.text,
+          diagnosticErrors: current.diagnosticErrors,
+          diagnosticWarnings: current.diagnosticWarnings,
+          authorId: current.authorId,
+          authorLogin: current.authorLogin,
+          authorName: current.authorName,
+          createdAt: current.revisionCreatedAt,
+        }),
+        submitted: { text: input.text, baseRevision: input.baseRevision },
+      });
+    }
+    if (current.text === input.text) {
+      return { created: false, body: saved(current, diagnostics) };
+    }
+    const now = new Date();
+    const number = current.revision + 1;
+    await manager.insert(CellRevision, {
+      cellId,
+      number,
+      text: input.text,
+      authorId: actor.id,
+      diagnosticErrors: diagnostics?.errors ?? null,
+      diagnosticWarnings: diagnostics?.warnings ?? null,
+      createdAt: now,
+    });
+    await manager.update(Cell, { id: cellId }, { revision: number, updatedAt: now });
+    await touchNotebook(manager, notebookId, now);
+    return { created: true, body: saved(await mustFindCell(manager, notebookId, cellId), diagnostics) };
+  });
+}
+
+/** Renumbers live cells 0..n-1 in the given order, writing only the ones that moved. */
+async function renumber(manager: EntityManager, order: { id: number; position: number }[], now: Date): Promise<void> {
+  for (const [index, cell] of order.entries()) {
+    if (cell.position !== index) await manager.update(Cell, { id: cell.id }, { position: index, updatedAt: now });
+  }
+}
+
+async function liveOrder(manager: EntityManager, notebookId: string): Promise<{ id: number; position: number }[]> {
+  return manager.query(
+    'SELECT id, position FROM cells WHERE notebookId = ? AND deletedAt IS NULL ORDER BY position, id FOR UPDATE',
+    [notebookId],
+  );
+}
+
+/** `POST …/cells/:cellId/move`: puts a live cell at `position` (clamped to the end). */
+export async function moveCell(db: Database, actor: Actor, notebookId: string, cellId: number, position: number): Promise<CellSaved> {
+  return inTransaction(db, async (manager) => {
+    await loadNotebookFor(manager, actor, notebookId, 'edit', { lock: true });
+    const order = await liveOrder(manager, notebookId);
+    const from = order.findIndex((cell) => cell.id === cellId);
+    if (from < 0) {
+      await mustFindCell(manager, notebookId, cellId);
+      throw validation('A deleted cell cannot be moved; restore it first.');
+    }
+    const [moving] = order.splice(from, 1);
+    order.splice(Math.min(position, order.length), 0, moving!);
+    const now = new Date();
+    await renumber(manager, order, now);
+    await touchNotebook(manager, notebookId, now);
+    return saved(await mustFindCell(manager, notebookId, cellId));
+  });
+}
+
+/** `DELETE …/cells/:cellId`: marks the cell deleted (restorable) and closes the gap it leaves. */
+export async function deleteCell(db: Database, actor: Actor, notebookId: string, cellId: number): Promise<CellSaved> {
+  return inTransaction(db, async (manager) => {
+    await loadNotebookFor(manager, actor, notebookId, 'edit', { lock: true });
+    const cell = await mustFindCell(manager, notebookId, cellId);
+    if (cell.deletedAt) return saved(cell);
+    const now = new Date();
+    await manager.update(Cell, { id: cellId }, { deletedAt: now, updatedAt: now });
+    await renumber(manager, await liveOrder(manager, notebookId), now);
+    await touchNotebook(manager, notebookId, now);
+    return saved(await mustFindCell(manager, notebookId, cellId));
+  });
+}
+
+/** `POST …/cells/:cellId/restore`: brings a deleted cell back where it stood (or at the end). */
+export async function restoreCell(db: Database, actor: Actor, notebookId: string, cellId: number): Promise<CellSaved> {
+  return inTransaction(db, async (manager) => {
+    await loadNotebookFor(manager, actor, notebookId, 'edit', { lock: true });
+    const cell = await mustFindCell(manager, notebookId, cellId);
+    if (!cell.deletedAt) return saved(cell);
+    const order = await liveOrder(manager, notebookId);
+    requireRoom(order.length, 1);
+    const now = new Date();
+    order.splice(Math.min(cell.position, order.length), 0, { id: cellId, position: -1 });
+    await manager.update(Cell, { id: cellId }, { deletedAt: null, updatedAt: now });
+    await renumber(manager, order, now);
+    await touchNotebook(manager, notebookId, now);
+    return saved(await mustFindCell(manager, notebookId, cellId));
+  });
+}
+
+function revisionCursor(cursor: string | undefined): number | null {
+  if (cursor === undefined) return null;
+  if (!/^[1-9]\d{0,9}$/.test(cursor)) throw validation('query.cursor: not a cursor of this list.', { issues: [{ path: 'query.cursor', message: 'not a cursor of this list' }] });
+  return Number(cursor);
+}
+
+/** `GET …/cells/:cellId/revisions`: newest first, `limit` at a time. */
+export async function listRevisions(db: Database, actor: Actor, notebookId: string, cellId: number, page: { cursor?: string; limit: number }): Promise<CellRevisionList> {
+  const before = revisionCursor(page.cursor);
+  const manager = managerOf(db);
+  await loadNotebookFor(manager, actor, notebookId, 'read');
+  await mustFindCell(manager, notebookId, cellId);
+  const rows: RevisionRow[] = await manager.query(
+    `SELECT ${revisionColumns}, OCTET_LENGTH(r.text) AS size
+       FROM cell_revisions r LEFT JOIN users u ON u.id = r.authorId
+      WHERE r.cellId = ? ${before === null ? '' : 'AND r.number < ?'}
+      ORDER BY r.number DESC LIMIT ?`,
+    before === null ? [cellId, page.limit + 1] : [cellId, before, page.limit + 1],
+  );
+  const items = rows.slice(0, page.limit).map(presentRevisionSummary);
+  const last = items[items.length - 1];
+  return { items, nextCursor: rows.length > page.limit && last ? String(last.number) : null };
+}
+
+/** `GET …/cells/:cellId/revisions/:number`: one revision with its text. */
+export async function getRevision(db: Database, actor: Actor, notebookId: string, cellId: number, number: number): Promise<CellRevisionBody> {
+  const manager = managerOf(db);
+  await loadNotebookFor(manager, actor, notebookId, 'read');
+  await mustFindCell(manager, notebookId, cellId);
+  const rows: (RevisionRow & { text: string })[] = await manager.query(
+    `SELECT ${revisionColumns}, r.text FROM cell_revisions r LEFT JOIN users u ON u.id = r.authorId WHERE r.cellId = ? AND r.number = ?`,
+    [cellId, number],
+  );
+  if (!rows[0]) throw notFound('That revision');
+  return presentRevision(rows[0]);
+}

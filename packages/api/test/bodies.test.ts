@@ -1,0 +1,102 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { disconnect } from '../src/db/connection.js';
+import type { Client } from './client.js';
+import { signedIn } from './client.js';
+import { buildNotebook } from './factories.js';
+import { startTestServer } from './http.js';
+import type { TestServer } from './http.js';
+
+interface ErrorReply {
+  error: string;
+  message: string;
+  details?: { issues: { path: string; message: string }[] };
+}
+
+describe('bodies the API cannot use', () => {
+  let server: TestServer;
+  let client: Client;
+  let notebook: Awaited<ReturnType<typeof buildNotebook>>;
+  beforeAll(async () => {
+    server = await startTestServer();
+    notebook = await buildNotebook();
+    client = await signedIn(server.url, notebook.ownerUser.login);
+  });
+  afterAll(async () => {
+    await server.close();
+    await disconnect();
+  });
+
+  it('answers malformed JSON with 400, saying so', async () => {
+    const reply = await client.post<ErrorReply>('/api/notebooks', undefined, { raw: '{"title": "Tone network",' });
+    expect(reply.status).toBe(400);
+    expect(reply.body).toEqual({ error: 'validation', message: 'The request body is not valid JSON.' });
+  });
+
+  it('names the field of a value of the wrong type', async () => {
+    const title = await client.post<ErrorReply>('/api/notebooks', { title: 42 });
+    expect(title.status).toBe(400);
+    expect(title.body.message).toMatch(/^title: .*expected string, received number/);
+    expect(title.body.details!.issues).toEqual([{ path: 'title', message: expect.stringMatching(/expected string/) }]);
+
+    const cellId = notebook.cells[0]!.id;
+    const revision = await client.put<ErrorReply>(`/api/notebooks/${notebook.id}/cells/${cellId}`, { text: 'x', baseRevision: '1' });
+    expect(revision.status).toBe(400);
+    expect(revision.body.message).toMatch(/^baseRevision: /);
+
+    const nested = await client.post<ErrorReply>('/api/notebooks', { title: 'x', cells: [{ kind: 'note', text: '' }, { kind: 'diagram', text: '' }] });
+    expect(nested.status).toBe(400);
+    expect(nested.body.details!.issues.map((i) => i.path)).toEqual(['cells.1.kind']);
+    expect(nested.body.message).toMatch(/"circuit"\|"note"/);
+
+    const extra = await client.post<ErrorReply>(`/api/notebooks/${notebook.id}/cells`, { kind: 'note', text: '', colour: 'red' });
+    expect(extra.status).toBe(400);
+    expect(extra.body.message).toMatch(/colour/);
+
+    const missing = await client.post<ErrorReply>(`/api/notebooks/${notebook.id}/cells`, { text: 'no kind' });
+    expect(missing.status).toBe(400);
+    expect(missing.body.message).toMatch(/^kind: /);
+  });
+
+  it('wants a JSON object: not an array, a bare value, or another content type', async () => {
+    for (const raw of ['[]', '"text"', '12', 'null']) {
+      const reply = await client.post<ErrorReply>('/api/notebooks', undefined, { raw });
+      expect(reply.status, raw).toBe(400);
+      expect(reply.body.error).toBe('validation');
+    }
+    const text = await client.post<ErrorReply>('/api/notebooks', undefined, { raw: 'title=x', headers: { 'content-type': 'application/x-www-form-urlencoded' } });
+    expect(text.status).toBe(400);
+    expect(text.body.message).toMatch(/must be a JSON object/);
+  });
+
+  it('answers a body over the size limit with 413', async () => {
+    const reply = await client.post<ErrorReply>('/api/notebooks', undefined, { raw: JSON.stringify({ title: 'x', pad: 'y'.repeat(1_100_000) }) });
+    expect(reply.status).toBe(413);
+    expect(reply.body).toEqual({ error: 'too_large', message: 'The request body is too large.' });
+  });
+
+  it('never answers 500 to odd input', async () => {
+    const odd = [
+      ['POST', '/api/notebooks', '{"title": {"$gt": ""}}'],
+      ['POST', '/api/notebooks', '{"title": "x", "cells": {"0": {"kind": "note"}}}'],
+      ['POST', `/api/notebooks/${notebook.id}/cells`, '{"kind": "note", "position": -1}'],
+      ['POST', `/api/notebooks/${notebook.id}/cells`, '{"kind": "note", "position": 1.5}'],
+      ['POST', `/api/notebooks/${notebook.id}/cells/abc/move`, '{"position": 0}'],
+      ['PUT', `/api/notebooks/${notebook.id}/cells/99999999999`, '{"text": "x", "baseRevision": 1}'],
+      ['PUT', `/api/notebooks/${notebook.id}/members/0`, '{"role": "viewer"}'],
+      ['POST', `/api/notebooks/${notebook.id}/versions`, '{"label": null}'],
+      ['POST', `/api/notebooks/${notebook.id}/forks`, '{"version": "latest"}'],
+      ['PATCH', `/api/notebooks/${notebook.id}`, '{"visibility": "public"}'],
+      ['PATCH', '/api/admin/users/1', '{"disabled": "yes"}'],
+    ] as const;
+    for (const [method, path, raw] of odd) {
+      const reply = await client.request<ErrorReply>(method, path, undefined, { raw });
+      expect(reply.status, `${method} ${path} ${raw}`).toBeGreaterThanOrEqual(400);
+      expect(reply.status, `${method} ${path} ${raw}`).toBeLessThan(500);
+      expect(typeof reply.body.message).toBe('string');
+    }
+    // A lone surrogate is not refused, only stored as U+FFFD, as any UTF-8 store would.
+    expect((await client.request('POST', '/api/notebooks', undefined, { raw: '{"title": "\\ud800"}' })).status).toBe(201);
+    const query = await client.get<ErrorReply>('/api/notebooks?limit=abc&scope[]=mine');
+    expect(query.status).toBe(400);
+  });
+});

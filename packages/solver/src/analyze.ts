@@ -1,0 +1,79 @@
+/**
+ * `analyze(text)`: the cell's text in, everything a screen draws out. Compiles the text,
+ * solves the network over its sweep, reads off the readouts and checks the requirements.
+ * Never throws: an internal failure becomes an error diagnostic.
+ */
+import type { Circuit } from './circuit.js';
+import type { Diagnostic, Result } from './result.js';
+import { compile } from './compile.js';
+import { solveCircuit } from './analysis.js';
+import type { SolveOptions } from './analysis.js';
+import { computeReadouts } from './readouts.js';
+import { checkRequirements } from './requirements.js';
+
+export interface AnalyzeOptions {
+  /** The most sweep points a cell may ask for (and the default sweep may use). */
+  maxPoints?: number;
+}
+
+/** Compile and analyse one cell. */
+export function analyze(text: string, options: AnalyzeOptions = {}): Result {
+  try {
+    const compiled = compile(text, { maxPoints: options.maxPoints });
+    const diagnostics = [...compiled.diagnostics];
+    if (!compiled.circuit || diagnostics.some((d) => d.severity === 'error')) return emptyResult(diagnostics);
+    const solved = analyzeCircuit(compiled.circuit, options);
+    // The elaborator already says which lines are not computed yet; keep one word per line.
+    const covered = new Set(diagnostics.filter((d) => d.code === 'not-available').map((d) => d.line));
+    const own = solved.diagnostics.filter(
+      (d) => !(d.severity === 'warning' && (d.code === 'not-available' || d.code === 'requirement-not-checked') && covered.has(d.line)),
+    );
+    solved.diagnostics = [...diagnostics, ...own].sort((a, b) => a.line - b.line || a.column - b.column);
+    return solved;
+  } catch (error) {
+    return emptyResult([internalError(error)]);
+  }
+}
+
+/** Analyse an already elaborated network (what `analyze` does after compiling). */
+export function analyzeCircuit(circuit: Circuit, options: AnalyzeOptions & SolveOptions = {}): Result {
+  try {
+    const { analysis, diagnostics } = solveCircuit(circuit, options);
+    if (!analysis) {
+      const result = emptyResult(diagnostics);
+      return result;
+    }
+    const perTrace = analysis.traces.map((t) => computeReadouts(analysis, t));
+    const checked = checkRequirements(circuit, analysis, perTrace);
+    return {
+      diagnostics: [...diagnostics, ...checked.diagnostics],
+      frequencies: analysis.frequencies,
+      traces: analysis.traces.map((t) => t.result),
+      readouts: perTrace.flatMap((r) => r.readouts),
+      requirements: checked.results,
+      steps: [],
+      poles: [],
+      zeros: [],
+      envelope: [],
+    };
+  } catch (error) {
+    return emptyResult([internalError(error)]);
+  }
+}
+
+function emptyResult(diagnostics: Diagnostic[]): Result {
+  return { diagnostics, frequencies: new Float64Array(0), traces: [], readouts: [], requirements: [], steps: [], poles: [], zeros: [], envelope: [] };
+}
+
+function internalError(error: unknown): Diagnostic {
+  const detail = error instanceof Error ? error.message : String(error);
+  return {
+    severity: 'error',
+    line: 1,
+    column: 1,
+    endColumn: 1,
+    message: `internal error in the solver: ${detail}`,
+    hint: 'this is a bug in Rolloff, not in the cell; please report it with the cell text',
+    code: 'internal',
+  };
+}

@@ -1,0 +1,244 @@
+/**
+ * The cell as written: one node per statement, each with its source range. Nothing here is
+ * resolved yet (names are names, values are unevaluated); `elaborate` does that.
+ * A statement whose parse failed part-way keeps what was read, with `null` for the rest.
+ */
+import type { SourceRange } from './circuit.js';
+import type { Token } from './lexer.js';
+import type { Unit } from './units.js';
+
+/** A name as written, with where it stands. */
+export interface Ident {
+  name: string;
+  range: SourceRange;
+}
+
+/** A value slot: a number, a parameter name, or an expression. */
+export type Value =
+  | {
+      kind: 'number';
+      /** With its SI prefix applied. */
+      value: number;
+      unit: Unit | null;
+      /** An SI prefix or IEC letter was written (`0.25p`, `4k7`). */
+      prefixed?: boolean;
+      /** The number could not be read; its diagnostic has been made. */
+      bad?: boolean;
+      unitRange?: SourceRange;
+      text: string;
+      range: SourceRange;
+    }
+  | { kind: 'name'; name: string; range: SourceRange }
+  /** `(2*Cb)`, or the right-hand side of `let`; `tokens` excludes the outer parentheses. */
+  | { kind: 'expr'; tokens: Token[]; text: string; range: SourceRange };
+
+/** `[a b]` as written. */
+export interface NodeList {
+  nodes: Ident[];
+  range: SourceRange;
+}
+
+export interface LetStatement {
+  kind: 'let';
+  name: Ident;
+  value: Value | null;
+  range: SourceRange;
+}
+
+export type PassiveKind = 'resistor' | 'capacitor' | 'inductor';
+
+export type PartOption =
+  | { kind: 'tolerance'; value: Value; range: SourceRange }
+  | { kind: 'esr' | 'esl' | 'dcr'; value: Value; range: SourceRange }
+  | { kind: 'noiseless'; range: SourceRange };
+
+export interface PassiveStatement {
+  kind: 'passive';
+  part: PassiveKind;
+  designator: Ident;
+  nodes: NodeList;
+  value: Value | null;
+  options: PartOption[];
+  range: SourceRange;
+}
+
+export type OpAmpOptionName = 'gain' | 'gbw' | 'zout' | 'en' | 'in';
+
+export interface OpAmpStatement {
+  kind: 'opamp';
+  designator: Ident;
+  nodes: NodeList;
+  options: { name: OpAmpOptionName; value: Value; range: SourceRange }[];
+  range: SourceRange;
+}
+
+export type ControlledMode = 'vgain' | 'gm' | 'igain' | 'rm';
+
+export interface ControlledStatement {
+  kind: 'controlled';
+  designator: Ident;
+  nodes: NodeList;
+  mode: ControlledMode;
+  value: Value | null;
+  /** The part whose current controls (`igain`, `rm`). */
+  control: Ident | null;
+  range: SourceRange;
+}
+
+export interface CoupleStatement {
+  kind: 'couple';
+  l1: Ident;
+  l2: Ident;
+  k: Value | null;
+  range: SourceRange;
+}
+
+export interface BlockParam {
+  name: Ident;
+  default: Value | null;
+}
+
+export interface BlockStatement {
+  kind: 'block';
+  name: Ident;
+  pins: NodeList;
+  params: BlockParam[];
+  body: Statement[];
+  /** The `block …` line. */
+  range: SourceRange;
+  /** The `end` line, or null when it is missing. */
+  endRange: SourceRange | null;
+}
+
+export interface UseStatement {
+  kind: 'use';
+  block: Ident;
+  instance: Ident;
+  nodes: NodeList;
+  args: { name: Ident; value: Value | null }[];
+  range: SourceRange;
+}
+
+export interface DriveStatement {
+  kind: 'drive';
+  source: 'voltage' | 'current';
+  /** One node (the other end is gnd) or two. */
+  nodes: Ident[];
+  nodesRange: SourceRange;
+  amplitude: Value | null;
+  phase: Value | null;
+  range: SourceRange;
+}
+
+/** What a trace reads, as written. */
+export type TraceExpr =
+  | { kind: 'node'; node: Ident }
+  | { kind: 'difference'; p: Ident; n: Ident }
+  | { kind: 'ratio'; num: Ident; den: Ident }
+  | { kind: 'current'; element: Ident }
+  | { kind: 'impedance'; p: Ident; n: Ident | null; bracketed: boolean };
+
+export type ShowMode = 'plain' | 'loop' | 'step' | 'noise';
+
+export interface ShowStatement {
+  kind: 'show';
+  label: { text: string; range: SourceRange } | null;
+  mode: ShowMode;
+  expr: TraceExpr;
+  /** The expression in canonical spacing (`out - in`, `impedance [a b]`). */
+  exprText: string;
+  exprRange: SourceRange;
+  range: SourceRange;
+}
+
+export type SweepStatement =
+  | { kind: 'sweep'; form: 'log'; from: Value; to: Value; perDecade: Value | null; range: SourceRange }
+  | { kind: 'sweep'; form: 'linear'; from: Value; to: Value; points: Value; range: SourceRange }
+  | { kind: 'sweep'; form: 'list'; frequencies: Value[]; range: SourceRange };
+
+export interface TimeStatement {
+  kind: 'time';
+  from: Value;
+  to: Value;
+  points: Value | null;
+  range: SourceRange;
+}
+
+export interface TemperatureStatement {
+  kind: 'temperature';
+  value: Value;
+  range: SourceRange;
+}
+
+export interface ToleranceStatement {
+  kind: 'tolerance';
+  mode: 'montecarlo' | 'worstcase';
+  draws: Value | null;
+  seed: Value | null;
+  range: SourceRange;
+}
+
+export type MeasureName =
+  | 'gain'
+  | 'phase'
+  | 'delay'
+  | 'magnitude'
+  | 'corner'
+  | 'peak'
+  | 'crossover'
+  | 'phase-margin'
+  | 'gain-margin'
+  | 'settling'
+  | 'overshoot';
+
+/** What a requirement names: a quoted label, or the words of a `show` line's expression. */
+export interface RequireTarget {
+  /** A quoted label's text, or the canonical text of what was written (`loop out`). */
+  text: string;
+  quoted: boolean;
+  range: SourceRange;
+}
+
+export interface RequireStatement {
+  kind: 'require';
+  target: RequireTarget;
+  measure: { name: MeasureName; range: SourceRange };
+  op: { op: '>=' | '<=' | '='; range: SourceRange };
+  value: Value;
+  tolerance: Value | null;
+  over: { from: Value | null; to: Value | null; range: SourceRange } | null;
+  at: Value | null;
+  /** The line as written, trimmed and without its comment. */
+  text: string;
+  range: SourceRange;
+}
+
+export type Statement =
+  | LetStatement
+  | PassiveStatement
+  | OpAmpStatement
+  | ControlledStatement
+  | CoupleStatement
+  | BlockStatement
+  | UseStatement
+  | DriveStatement
+  | ShowStatement
+  | SweepStatement
+  | TimeStatement
+  | TemperatureStatement
+  | ToleranceStatement
+  | RequireStatement;
+
+export interface Program {
+  statements: Statement[];
+  /** Some line could not be read; the elaborator then skips whole-cell checks that would mislead. */
+  incomplete: boolean;
+  /** Count of lines in the text (at least 1). */
+  lineCount: number;
+  /**
+   * Every word on a line that could not be read. A name written there may be a node, a
+   * part or a parameter that the broken line would have defined, so the elaborator does
+   * not also report it as unknown elsewhere.
+   */
+  brokenWords: Set<string>;
+}

@@ -1,0 +1,31 @@
+/**
+ * From a cell's text to the network the numerical core solves: parse, then elaborate.
+ * This is what `analyze()` calls. Never throws.
+ */
+import type { Circuit } from './circuit.js';
+import type { Diagnostic } from './result.js';
+import { parse, internalError } from './parser.js';
+import { elaborate } from './elaborate.js';
+import { tidyDiagnostics } from './diagnostic.js';
+
+export interface CompileOptions {
+  /** Most frequency points a sweep may have (default 20 000). */
+  maxPoints?: number;
+}
+
+/**
+ * Parses and elaborates a cell. `circuit` is null when there is any error; warnings come
+ * with a circuit. Diagnostics are sorted by place, each range inside the text.
+ */
+export function compile(text: string, options: CompileOptions = {}): { circuit: Circuit | null; diagnostics: Diagnostic[] } {
+  const source = typeof text === 'string' ? text : String(text);
+  try {
+    const parsed = parse(source);
+    const elaborated = elaborate(parsed.program, { maxPoints: options.maxPoints });
+    const diagnostics = tidyDiagnostics([...parsed.diagnostics, ...elaborated.diagnostics], source);
+    const failed = diagnostics.some((d) => d.severity === 'error');
+    return { circuit: failed ? null : elaborated.circuit, diagnostics };
+  } catch (e) {
+    return { circuit: null, diagnostics: tidyDiagnostics([internalError(e)], source) };
+  }
+}

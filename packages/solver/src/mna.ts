@@ -1,0 +1,450 @@
+/**
+ * Modified nodal analysis at s = jω. Every entry of the system matrix is a polynomial in s
+ * of degree at most two, A(s) = A0 + s·A1 + s²·A2, with real coefficients: capacitors with
+ * series parasitics and inductors carry branch currents, so no entry is ever a ratio and
+ * 0 Hz needs no special case (capacitors open, inductors short fall out of the equations).
+ * The exact derivative dA/dω comes from the same coefficients, which gives group delay and
+ * slopes from one extra back-substitution.
+ */
+import type { Circuit, Element, NodeIndex, SourceRange } from './circuit.js';
+import type { Diagnostic } from './result.js';
+
+/** A current as a linear form over the unknowns: I = Σ (c0[k] + s·c1[k])·x[index[k]]. */
+export interface LinearForm {
+  index: Int32Array;
+  c0: Float64Array;
+  c1: Float64Array;
+}
+
+/** A real right-hand side given sparsely. */
+export interface SparseVector {
+  index: Int32Array;
+  value: Float64Array;
+}
+
+export interface MnaSystem {
+  /** Number of unknowns: node voltages (ground excluded), then branch currents. */
+  readonly n: number;
+  /** The unique pattern slots and their polynomial coefficients. */
+  readonly rows: Int32Array;
+  readonly cols: Int32Array;
+  readonly c0: Float64Array;
+  readonly c1: Float64Array;
+  readonly c2: Float64Array;
+  /** Unknown index of each circuit node; −1 for ground. */
+  readonly nodeUnknown: Int32Array;
+  /** The right-hand side of a unit drive; null without a drive. */
+  readonly driveRhs: SparseVector | null;
+  /**
+   * The current through a resistor, capacitor or inductor (first node → second), by
+   * designator; undefined for any other name. Made on demand: most parts are never asked.
+   */
+  currentForm(name: string): LinearForm | undefined;
+}
+
+/** Builds the system of a circuit; problems become error diagnostics and a null system. */
+export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnostics: Diagnostic[] } {
+  const diagnostics: Diagnostic[] = [];
+  const fail = (range: SourceRange, message: string, code = 'invalid-network'): void => {
+    diagnostics.push({ severity: 'error', line: range.line, column: range.column, endColumn: range.endColumn, message, code });
+  };
+  const nodeCount = circuit.nodeNames.length;
+  const nodeUnknown = new Int32Array(Math.max(nodeCount, 1));
+  nodeUnknown[0] = -1;
+  for (let k = 1; k < nodeCount; k++) nodeUnknown[k] = k - 1;
+  let unknowns = Math.max(nodeCount - 1, 0);
+  const nodeOk = (node: NodeIndex): boolean => Number.isInteger(node) && node >= 0 && node < nodeCount;
+  const u = (node: NodeIndex): number => nodeUnknown[node];
+  const positive = (v: number | undefined): v is number => typeof v === 'number' && Number.isFinite(v) && v > 0;
+  const finite = (v: number | undefined): v is number => typeof v === 'number' && Number.isFinite(v);
+  const nonNegative = (v: number | undefined): boolean => v === undefined || (Number.isFinite(v) && v >= 0);
+
+  // First pass: check values and nodes, and give branch currents where a part needs one.
+  const elements = circuit.elements;
+  const branch = new Int32Array(elements.length).fill(-1);
+  let coupled = false;
+  for (let index = 0; index < elements.length; index++) {
+    const el = elements[index];
+    switch (el.kind) {
+      case 'resistor': {
+        if (!nodeOk(el.a) || !nodeOk(el.b)) { fail(el.range, `${el.name} names a node that does not exist`); break; }
+        if (!positive(el.value)) { fail(el.range, `${el.name}: a resistor needs a value above 0 Ω`); break; }
+        break;
+      }
+      case 'capacitor': {
+        if (!nodeOk(el.a) || !nodeOk(el.b)) { fail(el.range, `${el.name} names a node that does not exist`); break; }
+        if (!positive(el.value)) { fail(el.range, `${el.name}: a capacitor needs a value above 0 F`); break; }
+        if (!nonNegative(el.esr) || !nonNegative(el.esl)) { fail(el.range, `${el.name}: esr and esl cannot be negative`); break; }
+        if ((el.esr ?? 0) > 0 || (el.esl ?? 0) > 0) branch[index] = unknowns++;
+        break;
+      }
+      case 'inductor': {
+        if (!nodeOk(el.a) || !nodeOk(el.b)) { fail(el.range, `${el.name} names a node that does not exist`); break; }
+        if (!positive(el.value)) { fail(el.range, `${el.name}: an inductor needs a value above 0 H`); break; }
+        if (!nonNegative(el.dcr)) { fail(el.range, `${el.name}: dcr cannot be negative`); break; }
+        branch[index] = unknowns++;
+        break;
+      }
+      case 'opamp': {
+        if (!nodeOk(el.p) || !nodeOk(el.n) || !nodeOk(el.o)) { fail(el.range, `${el.name} names a node that does not exist`); break; }
+        if (el.gain !== undefined && !(finite(el.gain) && el.gain !== 0)) { fail(el.range, `${el.name}: the op-amp gain must be a finite, non-zero number`); break; }
+        if (el.gbw !== undefined && !positive(el.gbw)) { fail(el.range, `${el.name}: gbw must be above 0 Hz`); break; }
+        if (!nonNegative(el.zout)) { fail(el.range, `${el.name}: zout cannot be negative`); break; }
+        branch[index] = unknowns++;
+        break;
+      }
+      case 'vcvs':
+      case 'ccvs': {
+        if (!nodeOk(el.op) || !nodeOk(el.on) || (el.kind === 'vcvs' && (!nodeOk(el.cp) || !nodeOk(el.cn)))) {
+          fail(el.range, `${el.name} names a node that does not exist`);
+          break;
+        }
+        const k = el.kind === 'vcvs' ? el.gain : el.rm;
+        if (!finite(k)) { fail(el.range, `${el.name}: the gain must be a finite number`); break; }
+        branch[index] = unknowns++;
+        break;
+      }
+      case 'vccs':
+      case 'cccs': {
+        if (!nodeOk(el.op) || !nodeOk(el.on) || (el.kind === 'vccs' && (!nodeOk(el.cp) || !nodeOk(el.cn)))) {
+          fail(el.range, `${el.name} names a node that does not exist`);
+          break;
+        }
+        const k = el.kind === 'vccs' ? el.gm : el.gain;
+        if (!finite(k)) { fail(el.range, `${el.name}: the gain must be a finite number`); break; }
+        break;
+      }
+      case 'coupling':
+        coupled = true;
+        break;
+    }
+  }
+  const drive = circuit.drive;
+  let driveBranch = -1;
+  if (drive) {
+    if (!nodeOk(drive.p) || !nodeOk(drive.n)) fail(drive.range, 'the drive names a node that does not exist');
+    else if (drive.kind === 'voltage') driveBranch = unknowns++;
+  }
+  if (diagnostics.length > 0) return { system: null, diagnostics };
+
+  // Designator → element index of every two-terminal part, made only when something asks.
+  let parts: Map<string, number> | null = null;
+  const formCache = new Map<string, LinearForm>();
+  const currentForm = (name: string): LinearForm | undefined => {
+    const hit = formCache.get(name);
+    if (hit) return hit;
+    if (parts === null) {
+      parts = new Map();
+      elements.forEach((el, i) => {
+        if (el.kind === 'resistor' || el.kind === 'capacitor' || el.kind === 'inductor') parts!.set(el.name, i);
+      });
+    }
+    const i = parts.get(name);
+    if (i === undefined) return undefined;
+    const el = elements[i] as Element & { kind: 'resistor' | 'capacitor' | 'inductor' };
+    let f: LinearForm;
+    if (branch[i] >= 0) f = form([branch[i]], [1], [0]);
+    else if (el.kind === 'resistor') f = form([u(el.a), u(el.b)], [1 / el.value, -1 / el.value], [0, 0]);
+    else f = form([u(el.a), u(el.b)], [0, 0], [el.value, -el.value]);
+    formCache.set(name, f);
+    return f;
+  };
+  const inductors = new Map<string, { value: number; index: number }>();
+  if (coupled) {
+    elements.forEach((el, i) => {
+      if (el.kind === 'inductor') inductors.set(el.name, { value: el.value, index: branch[i] });
+    });
+  }
+
+  const n = unknowns;
+  const stamps = new StampList(n);
+  const add = (r: number, c: number, k0: number, k1 = 0, k2 = 0): void => {
+    if (r < 0 || c < 0) return;
+    stamps.add(r, c, k0, k1, k2);
+  };
+  /** A current leaving the element at node `into` enters the network there. */
+  const kcl = (a: number, b: number, col: number): void => {
+    add(a, col, 1);
+    add(b, col, -1);
+  };
+
+  for (let index = 0; index < elements.length; index++) {
+    const el = elements[index];
+    switch (el.kind) {
+      case 'resistor': {
+        const a = u(el.a);
+        const b = u(el.b);
+        const g = 1 / el.value;
+        add(a, a, g);
+        add(b, b, g);
+        add(a, b, -g);
+        add(b, a, -g);
+        break;
+      }
+      case 'capacitor': {
+        const a = u(el.a);
+        const b = u(el.b);
+        const c = el.value;
+        const br = branch[index];
+        if (br < 0) {
+          add(a, a, 0, c);
+          add(b, b, 0, c);
+          add(a, b, 0, -c);
+          add(b, a, 0, -c);
+        } else {
+          // s·C·(Va − Vb) − (1 + s·C·esr + s²·C·esl)·I = 0: the series branch, multiplied out.
+          kcl(a, b, br);
+          add(br, a, 0, c);
+          add(br, b, 0, -c);
+          add(br, br, -1, -c * (el.esr ?? 0), -c * (el.esl ?? 0));
+        }
+        break;
+      }
+      case 'inductor': {
+        const a = u(el.a);
+        const b = u(el.b);
+        const br = branch[index];
+        kcl(a, b, br);
+        add(br, a, 1);
+        add(br, b, -1);
+        add(br, br, -(el.dcr ?? 0), -el.value);
+        break;
+      }
+      case 'coupling': {
+        const l1 = inductors.get(el.l1);
+        const l2 = inductors.get(el.l2);
+        if (!l1 || !l2) {
+          fail(el.range, `couple names ${!l1 ? el.l1 : el.l2}, which is not an inductor of this network`);
+          break;
+        }
+        if (l1 === l2) { fail(el.range, 'an inductor cannot be coupled to itself'); break; }
+        if (!(Number.isFinite(el.k) && el.k > 0 && el.k <= 1)) { fail(el.range, 'the coupling factor must lie in 0 < k ≤ 1'); break; }
+        const m = el.k * Math.sqrt(l1.value * l2.value);
+        add(l1.index, l2.index, 0, -m);
+        add(l2.index, l1.index, 0, -m);
+        break;
+      }
+      case 'opamp': {
+        const br = branch[index];
+        // (1/A(s))·(Vo + zout·Io) − (Vp − Vn) = 0 with 1/A = 1/G + s/(2π·gbw): finite for
+        // the ideal op-amp too, where it reduces to the nullor Vp = Vn.
+        const a0 = el.gain !== undefined ? 1 / el.gain : 0;
+        const a1 = el.gbw !== undefined ? 1 / (2 * Math.PI * el.gbw) : 0;
+        const z = el.zout ?? 0;
+        add(u(el.o), br, -1);
+        add(br, u(el.o), a0, a1);
+        add(br, br, z * a0, z * a1);
+        add(br, u(el.p), -1);
+        add(br, u(el.n), 1);
+        break;
+      }
+      case 'vcvs': {
+        const br = branch[index];
+        kcl(u(el.on), u(el.op), br);
+        add(br, u(el.op), 1);
+        add(br, u(el.on), -1);
+        add(br, u(el.cp), -el.gain);
+        add(br, u(el.cn), el.gain);
+        break;
+      }
+      case 'vccs': {
+        const op = u(el.op);
+        const on = u(el.on);
+        const cp = u(el.cp);
+        const cn = u(el.cn);
+        add(op, cp, -el.gm);
+        add(op, cn, el.gm);
+        add(on, cp, el.gm);
+        add(on, cn, -el.gm);
+        break;
+      }
+      case 'cccs': {
+        const f = currentForm(el.control);
+        if (!f) { fail(el.range, `${el.name} is controlled by ${el.control}, which is not a resistor, capacitor or inductor of this network`); break; }
+        for (let t = 0; t < f.index.length; t++) {
+          add(u(el.op), f.index[t], -el.gain * f.c0[t], -el.gain * f.c1[t]);
+          add(u(el.on), f.index[t], el.gain * f.c0[t], el.gain * f.c1[t]);
+        }
+        break;
+      }
+      case 'ccvs': {
+        const f = currentForm(el.control);
+        if (!f) { fail(el.range, `${el.name} is controlled by ${el.control}, which is not a resistor, capacitor or inductor of this network`); break; }
+        const br = branch[index];
+        kcl(u(el.on), u(el.op), br);
+        add(br, u(el.op), 1);
+        add(br, u(el.on), -1);
+        for (let t = 0; t < f.index.length; t++) add(br, f.index[t], -el.rm * f.c0[t], -el.rm * f.c1[t]);
+        break;
+      }
+    }
+  }
+  let driveRhs: SparseVector | null = null;
+  if (drive) {
+    if (drive.kind === 'voltage') {
+      kcl(u(drive.n), u(drive.p), driveBranch);
+      add(driveBranch, u(drive.p), 1);
+      add(driveBranch, u(drive.n), -1);
+      driveRhs = { index: Int32Array.of(driveBranch), value: Float64Array.of(1) };
+    } else {
+      driveRhs = currentInjection(nodeUnknown, drive.p, drive.n);
+    }
+  }
+  if (diagnostics.length > 0) return { system: null, diagnostics };
+  const s = stamps.finish();
+  return {
+    system: { n, rows: s.rows, cols: s.cols, c0: s.c0, c1: s.c1, c2: s.c2, nodeUnknown, driveRhs, currentForm },
+    diagnostics,
+  };
+}
+
+/** The right-hand side of a unit current pushed into node p and out of node n. */
+export function currentInjection(nodeUnknown: Int32Array, p: NodeIndex, n: NodeIndex): SparseVector {
+  const index: number[] = [];
+  const value: number[] = [];
+  const a = nodeUnknown[p];
+  const b = nodeUnknown[n];
+  if (a >= 0) { index.push(a); value.push(1); }
+  if (b >= 0) { index.push(b); value.push(-1); }
+  return { index: Int32Array.from(index), value: Float64Array.from(value) };
+}
+
+/** Fills the slot values of A(jω). */
+export function assemble(sys: MnaSystem, omega: number, valRe: Float64Array, valIm: Float64Array): void {
+  const { c0, c1, c2 } = sys;
+  const w2 = omega * omega;
+  for (let k = 0; k < c0.length; k++) {
+    valRe[k] = c0[k] - w2 * c2[k];
+    valIm[k] = omega * c1[k];
+  }
+}
+
+/**
+ * out = −(dA/dω)·x, the right-hand side whose solution is dx/dω (the drive does not change
+ * with frequency). dA/dω = j·A1 − 2ω·A2.
+ */
+export function derivativeRhs(
+  sys: MnaSystem,
+  omega: number,
+  xRe: Float64Array,
+  xIm: Float64Array,
+  outRe: Float64Array,
+  outIm: Float64Array,
+): void {
+  const { rows, cols, c1, c2 } = sys;
+  outRe.fill(0, 0, sys.n);
+  outIm.fill(0, 0, sys.n);
+  for (let k = 0; k < rows.length; k++) {
+    const a = c1[k];
+    const b = -2 * omega * c2[k];
+    if (a === 0 && b === 0) continue;
+    const xr = xRe[cols[k]];
+    const xi = xIm[cols[k]];
+    // (b + j·a)·x
+    outRe[rows[k]] -= b * xr - a * xi;
+    outIm[rows[k]] -= b * xi + a * xr;
+  }
+}
+
+function form(index: number[], c0: number[], c1: number[]): LinearForm {
+  const keep: number[] = [];
+  for (let k = 0; k < index.length; k++) if (index[k] >= 0) keep.push(k);
+  return {
+    index: Int32Array.from(keep.map((k) => index[k])),
+    c0: Float64Array.from(keep.map((k) => c0[k])),
+    c1: Float64Array.from(keep.map((k) => c1[k])),
+  };
+}
+
+/**
+ * Accumulates stamps in growable typed arrays and merges them into unique slots, ordered by
+ * row (a counting sort, then one pass per row with a column marker): linear in the count
+ * of stamps, for networks of half a million parts.
+ */
+class StampList {
+  private readonly n: number;
+  private size = 0;
+  private r = new Int32Array(64);
+  private c = new Int32Array(64);
+  private k0 = new Float64Array(64);
+  private k1 = new Float64Array(64);
+  private k2 = new Float64Array(64);
+
+  constructor(n: number) {
+    this.n = n;
+  }
+
+  add(r: number, c: number, k0: number, k1: number, k2: number): void {
+    if (k0 === 0 && k1 === 0 && k2 === 0) return;
+    if (this.size === this.r.length) this.grow();
+    const s = this.size++;
+    this.r[s] = r;
+    this.c[s] = c;
+    this.k0[s] = k0;
+    this.k1[s] = k1;
+    this.k2[s] = k2;
+  }
+
+  private grow(): void {
+    const cap = this.r.length * 2;
+    const ints = (a: Int32Array): Int32Array<ArrayBuffer> => {
+      const b = new Int32Array(cap);
+      b.set(a);
+      return b;
+    };
+    const floats = (a: Float64Array): Float64Array<ArrayBuffer> => {
+      const b = new Float64Array(cap);
+      b.set(a);
+      return b;
+    };
+    this.r = ints(this.r);
+    this.c = ints(this.c);
+    this.k0 = floats(this.k0);
+    this.k1 = floats(this.k1);
+    this.k2 = floats(this.k2);
+  }
+
+  finish(): { rows: Int32Array; cols: Int32Array; c0: Float64Array; c1: Float64Array; c2: Float64Array } {
+    const n = this.n;
+    const m = this.size;
+    const start = new Int32Array(n + 1);
+    for (let s = 0; s < m; s++) start[this.r[s] + 1]++;
+    for (let i = 0; i < n; i++) start[i + 1] += start[i];
+    const order = new Int32Array(m);
+    const next = start.slice(0, n);
+    for (let s = 0; s < m; s++) order[next[this.r[s]]++] = s;
+    const slotOf = new Int32Array(n).fill(-1);
+    const rows: number[] = [];
+    const cols: number[] = [];
+    const c0: number[] = [];
+    const c1: number[] = [];
+    const c2: number[] = [];
+    for (let i = 0; i < n; i++) {
+      const first = rows.length;
+      for (let t = start[i]; t < start[i + 1]; t++) {
+        const s = order[t];
+        const c = this.c[s];
+        let slot = slotOf[c];
+        if (slot < first) {
+          slot = rows.length;
+          slotOf[c] = slot;
+          rows.push(i);
+          cols.push(c);
+          c0.push(0);
+          c1.push(0);
+          c2.push(0);
+        }
+        c0[slot] += this.k0[s];
+        c1[slot] += this.k1[s];
+        c2[slot] += this.k2[s];
+      }
+    }
+    return {
+      rows: Int32Array.from(rows),
+      cols: Int32Array.from(cols),
+      c0: Float64Array.from(c0),
+      c1: Float64Array.from(c1),
+      c2: Float64Array.from(c2),
+    };
+  }
+}

@@ -1,0 +1,120 @@
+/** The `rolloff` command line, run from source with tsx as a separate process. */
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { beforeAll, describe, expect, it } from 'vitest';
+
+const packageDir = fileURLToPath(new URL('..', import.meta.url));
+let dir = '';
+
+function rolloff(args: string[], input?: string): { code: number | null; stdout: string; stderr: string } {
+  const r = spawnSync(process.execPath, ['--import', 'tsx', 'src/cli.ts', ...args], { cwd: packageDir, input, encoding: 'utf8' });
+  return { code: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+
+function file(name: string, text: string): string {
+  const p = join(dir, name);
+  writeFileSync(p, text);
+  return p;
+}
+
+const GOOD = `drive in
+R1 [in out] 2.2k
+C1 [in2 gnd] 1n
+R2 [in in2] 1k
+C2 [out gnd] 470n
+show out
+show "zin" impedance in2
+sweep 0 .. 1k, 5 linear
+require out gain <= 0.1 dB over 0 .. 1k
+`;
+
+beforeAll(() => {
+  dir = mkdtempSync(join(tmpdir(), 'rolloff-cli-'));
+});
+
+describe('rolloff CLI', { timeout: 60_000 }, () => {
+  it('solve prints readouts and requirement results and exits 0 when everything passes', () => {
+    const r = rolloff(['solve', file('good.cell', GOOD)]);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toContain('corner');
+    expect(r.stdout).toContain('PASS');
+  });
+
+  it('--json prints one object of the contract: plain arrays, non-finite numbers as null', () => {
+    const r = rolloff(['solve', file('good.cell', GOOD), '--json']);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.stdout);
+    expect(Object.keys(j).sort()).toEqual(['diagnostics', 'envelope', 'frequencies', 'poles', 'readouts', 'requirements', 'steps', 'traces', 'zeros']);
+    expect(j.frequencies).toEqual([0, 250, 500, 750, 1000]);
+    const zin = j.traces.find((t: { label: string }) => t.label === 'zin');
+    expect(zin.kind).toBe('impedance');
+    for (const key of ['re', 'im', 'magnitude', 'magnitudeDb', 'phaseDeg', 'groupDelay']) expect(Array.isArray(zin[key])).toBe(true);
+    // At 0 Hz the shunt capacitor is open and the drive shorts the other end: |Z| is 1 kΩ.
+    expect(zin.magnitude[0]).toBeCloseTo(1000, 9);
+    const out = j.traces.find((t: { label: string }) => t.label === 'out');
+    expect(out.magnitudeDb[0]).toBeCloseTo(0, 12);
+    expect(j.requirements[0]).toMatchObject({ line: 9, pass: true, worstAt: expect.any(Number) });
+    expect(j.readouts.every((x: { at: unknown }) => x.at === null || typeof x.at === 'number')).toBe(true);
+  });
+
+  it('--json writes a −∞ dB null as null', () => {
+    const r = rolloff(['solve', '-', '--json'], 'drive in\nC1 [in out] 1u\nR1 [out gnd] 1k\nshow out\nsweep 0 .. 100, 2 linear\n');
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.stdout);
+    expect(j.traces[0].magnitudeDb[0]).toBeNull();
+    expect(j.traces[0].magnitude[0]).toBe(0);
+  });
+
+  it('--csv prints one row per frequency with LABEL_mag_db, LABEL_phase_deg and LABEL_mag for impedances', () => {
+    const r = rolloff(['solve', file('good.cell', GOOD), '--csv']);
+    expect(r.code).toBe(0);
+    const lines = r.stdout.trim().split('\n');
+    expect(lines[0]).toBe('frequency_hz,out_mag_db,out_phase_deg,zin_mag_db,zin_phase_deg,zin_mag');
+    expect(lines).toHaveLength(6);
+    expect(lines[1].split(',')[0]).toBe('0');
+    const hp = rolloff(['solve', '-', '--csv'], 'drive in\nC1 [in out] 1u\nR1 [out gnd] 1k\nshow out\nsweep 0 .. 100, 2 linear\n');
+    // −∞ dB and an undefined phase are left empty.
+    expect(hp.stdout.trim().split('\n')[1]).toBe('0,,');
+  });
+
+  it('--trace LABEL keeps one trace; an unknown label is a bad argument (3)', () => {
+    const r = rolloff(['solve', file('good.cell', GOOD), '--csv', '--trace', 'zin']);
+    expect(r.stdout.split('\n')[0]).toBe('frequency_hz,zin_mag_db,zin_phase_deg,zin_mag');
+    const bad = rolloff(['solve', file('good.cell', GOOD), '--trace', 'nope']);
+    expect(bad.code).toBe(3);
+    expect(bad.stderr).toContain('"zin"');
+  });
+
+  it('check exits 1 when a requirement fails and prints the result', () => {
+    const r = rolloff(['check', file('fail.cell', GOOD.replace('<= 0.1 dB', '<= -1 dB'))]);
+    expect(r.code).toBe(1);
+    expect(r.stdout).toMatch(/^FAIL {2}line 9: require out gain <= -1 dB over 0 \.\. 1k/);
+  });
+
+  it('errors in the cell exit 2, each on stderr as FILE:LINE:COL: error: MESSAGE', () => {
+    const p = file('bad.cell', 'drive in\nR1 [in out] 1meg\nQ1 [a b] 1k\nshow out\n');
+    const r = rolloff(['check', p]);
+    expect(r.code).toBe(2);
+    const errors = r.stderr.split('\n').filter((l) => l.includes(': error: '));
+    expect(errors.length).toBeGreaterThanOrEqual(2);
+    for (const e of errors) expect(e).toMatch(new RegExp(`^${p.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}:\\d+:\\d+: error: .+`));
+    expect(errors[0]).toMatch(/:2:\d+: error: /);
+    const stdin = rolloff(['solve', '-'], 'R1 [a b]\n');
+    expect(stdin.code).toBe(2);
+    expect(stdin.stderr).toMatch(/^<stdin>:1:\d+: error: /m);
+  });
+
+  it('bad arguments and unreadable input exit 3', () => {
+    expect(rolloff([]).code).toBe(3);
+    expect(rolloff(['simulate', 'x.cell']).code).toBe(3);
+    expect(rolloff(['solve']).code).toBe(3);
+    expect(rolloff(['solve', file('good.cell', GOOD), '--json', '--csv']).code).toBe(3);
+    expect(rolloff(['solve', file('good.cell', GOOD), '--frobnicate']).code).toBe(3);
+    const missing = rolloff(['solve', join(dir, 'no-such.cell')]);
+    expect(missing.code).toBe(3);
+    expect(missing.stderr).toContain('cannot read');
+  });
+});
