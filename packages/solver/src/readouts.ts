@@ -302,16 +302,19 @@ function shapeReadouts(view: TraceView, idx: number[], info: ShapeInfo, label: s
       break;
     }
     case 'band-pass': {
+      // Outwards from the refined peak, which may lie well between grid points (high Q).
       const target = peakDb - HALF_POWER_DB;
-      const lo = crossing(view, idx.slice(0, maxPos + 1).reverse(), target);
-      const hi = crossing(view, idx.slice(maxPos), target);
+      const peak = Number.isFinite(peakF) ? peakF : view.f[idx[maxPos]];
+      const lo = crossingFrom(view, peak, peakDb, idx.filter((k) => view.f[k] < peak).reverse(), target, 'down');
+      const hi = crossingFrom(view, peak, peakDb, idx.filter((k) => view.f[k] > peak), target, 'down');
       pushBand(out, label, lo, hi, Math.sqrt(lo * hi));
       break;
     }
     case 'band-stop': {
       const center = minPos > 0 && minPos < idx.length - 1 ? refineExtremum(view, idx, minPos, false) : view.f[idx[minPos]];
-      const lo = crossingUp(view, idx.slice(0, minPos + 1).reverse(), info.lowDb - HALF_POWER_DB);
-      const hi = crossingUp(view, idx.slice(minPos), info.highDb - HALF_POWER_DB);
+      const depth = Math.min(view.dbAt(center), db[idx[minPos]]);
+      const lo = crossingFrom(view, center, depth, idx.filter((k) => view.f[k] < center).reverse(), info.lowDb - HALF_POWER_DB, 'up');
+      const hi = crossingFrom(view, center, depth, idx.filter((k) => view.f[k] > center), info.highDb - HALF_POWER_DB, 'up');
       pushBand(out, label, lo, hi, center);
       break;
     }
@@ -327,15 +330,23 @@ function shapeReadouts(view: TraceView, idx: number[], info: ShapeInfo, label: s
   return out;
 }
 
-/** The first point, scanning away from a dip, where the response climbs back to `target`. */
-function crossingUp(view: TraceView, order: number[], target: number): number {
+/**
+ * Scanning outwards from an exact point (f0, db0) through grid points `order`, the first
+ * place where the response falls below `target` ('down', away from a peak) or climbs back
+ * to it ('up', away from a dip), refined exactly.
+ */
+function crossingFrom(view: TraceView, f0: number, db0: number, order: number[], target: number, way: 'down' | 'up'): number {
   const db = view.db;
-  for (let q = 0; q + 1 < order.length; q++) {
-    const a = order[q];
-    const b = order[q + 1];
-    if (db[a] < target && db[b] >= target) {
-      return solveBetweenGrid(view, a, b, (f) => view.dbAt(f) - target, (k) => db[k] - target);
+  const crosses = (a: number, b: number): boolean => (way === 'down' ? a >= target && b < target : a < target && b >= target);
+  let pf = f0;
+  let pv = db0;
+  for (const k of order) {
+    if (crosses(pv, db[k])) {
+      const [lo, hi, hl, hh] = pf < view.f[k] ? [pf, view.f[k], pv, db[k]] : [view.f[k], pf, db[k], pv];
+      return solveBetween(lo, hi, (f) => view.dbAt(f) - target, hl - target, hh - target);
     }
+    pf = view.f[k];
+    pv = db[k];
   }
   return NaN;
 }

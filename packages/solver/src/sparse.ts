@@ -138,7 +138,6 @@ export class SparseSolver implements LinearSolver {
     const cols = this.cols;
     const rowPtr = this.rowPtr;
     const rowSlots = this.rowSlots;
-    let outcome: Outcome = 'ok';
     for (let i = 0; i < n; i++) {
       const l0 = lPtr[i];
       const l1 = lPtr[i + 1];
@@ -188,18 +187,14 @@ export class SparseSolver implements LinearSolver {
       const pr = uRe[u0];
       const pi = uIm[u0];
       const pm = Math.abs(pr) + Math.abs(pi);
-      if (pm < ACCEPT_THRESHOLD * rowMax) {
-        // Keep going: a later row may show the matrix singular, which is the stronger verdict.
-        outcome = 'unstable';
-        dRe[i] = 0;
-        dIm[i] = 0;
-        continue;
-      }
+      // Past a pivot that is too small the rest of the elimination means nothing, so no
+      // verdict on singularity either: a new pivot sequence decides.
+      if (pm < ACCEPT_THRESHOLD * rowMax) return 'unstable';
       const d = pr * pr + pi * pi;
       dRe[i] = pr / d;
       dIm[i] = -pi / d;
     }
-    return outcome;
+    return 'ok';
   }
 
   /** Markowitz ordering with threshold pivoting on the current scaled values; null if singular. */

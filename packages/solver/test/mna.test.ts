@@ -112,6 +112,15 @@ sweep at 1k
     expect(rel(t.magnitude[0], 1 / Math.hypot(1e-3, w * 1e-6))).toBeLessThan(1e-12);
   });
 
+  it('group delay of a current trace: I/V = jωC/(1 + jωRC) has τ = RC/(1+(ωRC)²), through a resistor and a capacitor alike [DER]', () => {
+    const r = run('drive in\nR1 [in a] 1k\nC1 [a gnd] 1u\nshow current R1\nshow current C1\nsweep at 50, 159.155, 1k');
+    for (const f of [50, 159.155, 1e3]) {
+      const wrc = 2 * Math.PI * f * 1e-3;
+      expect(rel(point(r, 'current R1', f).delay, 1e-3 / (1 + wrc * wrc))).toBeLessThan(1e-10);
+      expect(rel(point(r, 'current C1', f).delay, 1e-3 / (1 + wrc * wrc))).toBeLessThan(1e-10);
+    }
+  });
+
   it('current through a part runs from its first node to its second', () => {
     const r = run('drive in\nR1 [in a] 1k\nR2 [gnd a] 1k\nshow current R1\nshow current R2\nsweep at 1k');
     expect(point(r, 'current R1', 1e3).re).toBeCloseTo(0.5e-3, 15);

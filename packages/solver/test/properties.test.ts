@@ -6,7 +6,7 @@ import { analyze } from '../src/analyze.js';
 const value = (lo: number, hi: number): fc.Arbitrary<number> => fc.double({ min: lo, max: hi, noNaN: true }).map((x) => Math.pow(10, x));
 const num = (x: number): string => x.toPrecision(17);
 
-describe('passive networks', () => {
+describe('passive networks', { timeout: 30_000 }, () => {
   it('any passive RC ladder driven at one end has |H| ≤ 1 at its other end', () => {
     fc.assert(
       fc.property(

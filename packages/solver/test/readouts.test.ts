@@ -76,6 +76,16 @@ describe('readouts', () => {
     expect(Math.abs(readout(r, 'out', 'rolloff').value - (db(1e5) - db(1e4)))).toBeLessThan(1e-12);
   });
 
+  it('a Q = 10 000 resonance on a 20/decade grid: peak, corners, bandwidth and Q are still exact [RLC-1 formulas, DER]', () => {
+    const r = run('drive in\nL1 [in a] 10m\nC1 [a b] 1u\nR1 [b gnd] 0.01\nshow b\nsweep 100 .. 100k, 20/decade');
+    const f0 = 1 / (2 * Math.PI * Math.sqrt(10e-3 * 1e-6));
+    const q = (1 / 0.01) * Math.sqrt(10e-3 / 1e-6);
+    expect(rel(readout(r, 'b', 'center').value, f0)).toBeLessThan(1e-9);
+    expect(rel(readout(r, 'b', 'q').value, q)).toBeLessThan(1e-6);
+    expect(rel(readout(r, 'b', 'bandwidth').value, f0 / q)).toBeLessThan(1e-6);
+    expect(rel(readout(r, 'b', 'corner-low').value, f0 * (Math.sqrt(1 + 1 / (4 * q * q)) - 1 / (2 * q)))).toBeLessThan(1e-9);
+  });
+
   it('min-impedance carries the frequency where it is found [RLC-1j]', () => {
     const r = run('R1 [a m] 10\nL1 [m n] 10m\nC1 [n gnd] 1u\nshow impedance a\nsweep 10 .. 100k, 7/decade');
     const m = readout(r, 'impedance a', 'min-impedance');

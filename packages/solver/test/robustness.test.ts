@@ -36,7 +36,7 @@ function wellFormed(r: ReturnType<typeof analyze>): void {
   expect(r.diagnostics.some((d) => d.code === 'internal')).toBe(false);
 }
 
-describe('robustness', () => {
+describe('robustness', { timeout: 30_000 }, () => {
   it('the sample cell analyses cleanly', () => {
     const r = analyze(CELL);
     expect(r.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
