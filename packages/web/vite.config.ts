@@ -1,12 +1,13 @@
 import tailwindcss from '@tailwindcss/vite';
 import react from '@vitejs/plugin-react';
 import { defineConfig } from 'vitest/config';
+import { bundleReport } from './build/bundle-report.ts';
 
 const results = process.env.TEST_RESULTS_DIR;
 const apiPort = process.env.API_PORT ?? '4410';
 
 export default defineConfig({
-  plugins: [react(), tailwindcss()],
+  plugins: [react(), tailwindcss(), bundleReport({ firstPageBudget: 300 * 1024 })],
   server: {
     // `npm run dev` in this package: the API runs beside it.
     proxy: { '/api': `http://127.0.0.1:${apiPort}`, '/auth': `http://127.0.0.1:${apiPort}` },
@@ -14,6 +15,13 @@ export default defineConfig({
   build: {
     sourcemap: true,
     reportCompressedSize: true,
+    rolldownOptions: {
+      treeshake: {
+        // The solver's library modules only define things, so a page that uses formatSi does
+        // not pull in the expression parser (mathjs) that only the worker needs.
+        moduleSideEffects: (id: string) => (/[\\/]packages[\\/]solver[\\/]dist[\\/]/.test(id) ? false : undefined),
+      },
+    },
   },
   worker: { format: 'es' },
   test: {

@@ -1,0 +1,24 @@
+import type { LoaderFunctionArgs } from 'react-router-dom';
+import { data, useLoaderData } from 'react-router-dom';
+import { UsersTable } from '../../features/admin/components/users-table';
+import { requireMe } from '../loaders';
+
+export async function loader({ request }: LoaderFunctionArgs) {
+  const me = await requireMe(request);
+  if (me.siteRole !== 'admin') throw data({ what: 'The admin page' }, { status: 404 });
+  return { meId: me.id };
+}
+
+/** Site users for admins. */
+export function Component() {
+  const { meId } = useLoaderData<typeof loader>();
+  return (
+    <section className="space-y-6">
+      <div>
+        <h1 className="text-2xl font-semibold tracking-tight">People</h1>
+        <p className="text-ink-soft">Who may sign in, and who is an admin.</p>
+      </div>
+      <UsersTable meId={meId} />
+    </section>
+  );
+}

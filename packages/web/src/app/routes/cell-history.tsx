@@ -1,0 +1,63 @@
+/** The history of one cell, with its two chosen revisions overlaid by the circuit feature. */
+import { useQueryClient } from '@tanstack/react-query';
+import type { LoaderFunctionArgs } from 'react-router-dom';
+import { data, Link, useParams } from 'react-router-dom';
+import { ErrorMessage, Loading } from '../../components/ui/status-message';
+import { CellHistory } from '../../features/cells/components/cell-history';
+import { RevisionOverlay } from '../../features/circuit/components/revision-overlay';
+import { notebookQueryOptions, useNotebook } from '../../features/notebooks/api/get-notebook';
+import { appPaths } from '../../lib/paths';
+import { orRouteError, requireMe } from '../loaders';
+import { queryClient } from '../query-client';
+import { notebookIdOf, slugOf } from './notebook';
+
+function cellIdOf(params: { cellId?: string }): number {
+  const id = Number(params.cellId);
+  if (!Number.isInteger(id) || id <= 0) throw data({ what: 'This cell' }, { status: 404 });
+  return id;
+}
+
+export async function loader({ request, params }: LoaderFunctionArgs) {
+  await requireMe(request);
+  const id = notebookIdOf(params);
+  const cellId = cellIdOf(params);
+  const notebook = await orRouteError(queryClient.ensureQueryData(notebookQueryOptions(id)));
+  if (![...notebook.cells, ...notebook.deletedCells].some((c) => c.id === cellId)) throw data({ what: 'This cell' }, { status: 404 });
+  return null;
+}
+
+export function Component() {
+  const params = useParams();
+  const id = notebookIdOf(params);
+  const cellId = cellIdOf(params);
+  const notebook = useNotebook(id);
+  const client = useQueryClient();
+  if (notebook.isPending) return <Loading />;
+  if (notebook.isError) return <ErrorMessage error={notebook.error} retry={() => void notebook.refetch()} />;
+  const cells = [...notebook.data.cells, ...notebook.data.deletedCells];
+  const cell = cells.find((c) => c.id === cellId);
+  if (!cell) return <ErrorMessage error={new Error('This cell is not in the notebook any more.')} />;
+  const position = notebook.data.cells.findIndex((c) => c.id === cellId);
+  return (
+    <section className="space-y-6">
+      <div>
+        <p className="text-sm">
+          <Link to={appPaths.notebook(id)} className="text-accent underline-offset-2 hover:underline">
+            ← {notebook.data.title}
+          </Link>
+        </p>
+        <h1 className="text-2xl font-semibold tracking-tight">
+          History of {cell.kind === 'circuit' ? 'circuit' : 'note'} cell {position >= 0 ? position + 1 : '(deleted)'}
+        </h1>
+      </div>
+      <CellHistory
+        notebookId={id}
+        cellId={cellId}
+        kind={cell.kind}
+        editable={notebook.data.permissions.edit}
+        renderOverlay={({ entries }) => <RevisionOverlay entries={entries} cellKey={`${id}:${cellId}`} filename={`${slugOf(notebook.data.title)}-cell-history`} />}
+        onRestored={() => void client.invalidateQueries({ queryKey: notebookQueryOptions(id).queryKey, exact: true })}
+      />
+    </section>
+  );
+}

@@ -1,0 +1,158 @@
+/**
+ * The notebook page: header, cells (circuit cells drawn by the circuit feature), forks, and
+ * the share dialog. Loaded lazily; its loader warms the notebook in the query cache.
+ */
+import type { CellSaved, Notebook, Visibility } from '@rolloff/api/contract';
+import { NotebookIdSchema } from '@rolloff/api/contract';
+import { useQueryClient } from '@tanstack/react-query';
+import { useCallback, useState } from 'react';
+import type { LoaderFunctionArgs } from 'react-router-dom';
+import { data, useNavigate, useParams } from 'react-router-dom';
+import { Button } from '../../components/ui/button';
+import { Dialog } from '../../components/ui/dialog';
+import { ErrorMessage, Loading } from '../../components/ui/status-message';
+import { CellList } from '../../features/cells/components/cell-list';
+import type { CircuitBodyProps } from '../../features/cells/components/cell-list';
+import { CircuitWorkbench } from '../../features/circuit/components/circuit-workbench';
+import { useDeleteNotebook } from '../../features/notebooks/api/delete-notebook';
+import { useForkNotebook } from '../../features/notebooks/api/fork-notebook';
+import { notebookQueryOptions, useNotebook } from '../../features/notebooks/api/get-notebook';
+import { useRestoreNotebook } from '../../features/notebooks/api/restore-notebook';
+import { useUpdateNotebook } from '../../features/notebooks/api/update-notebook';
+import { ForksPanel } from '../../features/notebooks/components/forks-panel';
+import { NotebookHeader } from '../../features/notebooks/components/notebook-header';
+import { ShareDialog } from '../../features/sharing/components/share-dialog';
+import { appPaths } from '../../lib/paths';
+import { orRouteError, requireMe } from '../loaders';
+import { queryClient } from '../query-client';
+
+/** The notebook id of the address, or a 404 when it cannot be one. */
+export function notebookIdOf(params: { id?: string }): string {
+  const parsed = NotebookIdSchema.safeParse(params.id);
+  if (!parsed.success) throw data({ what: 'This notebook' }, { status: 404 });
+  return parsed.data;
+}
+
+export async function loader({ request, params }: LoaderFunctionArgs) {
+  await requireMe(request);
+  const id = notebookIdOf(params);
+  await orRouteError(queryClient.ensureQueryData(notebookQueryOptions(id)));
+  return null;
+}
+
+/** A file-name stem for downloads: the title in lower-case words. */
+export function slugOf(title: string): string {
+  return (
+    title
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '')
+      .slice(0, 60) || 'notebook'
+  );
+}
+
+function DeletedNotice({ notebook }: { notebook: Notebook }) {
+  const restore = useRestoreNotebook();
+  return (
+    <div role="status" className="flex flex-wrap items-center gap-3 rounded-lg border border-warn bg-warn-soft px-4 py-2 text-sm">
+      This notebook is deleted. Nothing in it is lost.
+      {notebook.permissions.delete ? (
+        <Button size="sm" variant="primary" disabled={restore.isPending} onClick={() => restore.mutate(notebook.id)}>
+          Restore it
+        </Button>
+      ) : null}
+    </div>
+  );
+}
+
+function NotebookPage({ notebook }: { notebook: Notebook }) {
+  const client = useQueryClient();
+  const navigate = useNavigate();
+  const [sharing, setSharing] = useState(false);
+  const [confirmDelete, setConfirmDelete] = useState(false);
+  const fork = useForkNotebook(notebook.id);
+  const remove = useDeleteNotebook(notebook.id);
+  const update = useUpdateNotebook(notebook.id);
+  const key = notebookQueryOptions(notebook.id).queryKey;
+  const stem = slugOf(notebook.title);
+
+  const refresh = useCallback(() => void client.invalidateQueries({ queryKey: key, exact: true }), [client, key]);
+  const onSaved = useCallback(
+    (saved: CellSaved) =>
+      client.setQueryData(key, (old) => (old ? { ...old, updatedAt: saved.cell.updatedAt, cells: old.cells.map((c) => (c.id === saved.cell.id ? saved.cell : c)) } : old)),
+    [client, key],
+  );
+  const renderCircuit = useCallback(
+    (props: CircuitBodyProps) => (
+      <CircuitWorkbench
+        cellKey={`${notebook.id}:${props.cell.id}`}
+        text={props.text}
+        onChange={props.onChange}
+        readOnly={props.readOnly}
+        label={props.label}
+        filename={`${stem}-cell-${props.cell.position + 1}`}
+        onLeave={props.onLeave}
+        autoFocus={props.autoFocus}
+        helpHref={appPaths.help()}
+      />
+    ),
+    [notebook.id, stem],
+  );
+
+  return (
+    <div className="space-y-6">
+      <NotebookHeader
+        notebook={notebook}
+        onShare={() => setSharing(true)}
+        onFork={() => fork.mutate({}, { onSuccess: (copy) => navigate(appPaths.notebook(copy.id)) })}
+        forking={fork.isPending}
+        onDelete={() => setConfirmDelete(true)}
+        deleting={remove.isPending}
+      />
+      {fork.error ? <ErrorMessage error={fork.error} /> : null}
+      {notebook.deletedAt ? <DeletedNotice notebook={notebook} /> : null}
+      <CellList
+        notebookId={notebook.id}
+        cells={notebook.cells}
+        deletedCells={notebook.deletedCells}
+        editable={notebook.permissions.edit && !notebook.deletedAt}
+        renderCircuit={renderCircuit}
+        onChanged={refresh}
+        onSaved={onSaved}
+        historyHref={(cellId) => appPaths.cellHistory(notebook.id, cellId)}
+      />
+      <ForksPanel notebookId={notebook.id} forkCount={notebook.forkCount} />
+      {notebook.permissions.share ? (
+        <ShareDialog
+          notebookId={notebook.id}
+          open={sharing}
+          onClose={() => setSharing(false)}
+          canShare={notebook.permissions.share}
+          visibility={notebook.visibility}
+          onVisibilityChange={(visibility: Visibility) => update.mutate({ visibility })}
+          visibilityBusy={update.isPending}
+          link={`${window.location.origin}${appPaths.notebook(notebook.id)}`}
+        />
+      ) : null}
+      <Dialog open={confirmDelete} title="Delete this notebook?" onClose={() => setConfirmDelete(false)}>
+        <p className="text-sm text-ink-soft">It disappears from everyone's list. You can restore it later from “Deleted” in your notebooks.</p>
+        {remove.error ? <ErrorMessage error={remove.error} /> : null}
+        <div className="mt-4 flex justify-end gap-2">
+          <Button onClick={() => setConfirmDelete(false)}>Keep it</Button>
+          <Button variant="danger" disabled={remove.isPending} onClick={() => remove.mutate(undefined, { onSuccess: () => navigate(`${appPaths.notebooks()}?scope=deleted`) })}>
+            Delete notebook
+          </Button>
+        </div>
+      </Dialog>
+    </div>
+  );
+}
+
+/** The route's component: reads the notebook the loader warmed. */
+export function Component() {
+  const id = notebookIdOf(useParams());
+  const notebook = useNotebook(id);
+  if (notebook.isPending) return <Loading text="Opening the notebook…" />;
+  if (notebook.isError) return <ErrorMessage error={notebook.error} retry={() => void notebook.refetch()} />;
+  return <NotebookPage notebook={notebook.data} />;
+}

@@ -1,0 +1,52 @@
+/**
+ * A modal dialog on the native <dialog> element: focus is kept inside, Escape closes it,
+ * and the page behind cannot be used until it is closed.
+ */
+import { useEffect, useRef } from 'react';
+import type { ReactNode } from 'react';
+
+export interface DialogProps {
+  open: boolean;
+  title: string;
+  onClose: () => void;
+  children: ReactNode;
+  /** Tailwind max-width class. */
+  width?: string;
+}
+
+/** A modal dialog with a title and a close button. */
+export function Dialog({ open, title, onClose, children, width = 'max-w-lg' }: DialogProps) {
+  const ref = useRef<HTMLDialogElement>(null);
+  useEffect(() => {
+    const dialog = ref.current;
+    if (!dialog) return;
+    if (open && !dialog.open) {
+      if (typeof dialog.showModal === 'function') dialog.showModal();
+      else dialog.setAttribute('open', '');
+    }
+    if (!open && dialog.open) {
+      if (typeof dialog.close === 'function') dialog.close();
+      else dialog.removeAttribute('open');
+    }
+  }, [open]);
+  if (!open) return null;
+  return (
+    <dialog
+      ref={ref}
+      aria-label={title}
+      onCancel={(event) => {
+        event.preventDefault();
+        onClose();
+      }}
+      className={`m-auto w-[calc(100%-2rem)] ${width} rounded-xl border border-rule bg-panel p-0 text-ink shadow-xl backdrop:bg-black/40`}
+    >
+      <div className="flex items-center justify-between border-b border-rule px-5 py-3">
+        <h2 className="text-lg font-semibold">{title}</h2>
+        <button type="button" onClick={onClose} className="rounded px-2 py-1 text-ink-soft hover:bg-sunken" aria-label="Close">
+          ×
+        </button>
+      </div>
+      <div className="px-5 py-4">{children}</div>
+    </dialog>
+  );
+}

@@ -1,0 +1,81 @@
+/**
+ * A circuit cell at work: the editor beside its plots on wide screens (above them on narrow
+ * ones), the readouts and requirement badges under the plots, cautions, and the problems the
+ * solver found. Every edit is analysed in the Web Worker; while the text has errors the last
+ * result that solved stays on screen, dimmed.
+ */
+import type { Result } from '@rolloff/solver';
+import { useMemo, useRef } from 'react';
+import { hazardReasons } from '../lib/hazard';
+import { useAnalysis } from '../worker/use-analysis';
+import { DiagnosticsList } from './diagnostics-list';
+import { HazardCaution, SmallSignalNote } from './hazard-caution';
+import { LazyCircuitEditor, LazyCircuitPlots, PlotPlaceholder } from './lazy-parts';
+import { ReadoutsPanel } from './readouts-panel';
+import { RequirementBadges } from './requirement-badges';
+
+export interface CircuitWorkbenchProps {
+  /** Separates this cell's analyses from other cells'. */
+  cellKey: string;
+  text: string;
+  onChange?: (text: string) => void;
+  readOnly?: boolean;
+  /** Accessible name of the editor. */
+  label: string;
+  /** File name stem of plot downloads. */
+  filename: string;
+  onLeave?: () => void;
+  autoFocus?: boolean;
+  /** Where the language reference lives. */
+  helpHref: string;
+}
+
+const hasErrors = (result: Result) => result.diagnostics.some((d) => d.severity === 'error');
+
+/** The editor, plots and readouts of one circuit cell. */
+export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, filename, onLeave, autoFocus, helpHref }: CircuitWorkbenchProps) {
+  const { outcome, busy } = useAnalysis(text, { key: cellKey });
+  const lastGood = useRef<Result | null>(null);
+  const result = outcome?.ok ? outcome.result : null;
+  if (result && !hasErrors(result) && result.traces.length > 0) lastGood.current = result;
+  const shown = result && !hasErrors(result) ? result : lastGood.current;
+  const stale = shown !== null && shown !== result;
+  const series = useMemo(() => (shown ? [{ result: shown }] : []), [shown]);
+  const reasons = useMemo(() => hazardReasons(text), [text]);
+  const diagnostics = useMemo(() => (outcome?.ok ? { text: outcome.text, items: outcome.result.diagnostics } : null), [outcome]);
+
+  return (
+    <div className="grid gap-4 lg:grid-cols-2" data-testid="circuit-workbench" data-busy={busy}>
+      <div className="min-w-0 space-y-2">
+        <LazyCircuitEditor value={text} onChange={onChange} diagnostics={diagnostics} readOnly={readOnly} label={label} onLeave={onLeave} autoFocus={autoFocus} />
+        {result ? <DiagnosticsList diagnostics={result.diagnostics} /> : null}
+        <p className="text-xs text-ink-faint">
+          <a href={helpHref} target="_blank" rel="noreferrer" className="text-accent underline-offset-2 hover:underline">
+            Cell language reference
+          </a>{' '}
+          · Ctrl-Space completes · Shift-Enter goes to the next cell
+          {outcome?.ok ? <span data-testid="solve-time"> · solved in {Math.max(1, Math.round(outcome.elapsedMs))} ms</span> : null}
+        </p>
+      </div>
+      <div className="min-w-0 space-y-3">
+        <HazardCaution reasons={reasons} />
+        {outcome && !outcome.ok ? (
+          <p role="alert" className="rounded-lg border border-fail bg-fail-soft p-3 text-sm text-fail">
+            The solver could not run this cell: {outcome.message}
+          </p>
+        ) : null}
+        {stale ? <p className="text-xs text-warn">The cell has errors: showing the last result that solved.</p> : null}
+        <div className={stale ? 'opacity-60' : ''}>
+          {shown ? <LazyCircuitPlots series={series} filename={filename} /> : <PlotPlaceholder text={outcome ? 'Nothing to plot: fix the errors or add a show line.' : 'Solving…'} />}
+        </div>
+        {shown ? (
+          <>
+            <ReadoutsPanel readouts={shown.readouts} stale={stale} />
+            <RequirementBadges requirements={shown.requirements} traces={shown.traces} stale={stale} />
+          </>
+        ) : null}
+        <SmallSignalNote />
+      </div>
+    </div>
+  );
+}

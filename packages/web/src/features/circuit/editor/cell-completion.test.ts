@@ -1,0 +1,45 @@
+import { describe, expect, it } from 'vitest';
+import { FIRST_EXAMPLE } from '../../../test/first-example';
+import { collectCellNames, completionsFor } from './cell-completion';
+import { statementWords } from './cell-words';
+
+const names = collectCellNames(FIRST_EXAMPLE);
+const labels = (line: string) => completionsFor(line, names).map((c) => c.label);
+
+describe('completion in circuit cells', () => {
+  it('finds the nodes, designators and parameters the cell already has', () => {
+    expect(names.nodes).toEqual(['a', 'b', 'gnd', 'in', 'out']);
+    expect(names.designators).toEqual(['C1', 'C2', 'R1', 'R2', 'U1']);
+    expect(names.parameters).toEqual(['Ca', 'Cb', 'R']);
+  });
+
+  it('offers statements and part kinds at the start of a line', () => {
+    const offered = labels('');
+    for (const word of statementWords) expect(offered).toContain(word);
+    expect(offered).toEqual(expect.arrayContaining(['R', 'C', 'L', 'U', 'A']));
+  });
+
+  it('offers node names inside brackets and nothing else', () => {
+    expect(labels('R3 [out ')).toEqual(names.nodes);
+  });
+
+  it('offers the kinds a U or A part can be, and the parameters for a value', () => {
+    expect(labels('U2 [a b c] ')).toContain('opamp');
+    expect(labels('A1 [o gnd c gnd] ')).toEqual(expect.arrayContaining(['vgain', 'gm', 'igain', 'rm']));
+    expect(labels('R3 [a b] ')).toEqual(expect.arrayContaining(['R', 'Ca', 'Cb', 'sqrt']));
+  });
+
+  it('offers designators where a part is named', () => {
+    expect(labels('A1 [o gnd] igain 2 of ')).toEqual(names.designators);
+    expect(labels('show current ')).toEqual(names.designators);
+  });
+
+  it('offers measures after the target of a requirement', () => {
+    expect(labels('require out ')).toEqual(expect.arrayContaining(['gain', 'corner', 'phase-margin', 'crossover']));
+    expect(labels('require out gain >= -3 dB ')).toEqual(['over', 'at']);
+  });
+
+  it('stays quiet inside comments', () => {
+    expect(labels('R1 [a b] 1k  # a comment ')).toEqual([]);
+  });
+});

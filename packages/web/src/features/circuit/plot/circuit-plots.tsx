@@ -1,0 +1,61 @@
+/**
+ * The plots of one cell (or of several revisions overlaid): each figure with its download
+ * buttons. Loaded lazily (default export), as it brings Plotly with it.
+ */
+import { useMemo, useRef } from 'react';
+import { PlotlyChart } from './plotly-chart';
+import type { ChartHandle } from './plotly-chart';
+import { usePlotTheme } from './plot-theme';
+import { figuresFor } from './result-figures';
+import type { Figure, PlotSeries } from './result-figures';
+
+export interface CircuitPlotsProps {
+  series: PlotSeries[];
+  /** File name stem of downloads, e.g. the notebook and cell. */
+  filename: string;
+  /** Smaller plots, for the landing page and overlays. */
+  compact?: boolean;
+}
+
+function FigurePanel({ figure, filename, compact }: { figure: Figure; filename: string; compact: boolean }) {
+  const chart = useRef<ChartHandle>(null);
+  const stem = `${filename}-${figure.kind}`;
+  const height = figure.kind === 'bode' || figure.kind === 'impedance' ? (compact ? 'h-80' : 'h-[26rem]') : compact ? 'h-56' : 'h-72';
+  return (
+    <figure className="rounded-lg border border-rule bg-panel">
+      <figcaption className="flex items-center justify-between gap-2 border-b border-rule px-3 py-1.5 text-sm">
+        <span className="font-medium text-ink-soft">{figure.title}</span>
+        <span className="flex gap-1">
+          {(['png', 'svg'] as const).map((format) => (
+            <button
+              key={format}
+              type="button"
+              onClick={() => void chart.current?.download(format, stem)}
+              className="rounded px-2 py-0.5 text-xs text-ink-soft hover:bg-sunken hover:text-ink"
+              aria-label={`Download the ${figure.title.toLowerCase()} as ${format.toUpperCase()}`}
+            >
+              {format.toUpperCase()}
+            </button>
+          ))}
+        </span>
+      </figcaption>
+      <PlotlyChart ref={chart} figure={figure} label={figure.title} className={`w-full ${height}`} />
+    </figure>
+  );
+}
+
+/** Every figure the series have something for. */
+export default function CircuitPlots({ series, filename, compact = false }: CircuitPlotsProps) {
+  const theme = usePlotTheme();
+  const figures = useMemo(() => figuresFor(series, theme), [series, theme]);
+  if (figures.length === 0) {
+    return <p className="rounded-lg border border-dashed border-rule px-4 py-8 text-center text-sm text-ink-faint">Nothing to plot yet: add a show line.</p>;
+  }
+  return (
+    <div className="space-y-3">
+      {figures.map((figure) => (
+        <FigurePanel key={figure.kind} figure={figure} filename={filename} compact={compact} />
+      ))}
+    </div>
+  );
+}

@@ -1,0 +1,144 @@
+import { analyze, formatSi } from '@rolloff/solver';
+import type { Result } from '@rolloff/solver';
+import type { Shape } from 'plotly.js-dist-min';
+import { describe, expect, it } from 'vitest';
+import { FIRST_EXAMPLE } from '../../../test/first-example';
+import { decibelRange, figuresFor, finiteOrNull, placeRequirements } from './result-figures';
+import type { Figure, PlotTheme } from './result-figures';
+
+const theme: PlotTheme = {
+  font: 'sans',
+  monoFont: 'mono',
+  ink: '#111111',
+  inkSoft: '#222222',
+  rule: '#333333',
+  panel: '#ffffff',
+  pass: '#00aa00',
+  fail: '#aa0000',
+  traces: ['#000001', '#000002', '#000003'],
+};
+
+const bodeOf = (result: Result): Figure => {
+  const figure = figuresFor([{ result }], theme).find((f) => f.kind === 'bode');
+  if (!figure) throw new Error('no Bode figure');
+  return figure;
+};
+
+const shapes = (figure: Figure) => (figure.layout.shapes ?? []) as Partial<Shape>[];
+
+describe('the Bode figure of a result', () => {
+  const result = analyze(FIRST_EXAMPLE);
+  const figure = bodeOf(result);
+  const trace = result.traces[0];
+
+  it('draws magnitude in dB over phase in degrees on one log-frequency axis', () => {
+    const [magnitude, phase] = figure.data;
+    expect(magnitude.x).toEqual(finiteOrNull(result.frequencies));
+    expect(magnitude.y).toEqual(finiteOrNull(trace.magnitudeDb));
+    expect(magnitude.yaxis).toBe('y');
+    expect(phase.y).toEqual(finiteOrNull(trace.phaseDeg));
+    expect(phase.yaxis).toBe('y2');
+    expect(phase.xaxis).toBe(magnitude.xaxis);
+    expect(figure.layout.xaxis?.type).toBe('log');
+    expect(figure.layout.yaxis?.title).toEqual({ text: 'magnitude (dB)' });
+    expect(figure.layout.yaxis2?.title).toEqual({ text: 'phase (°)' });
+  });
+
+  it('names each trace in the legend and shows frequency, magnitude and phase on hover', () => {
+    const [magnitude, phase] = figure.data;
+    expect(magnitude.name).toBe(trace.label);
+    expect(magnitude.showlegend).not.toBe(false);
+    expect(phase.showlegend).toBe(false);
+    const point = (magnitude.customdata as string[][])[10];
+    expect(point).toEqual([formatSi(result.frequencies[10], 'Hz'), formatSi(trace.magnitudeDb[10], 'dB'), formatSi(trace.phaseDeg[10], 'deg')]);
+    expect(magnitude.hovertemplate).toContain('customdata[2]');
+  });
+
+  it('marks the corner at the frequency of the readout, with its value', () => {
+    const corner = result.readouts.find((r) => r.trace === trace.label && r.name === 'corner');
+    expect(corner).toBeDefined();
+    const marker = shapes(figure).find((s) => s.type === 'line' && s.x0 === corner?.value && s.x1 === corner?.value);
+    expect(marker).toBeDefined();
+    const label = figure.layout.annotations?.find((a) => String(a.text).startsWith('corner'));
+    expect(label?.text).toBe(`corner ${formatSi(corner?.value ?? NaN, 'Hz')}`);
+    // Annotations on a log axis are placed by the logarithm of the value (Plotly's convention).
+    expect(label?.x).toBeCloseTo(Math.log10(corner?.value ?? NaN), 12);
+  });
+
+  it('shades each requirement range where it is checked, tinted by its result', () => {
+    for (const requirement of result.requirements) expect(requirement.pass).toBe(true);
+    const rects = shapes(figure).filter((s) => s.type === 'rect');
+    // require out gain >= -0.3 dB over 10 .. 500: allowed from the limit upwards over 10 Hz to 500 Hz.
+    const passband = rects.find((s) => s.x0 === 10 && s.x1 === 500);
+    expect(passband).toMatchObject({ yref: 'y', y0: -0.3, fillcolor: theme.pass });
+    // require out gain <= -38 dB over 10k ..: open to the end of the sweep.
+    const stopband = rects.find((s) => s.x0 === 10_000);
+    expect(stopband).toMatchObject({ yref: 'y', y1: -38, x1: result.frequencies[result.frequencies.length - 1], fillcolor: theme.pass });
+    // require out corner = 1k ± 2%: the frequencies between 980 Hz and 1.02 kHz, full height.
+    const corner = rects.find((s) => s.yref === 'y domain');
+    expect(corner?.x0).toBeCloseTo(980, 9);
+    expect(corner?.x1).toBeCloseTo(1020, 9);
+  });
+
+  it('tints a failing requirement with the fail colour and marks its worst point', () => {
+    const failing = analyze(FIRST_EXAMPLE.replace('require out gain >= -0.3 dB over 10 .. 500', 'require out gain >= -0.1 dB over 10 .. 700'));
+    const requirement = failing.requirements.find((r) => r.text.includes('-0.1 dB'));
+    expect(requirement?.pass).toBe(false);
+    const figureOfFailing = bodeOf(failing);
+    const rect = shapes(figureOfFailing).find((s) => s.type === 'rect' && s.x0 === 10 && s.x1 === 700);
+    expect(rect?.fillcolor).toBe(theme.fail);
+    const worst = figureOfFailing.data.find((d) => d.mode === 'markers' && (d.x as number[])[0] === requirement?.worstAt);
+    expect((worst?.y as number[])[0]).toBe(requirement?.measured);
+  });
+
+  it('matches requirements to their traces by label or expression', () => {
+    expect(placeRequirements(result).map((p) => p.trace.label)).toEqual(result.requirements.map(() => trace.label));
+  });
+});
+
+describe('other figures', () => {
+  it('draws an impedance trace in Ω on log axes, not in dB', () => {
+    const result = analyze('drive in\nR1 [in out] 100\nC1 [out gnd] 1u\nshow impedance in\nsweep 10 .. 100k\n');
+    expect(result.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+    const figures = figuresFor([{ result }], theme);
+    expect(figures.map((f) => f.kind)).toEqual(['impedance']);
+    const [magnitude] = figures[0].data;
+    expect(magnitude.y).toEqual(finiteOrNull(result.traces[0].magnitude));
+    expect(figures[0].layout.yaxis?.type).toBe('log');
+    expect(figures[0].layout.xaxis?.type).toBe('log');
+    expect(String((figures[0].layout.yaxis?.title as { text: string }).text)).toContain('Ω');
+  });
+
+  it('overlays two revisions with one colour per trace, the older one dashed', () => {
+    const newer = analyze(FIRST_EXAMPLE);
+    const older = analyze(FIRST_EXAMPLE.replace('let R  = 10k', 'let R  = 12k'));
+    const figure = figuresFor(
+      [
+        { result: newer, name: 'revision 2' },
+        { result: older, name: 'revision 1', dash: 'dash' },
+      ],
+      theme,
+    ).find((f) => f.kind === 'bode');
+    const lines = (figure?.data ?? []).filter((d) => d.mode === 'lines' && d.yaxis === 'y');
+    expect(lines.map((d) => d.name)).toEqual(['revision 2 · out', 'revision 1 · out']);
+    expect(lines[0].line?.color).toBe(lines[1].line?.color);
+    expect(lines[1].line?.dash).toBe('dash');
+    expect(lines[1].y).toEqual(finiteOrNull(older.traces[0].magnitudeDb));
+  });
+
+  it('draws nothing for a cell whose text has errors', () => {
+    const result = analyze('R1 [a b');
+    expect(figuresFor([{ result }], theme)).toEqual([]);
+  });
+});
+
+describe('decibelRange', () => {
+  it('rounds out to whole tens and keeps the limits in view', () => {
+    expect(decibelRange([[-0.5, -60]], [])).toEqual([-70, 10]);
+    expect(decibelRange([[-0.5, -20]], [-38])).toEqual([-50, 10]);
+  });
+
+  it('never goes deeper than 200 dB below the top, so an exact null does not flatten the plot', () => {
+    expect(decibelRange([[0, -1e6, Number.NEGATIVE_INFINITY]], [])).toEqual([-190, 10]);
+  });
+});

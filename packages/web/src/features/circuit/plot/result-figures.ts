@@ -1,0 +1,516 @@
+/**
+ * The solver's Result mapped to plot figures: a Bode plot (magnitude in dB over phase in
+ * degrees on one log-frequency axis), an impedance plot (|Z| in Ω, log-log, with phase), a
+ * noise-density plot and a step-response plot. Markers and requirement shading come from the
+ * Result's readouts and requirements; nothing numerical is computed here beyond placing them.
+ * Pure functions of plain data, so they are tested without a browser's Plotly.
+ */
+import { formatSi } from '@rolloff/solver';
+import type { NumberArray, Readout, RequirementResult, Result, TraceResult } from '@rolloff/solver';
+import type { Annotation, Layout, ScatterData, Shape } from 'plotly.js-dist-min';
+import { parseRequirementRange } from './requirement-ranges';
+import type { RequirementRange } from './requirement-ranges';
+
+/** Colours and font of the plots, read from the palette so light and dark both work. */
+export interface PlotTheme {
+  font: string;
+  monoFont: string;
+  ink: string;
+  inkSoft: string;
+  rule: string;
+  panel: string;
+  pass: string;
+  fail: string;
+  traces: readonly string[];
+}
+
+export type FigureKind = 'bode' | 'impedance' | 'noise' | 'step';
+
+/** One Result to draw; extra series (other revisions) are overlaid with their own dash. */
+export interface PlotSeries {
+  result: Result;
+  /** Prefix of the legend entries, e.g. "revision 3"; omitted for a single series. */
+  name?: string;
+  dash?: 'solid' | 'dash' | 'dot' | 'dashdot';
+}
+
+export interface Figure {
+  kind: FigureKind;
+  title: string;
+  data: Partial<ScatterData>[];
+  layout: Partial<Layout>;
+}
+
+const BODE_KINDS: ReadonlySet<TraceResult['kind']> = new Set(['ratio', 'loop', 'transimpedance', 'current']);
+/** Readouts that belong at a frequency and get a vertical marker on the plot. */
+const FREQUENCY_READOUTS = ['corner', 'corner-low', 'corner-high', 'center', 'peak-frequency', 'crossover', 'phase-crossover'];
+
+/** Peaks smaller than this (dB above the passband) get no marker. */
+const MARKED_PEAK_DB = 0.1;
+
+const READOUT_WORDS: Record<string, string> = {
+  corner: 'corner',
+  'corner-low': 'lower corner',
+  'corner-high': 'upper corner',
+  center: 'centre',
+  'peak-frequency': 'peak',
+  crossover: 'crossover',
+  'phase-crossover': 'phase crossover',
+};
+
+/** Plain numbers for Plotly, with NaN and ±∞ as gaps. */
+export function finiteOrNull(values: NumberArray): (number | null)[] {
+  return Array.from(values, (v) => (Number.isFinite(v) ? v : null));
+}
+
+function finiteRange(arrays: NumberArray[]): [number, number] | null {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const values of arrays) {
+    for (const v of values) {
+      if (!Number.isFinite(v)) continue;
+      if (v < lo) lo = v;
+      if (v > hi) hi = v;
+    }
+  }
+  return lo <= hi ? [lo, hi] : null;
+}
+
+/** Axis range for dB: whole tens around the data, never more than 200 dB deep. */
+export function decibelRange(values: NumberArray[], limits: number[]): [number, number] {
+  const range = finiteRange([...values, limits]) ?? [-40, 0];
+  const hi = Math.ceil((range[1] + 3) / 10) * 10;
+  const lo = Math.max(Math.floor((range[0] - 3) / 10) * 10, hi - 200);
+  return [lo, hi];
+}
+
+/** Phase ticks at 45°, 90° or 180°, so a short panel does not crowd its labels. */
+function phaseTick([lo, hi]: [number, number]): number {
+  const span = hi - lo;
+  return span > 540 ? 180 : span > 180 ? 90 : 45;
+}
+
+function phaseRange(values: NumberArray[], limits: number[]): [number, number] {
+  const range = finiteRange([...values, limits]) ?? [-90, 90];
+  return [Math.floor((range[0] - 10) / 45) * 45, Math.ceil((range[1] + 10) / 45) * 45];
+}
+
+function colourOf(theme: PlotTheme, index: number): string {
+  return theme.traces[index % theme.traces.length];
+}
+
+function legendName(series: PlotSeries, trace: TraceResult): string {
+  return series.name ? `${series.name} · ${trace.label}` : trace.label;
+}
+
+/** The hover text of each point: frequency, magnitude and phase together. */
+function hoverData(frequencies: NumberArray, trace: TraceResult, magnitudeUnit: 'dB' | 'linear'): string[][] {
+  const out: string[][] = new Array(frequencies.length);
+  for (let i = 0; i < frequencies.length; i++) {
+    const magnitude = magnitudeUnit === 'dB' ? formatSi(trace.magnitudeDb[i], 'dB') : formatSi(trace.magnitude[i], trace.unit);
+    out[i] = [formatSi(frequencies[i], 'Hz'), magnitude, formatSi(trace.phaseDeg[i], 'deg')];
+  }
+  return out;
+}
+
+const HOVER = '%{customdata[0]}<br>magnitude %{customdata[1]}<br>phase %{customdata[2]}<extra>%{fullData.name}</extra>';
+
+function baseLayout(theme: PlotTheme): Partial<Layout> {
+  return {
+    paper_bgcolor: 'rgba(0,0,0,0)',
+    plot_bgcolor: 'rgba(0,0,0,0)',
+    font: { family: theme.font, color: theme.ink, size: 12 },
+    margin: { l: 64, r: 20, t: 36, b: 48 },
+    showlegend: true,
+    legend: { orientation: 'h', x: 0, y: 1.02, yanchor: 'bottom', font: { size: 12 } },
+    hovermode: 'closest',
+    hoverlabel: { font: { family: theme.monoFont, size: 12 }, bgcolor: theme.panel, bordercolor: theme.rule },
+    autosize: true,
+  };
+}
+
+function axisStyle(theme: PlotTheme) {
+  return { gridcolor: theme.rule, linecolor: theme.rule, zerolinecolor: theme.rule, tickfont: { color: theme.inkSoft }, automargin: true };
+}
+
+function frequencyAxis(theme: PlotTheme, frequencies: NumberArray, anchor: 'y' | 'y2') {
+  const first = frequencies[0];
+  const last = frequencies[frequencies.length - 1];
+  const range: [number, number] | undefined = first > 0 && last > first ? [Math.log10(first), Math.log10(last)] : undefined;
+  return { ...axisStyle(theme), type: 'log' as const, anchor, title: { text: 'frequency (Hz)' }, exponentformat: 'SI' as const, range };
+}
+
+/** Labels in the right quarter of the frequency axis are written leftwards, so they stay inside. */
+function labelSide(frequency: number, frequencies: NumberArray): { xanchor: 'left' | 'right'; xshift: number } {
+  const first = Math.log10(frequencies[0]);
+  const span = Math.log10(frequencies[frequencies.length - 1]) - first;
+  const where = span > 0 ? (Math.log10(frequency) - first) / span : 0;
+  return where > 0.75 ? { xanchor: 'right', xshift: -4 } : { xanchor: 'left', xshift: 4 };
+}
+
+/** A vertical dotted marker with its value written at the top of the magnitude panel. */
+function frequencyMarkers(readouts: Readout[], traceColour: (trace: string) => string | null, theme: PlotTheme, frequencies: NumberArray) {
+  const shapes: Partial<Shape>[] = [];
+  const annotations: Partial<Annotation>[] = [];
+  const byTrace = new Map<string, Readout[]>();
+  for (const readout of readouts) byTrace.set(readout.trace, [...(byTrace.get(readout.trace) ?? []), readout]);
+  let slot = 0;
+  for (const [trace, list] of byTrace) {
+    const colour = traceColour(trace);
+    if (colour === null) continue;
+    const find = (name: string) => list.find((r) => r.name === name && Number.isFinite(r.value));
+    for (const readout of list) {
+      if (!FREQUENCY_READOUTS.includes(readout.name) || !(readout.value > 0) || !Number.isFinite(readout.value)) continue;
+      let text = `${READOUT_WORDS[readout.name]} ${formatSi(readout.value, 'Hz')}`;
+      if (readout.name === 'peak-frequency') {
+        const peak = find('peak');
+        // A flat response has a "peak" of a few µdB somewhere; only a real one is worth a marker.
+        if (!peak || peak.value < MARKED_PEAK_DB) continue;
+        text = `peak ${formatSi(peak.value, 'dB')} at ${formatSi(readout.value, 'Hz')}`;
+      }
+      shapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: readout.value, x1: readout.value, y0: 0, y1: 1, line: { color: colour, width: 1, dash: 'dot' } });
+      annotations.push({
+        xref: 'x',
+        yref: 'y domain',
+        x: Math.log10(readout.value),
+        y: 1 - 0.09 * (slot % 4),
+        yanchor: 'top',
+        ...labelSide(readout.value, frequencies),
+        showarrow: false,
+        text,
+        font: { color: colour, size: 11 },
+        bgcolor: theme.panel,
+      });
+      slot += 1;
+    }
+    const crossover = find('crossover');
+    const phaseMargin = find('phase-margin');
+    if (crossover && phaseMargin && crossover.value > 0) {
+      annotations.push({
+        xref: 'x',
+        yref: 'y2 domain',
+        x: Math.log10(crossover.value),
+        y: 0.95,
+        yanchor: 'top',
+        ...labelSide(crossover.value, frequencies),
+        showarrow: false,
+        text: `phase margin ${formatSi(phaseMargin.value, 'deg')}`,
+        font: { color: colour, size: 11 },
+        bgcolor: theme.panel,
+      });
+    }
+    const phaseCrossover = find('phase-crossover');
+    const gainMargin = find('gain-margin');
+    if (phaseCrossover && gainMargin && phaseCrossover.value > 0) {
+      annotations.push({
+        xref: 'x',
+        yref: 'y domain',
+        x: Math.log10(phaseCrossover.value),
+        y: 0.08,
+        yanchor: 'bottom',
+        ...labelSide(phaseCrossover.value, frequencies),
+        showarrow: false,
+        text: `gain margin ${formatSi(gainMargin.value, 'dB')}`,
+        font: { color: colour, size: 11 },
+        bgcolor: theme.panel,
+      });
+    }
+  }
+  return { shapes, annotations };
+}
+
+/** A requirement with where it applies, matched to the trace it names. */
+export interface PlacedRequirement {
+  requirement: RequirementResult;
+  range: RequirementRange;
+  trace: TraceResult;
+}
+
+/** The trace a requirement names: by label, by expression, or `loop` for the loop-gain trace. */
+export function traceNamed(traces: readonly TraceResult[], target: string): TraceResult | undefined {
+  return traces.find((t) => t.label === target || t.expr === target) ?? (target === 'loop' ? traces.find((t) => t.kind === 'loop') : undefined);
+}
+
+/** Matches each requirement to its trace by label or expression, as the cell names it. */
+export function placeRequirements(result: Result): PlacedRequirement[] {
+  const placed: PlacedRequirement[] = [];
+  for (const requirement of result.requirements) {
+    const range = parseRequirementRange(requirement.text);
+    if (!range) continue;
+    const trace = traceNamed(result.traces, range.target);
+    if (trace) placed.push({ requirement, range, trace });
+  }
+  return placed;
+}
+
+/** The x extent a requirement checks: its range, or a narrow band around `at`. */
+function checkedSpan(range: RequirementRange, frequencies: NumberArray): [number, number] | null {
+  const first = frequencies[0];
+  const last = frequencies[frequencies.length - 1];
+  if (range.at !== null) return [range.at / 1.03, range.at * 1.03];
+  const from = range.from ?? first;
+  const to = range.to ?? last;
+  return from > 0 && to > from ? [from, to] : null;
+}
+
+/** The band of values a requirement allows: [low, high], open sides at the axis edges. */
+function allowedBand(range: RequirementRange, axis: [number, number]): [number, number] | null {
+  if (range.value === null) return null;
+  if (range.op === '>=') return [range.value, axis[1]];
+  if (range.op === '<=') return [axis[0], range.value];
+  if (range.tolerance === null) return null;
+  return [range.value - range.tolerance, range.value + range.tolerance];
+}
+
+/**
+ * Shading of the requirements that read one axis: the allowed region over the checked
+ * frequencies, tinted by pass or fail, with the limit drawn as a dashed line and the worst
+ * point marked.
+ */
+function requirementShapes(
+  placed: PlacedRequirement[],
+  measures: readonly string[],
+  yaxis: 'y' | 'y2',
+  axis: [number, number],
+  frequencies: NumberArray,
+  theme: PlotTheme,
+): { shapes: Partial<Shape>[]; points: Partial<ScatterData>[] } {
+  const shapes: Partial<Shape>[] = [];
+  const points: Partial<ScatterData>[] = [];
+  for (const { requirement, range } of placed) {
+    if (!measures.includes(range.measure)) continue;
+    const colour = requirement.pass ? theme.pass : theme.fail;
+    const span = checkedSpan(range, frequencies);
+    const band = allowedBand(range, axis);
+    if (span && band) {
+      shapes.push({ type: 'rect', layer: 'below', xref: 'x', yref: yaxis, x0: span[0], x1: span[1], y0: band[0], y1: band[1], fillcolor: colour, opacity: 0.13, line: { width: 0 } });
+      for (const limit of range.op === '=' ? band : [range.value as number]) {
+        shapes.push({ type: 'line', layer: 'below', xref: 'x', yref: yaxis, x0: span[0], x1: span[1], y0: limit, y1: limit, line: { color: colour, width: 1.5, dash: 'dash' } });
+      }
+    }
+    if (requirement.worstAt !== null && Number.isFinite(requirement.measured)) {
+      points.push({
+        type: 'scatter',
+        mode: 'markers',
+        x: [requirement.worstAt],
+        y: [requirement.measured],
+        xaxis: 'x',
+        yaxis,
+        showlegend: false,
+        marker: { color: colour, size: 9, symbol: requirement.pass ? 'circle-open' : 'x', line: { width: 2, color: colour } },
+        hovertemplate: `${requirement.pass ? 'passes' : 'fails'}: ${escapeHover(requirement.text)}<br>worst %{y} at %{x} Hz<extra>line ${requirement.line}</extra>`,
+      });
+    }
+  }
+  return { shapes, points };
+}
+
+/** Frequency requirements (corner, crossover): the allowed band of frequencies, full height. */
+function frequencyRequirementShapes(placed: PlacedRequirement[], frequencies: NumberArray, theme: PlotTheme): Partial<Shape>[] {
+  const shapes: Partial<Shape>[] = [];
+  const first = frequencies[0];
+  const last = frequencies[frequencies.length - 1];
+  for (const { requirement, range } of placed) {
+    if (!['corner', 'crossover', 'phase-crossover'].includes(range.measure) || range.value === null) continue;
+    let band: [number, number] | null = null;
+    if (range.op === '=') band = range.tolerance === null ? null : [range.value - range.tolerance, range.value + range.tolerance];
+    else band = range.op === '>=' ? [range.value, last] : [first, range.value];
+    if (!band || !(band[0] > 0) || !(band[1] > band[0])) continue;
+    shapes.push({
+      type: 'rect',
+      layer: 'below',
+      xref: 'x',
+      yref: 'y domain',
+      x0: band[0],
+      x1: band[1],
+      y0: 0,
+      y1: 1,
+      fillcolor: requirement.pass ? theme.pass : theme.fail,
+      opacity: 0.13,
+      line: { width: 0 },
+    });
+  }
+  return shapes;
+}
+
+function escapeHover(text: string): string {
+  return text.replace(/[<>&]/g, (c) => ({ '<': '&lt;', '>': '&gt;', '&': '&amp;' })[c] ?? c);
+}
+
+interface TraceSlot {
+  series: PlotSeries;
+  seriesIndex: number;
+  trace: TraceResult;
+  colour: string;
+}
+
+/** Traces of the kinds a figure draws, with a colour per label shared across series. */
+function slotsOf(series: PlotSeries[], kinds: (kind: TraceResult['kind']) => boolean, theme: PlotTheme): TraceSlot[] {
+  const colours = new Map<string, string>();
+  const slots: TraceSlot[] = [];
+  series.forEach((s, seriesIndex) => {
+    for (const trace of s.result.traces) {
+      if (!kinds(trace.kind)) continue;
+      if (!colours.has(trace.label)) colours.set(trace.label, colourOf(theme, colours.size));
+      slots.push({ series: s, seriesIndex, trace, colour: colours.get(trace.label) as string });
+    }
+  });
+  return slots;
+}
+
+function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme: PlotTheme): Figure | null {
+  const slots = slotsOf(series, kind === 'bode' ? (k) => BODE_KINDS.has(k) : (k) => k === 'impedance', theme);
+  if (slots.length === 0) return null;
+  const primary = series[0].result;
+  const frequencies = primary.frequencies;
+  const data: Partial<ScatterData>[] = [];
+  for (const { series: s, trace, colour } of slots) {
+    const x = finiteOrNull(s.result.frequencies);
+    const customdata = hoverData(s.result.frequencies, trace, kind === 'bode' ? 'dB' : 'linear');
+    const line = { color: colour, width: 2, dash: s.dash ?? 'solid' };
+    const group = `${s.name ?? ''}:${trace.label}`;
+    data.push({
+      type: 'scatter',
+      mode: 'lines',
+      name: legendName(s, trace),
+      legendgroup: group,
+      x,
+      y: finiteOrNull(kind === 'bode' ? trace.magnitudeDb : trace.magnitude),
+      xaxis: 'x',
+      yaxis: 'y',
+      line,
+      customdata,
+      hovertemplate: HOVER,
+    });
+    data.push({
+      type: 'scatter',
+      mode: 'lines',
+      name: legendName(s, trace),
+      legendgroup: group,
+      showlegend: false,
+      x,
+      y: finiteOrNull(trace.phaseDeg),
+      xaxis: 'x',
+      yaxis: 'y2',
+      line: { ...line, width: 1.5 },
+      customdata,
+      hovertemplate: HOVER,
+    });
+  }
+  const placed = placeRequirements(primary).filter((p) => slots.some((s) => s.seriesIndex === 0 && s.trace === p.trace));
+  const magnitudeMeasures = kind === 'bode' ? ['gain'] : ['magnitude'];
+  const limitsOf = (measures: string[]) =>
+    placed.filter((p) => measures.includes(p.range.measure)).flatMap((p) => [p.range.value, p.range.tolerance === null ? null : (p.range.value ?? 0) + p.range.tolerance].filter((v): v is number => v !== null));
+  const magnitudeRange: [number, number] =
+    kind === 'bode' ? decibelRange(slots.map((s) => s.trace.magnitudeDb), limitsOf(['gain'])) : logRange(slots.map((s) => s.trace.magnitude), limitsOf(['magnitude']));
+  const phase = phaseRange(slots.map((s) => s.trace.phaseDeg), limitsOf(['phase']));
+  const magnitudeShading = requirementShapes(placed, magnitudeMeasures, 'y', kind === 'bode' ? magnitudeRange : [10 ** magnitudeRange[0], 10 ** magnitudeRange[1]], frequencies, theme);
+  const phaseShading = requirementShapes(placed, ['phase'], 'y2', phase, frequencies, theme);
+  const primaryColour = (label: string) => slots.find((s) => s.seriesIndex === 0 && s.trace.label === label)?.colour ?? null;
+  const markers = frequencyMarkers(primary.readouts, primaryColour, theme, frequencies);
+  const impedanceMarkers = kind === 'impedance' ? minimumImpedanceMarkers(primary.readouts, primaryColour, theme) : { points: [], annotations: [] };
+  data.push(...magnitudeShading.points, ...phaseShading.points, ...impedanceMarkers.points);
+  const layout: Partial<Layout> = {
+    ...baseLayout(theme),
+    xaxis: frequencyAxis(theme, frequencies, 'y2'),
+    yaxis: {
+      ...axisStyle(theme),
+      domain: [0.42, 1],
+      title: { text: kind === 'bode' ? 'magnitude (dB)' : `magnitude (${slots[0].trace.unit || 'Ω'})` },
+      ...(kind === 'bode' ? { range: magnitudeRange } : { type: 'log' as const, range: magnitudeRange, exponentformat: 'SI' as const }),
+    },
+    yaxis2: { ...axisStyle(theme), domain: [0, 0.34], title: { text: 'phase (°)' }, range: phase, dtick: phaseTick(phase) },
+    shapes: [...frequencyRequirementShapes(placed, frequencies, theme), ...magnitudeShading.shapes, ...phaseShading.shapes, ...markers.shapes],
+    annotations: [...markers.annotations, ...impedanceMarkers.annotations],
+  };
+  return { kind, title: kind === 'bode' ? 'Bode plot' : 'Impedance', data, layout };
+}
+
+/** Log-axis range (in decades) around positive data and limits. */
+function logRange(values: NumberArray[], limits: number[]): [number, number] {
+  const logs = values.map((v) => Array.from(v, (x) => (x > 0 ? Math.log10(x) : NaN)));
+  const range = finiteRange([...logs, limits.filter((l) => l > 0).map((l) => Math.log10(l))]) ?? [0, 3];
+  return [Math.floor(range[0] - 0.2), Math.ceil(range[1] + 0.2)];
+}
+
+function minimumImpedanceMarkers(readouts: Readout[], traceColour: (trace: string) => string | null, theme: PlotTheme) {
+  const points: Partial<ScatterData>[] = [];
+  const annotations: Partial<Annotation>[] = [];
+  for (const readout of readouts) {
+    const colour = traceColour(readout.trace);
+    if (readout.name !== 'min-impedance' || colour === null || readout.at === null || !(readout.value > 0) || !(readout.at > 0)) continue;
+    points.push({ type: 'scatter', mode: 'markers', x: [readout.at], y: [readout.value], xaxis: 'x', yaxis: 'y', showlegend: false, hoverinfo: 'skip', marker: { color: colour, size: 8 } });
+    annotations.push({
+      xref: 'x',
+      yref: 'y',
+      x: Math.log10(readout.at),
+      y: Math.log10(readout.value),
+      yanchor: 'top',
+      yshift: -6,
+      showarrow: false,
+      text: `min ${formatSi(readout.value, 'Ω')} at ${formatSi(readout.at, 'Hz')}`,
+      font: { color: colour, size: 11 },
+      bgcolor: theme.panel,
+    });
+  }
+  return { points, annotations };
+}
+
+function noiseFigure(series: PlotSeries[], theme: PlotTheme): Figure | null {
+  const slots = slotsOf(series, (k) => k === 'noise', theme);
+  if (slots.length === 0) return null;
+  const data: Partial<ScatterData>[] = slots.map(({ series: s, trace, colour }) => ({
+    type: 'scatter',
+    mode: 'lines',
+    name: legendName(s, trace),
+    x: finiteOrNull(s.result.frequencies),
+    y: finiteOrNull(trace.magnitude),
+    line: { color: colour, width: 2, dash: s.dash ?? 'solid' },
+    customdata: Array.from(s.result.frequencies, (f, i) => [formatSi(f, 'Hz'), formatSi(trace.magnitude[i], 'V')]),
+    hovertemplate: '%{customdata[0]}<br>%{customdata[1]}/√Hz<extra>%{fullData.name}</extra>',
+  }));
+  const layout: Partial<Layout> = {
+    ...baseLayout(theme),
+    xaxis: frequencyAxis(theme, series[0].result.frequencies, 'y'),
+    yaxis: { ...axisStyle(theme), type: 'log', title: { text: 'noise density (V/√Hz)' }, exponentformat: 'SI' },
+  };
+  return { kind: 'noise', title: 'Noise density', data, layout };
+}
+
+function stepFigure(series: PlotSeries[], theme: PlotTheme): Figure | null {
+  const data: Partial<ScatterData>[] = [];
+  const colours = new Map<string, string>();
+  for (const s of series) {
+    for (const step of s.result.steps) {
+      if (!colours.has(step.label)) colours.set(step.label, colourOf(theme, colours.size));
+      data.push({
+        type: 'scatter',
+        mode: 'lines',
+        name: s.name ? `${s.name} · ${step.label}` : step.label,
+        x: finiteOrNull(step.times),
+        y: finiteOrNull(step.values),
+        line: { color: colours.get(step.label), width: 2, dash: s.dash ?? 'solid' },
+        customdata: Array.from(step.times, (t, i) => [formatSi(t, 's'), formatSi(step.values[i], '')]),
+        hovertemplate: 't = %{customdata[0]}<br>%{customdata[1]}<extra>%{fullData.name}</extra>',
+      });
+    }
+  }
+  if (data.length === 0) return null;
+  const layout: Partial<Layout> = {
+    ...baseLayout(theme),
+    xaxis: { ...axisStyle(theme), title: { text: 'time (s)' }, exponentformat: 'SI' },
+    yaxis: { ...axisStyle(theme), title: { text: 'step response' } },
+  };
+  return { kind: 'step', title: 'Step response', data, layout };
+}
+
+/** Every figure a Result has something for, in the order a cell shows them. */
+export function figuresFor(series: PlotSeries[], theme: PlotTheme): Figure[] {
+  if (series.length === 0 || series[0].result.frequencies.length === 0) {
+    const steps = series.length > 0 ? stepFigure(series, theme) : null;
+    return steps ? [steps] : [];
+  }
+  return [gainPhaseFigure('bode', series, theme), gainPhaseFigure('impedance', series, theme), noiseFigure(series, theme), stepFigure(series, theme)].filter(
+    (f): f is Figure => f !== null,
+  );
+}

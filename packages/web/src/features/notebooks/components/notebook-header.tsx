@@ -1,0 +1,95 @@
+/**
+ * The top of a notebook page: title, owner and the caller's role, where it was forked from,
+ * and the actions the caller's role allows (Share, Fork, Versions, Delete).
+ */
+import type { Notebook } from '@rolloff/api/contract';
+import { Link } from 'react-router-dom';
+import { Button, buttonClass } from '../../../components/ui/button';
+import { RoleBadge } from '../../../components/ui/role-badge';
+import { exactTime, timeAgo } from '../../../lib/format-time';
+import { appPaths } from '../../../lib/paths';
+import { NotebookTitle } from './notebook-title';
+
+export interface NotebookHeaderProps {
+  notebook: Notebook;
+  onShare: () => void;
+  onFork: () => void;
+  forking: boolean;
+  onDelete: () => void;
+  deleting: boolean;
+}
+
+/** Where a fork came from, linked when the caller may open it. */
+export function ForkOrigin({ notebook }: { notebook: Notebook }) {
+  const origin = notebook.forkedFrom;
+  if (!origin) return null;
+  const version = origin.version ? ` (version ${origin.version.number}, “${origin.version.label}”)` : '';
+  return (
+    <p className="text-sm text-ink-soft" data-testid="forked-from">
+      Forked from{' '}
+      {origin.notebook ? (
+        <Link to={appPaths.notebook(origin.notebook.id)} className="text-accent underline-offset-2 hover:underline">
+          {origin.notebook.title}
+        </Link>
+      ) : (
+        <span>a notebook you cannot open</span>
+      )}
+      {version}
+    </p>
+  );
+}
+
+/** The header of a notebook page. */
+export function NotebookHeader({ notebook, onShare, onFork, forking, onDelete, deleting }: NotebookHeaderProps) {
+  const { permissions } = notebook;
+  return (
+    <header className="space-y-2 border-b border-rule pb-4">
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div className="min-w-0 flex-1 space-y-1">
+          <NotebookTitle notebook={notebook} />
+          <p className="flex flex-wrap items-center gap-2 text-sm text-ink-soft">
+            <span>by {notebook.owner.name || notebook.owner.login}</span>
+            <span aria-hidden>·</span>
+            <span className="flex items-center gap-1" data-testid="my-role">
+              your role <RoleBadge role={notebook.role} />
+            </span>
+            <span aria-hidden>·</span>
+            <span title={exactTime(notebook.updatedAt)}>changed {timeAgo(notebook.updatedAt)}</span>
+            {notebook.visibility === 'link' ? (
+              <>
+                <span aria-hidden>·</span>
+                <span>link sharing on</span>
+              </>
+            ) : null}
+          </p>
+          <ForkOrigin notebook={notebook} />
+        </div>
+        <nav aria-label="Notebook actions" className="flex flex-wrap gap-2">
+          {permissions.share ? (
+            <Button onClick={onShare} data-testid="share">
+              Share
+            </Button>
+          ) : null}
+          {permissions.fork ? (
+            <Button onClick={onFork} disabled={forking} data-testid="fork">
+              {forking ? 'Forking…' : 'Fork'}
+            </Button>
+          ) : null}
+          <Link to={appPaths.versions(notebook.id)} className={buttonClass('secondary')}>
+            Versions
+          </Link>
+          {permissions.delete ? (
+            <Button variant="danger" onClick={onDelete} disabled={deleting}>
+              Delete
+            </Button>
+          ) : null}
+        </nav>
+      </div>
+      {!permissions.edit ? (
+        <p className="rounded-md bg-sunken px-3 py-1.5 text-sm text-ink-soft" data-testid="read-only-note">
+          You can read this notebook{permissions.fork ? ' and fork it to try changes of your own' : ''}; your role does not allow editing it.
+        </p>
+      ) : null}
+    </header>
+  );
+}
