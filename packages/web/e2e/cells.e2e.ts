@@ -36,7 +36,7 @@ describe('working with cells', () => {
     await cellAt(page, 0).and(page.locator('[data-kind="note"]')).waitFor();
     await page.getByRole('button', { name: 'Delete Note cell 1' }).click();
     await page.getByRole('button', { name: 'Undo' }).waitFor();
-    expect(await page.locator('[data-kind="note"]').count()).toBe(0);
+    await expect.poll(() => page.locator('[data-kind="note"]').count(), { timeout: 15_000 }).toBe(0);
     await page.getByRole('button', { name: 'Undo' }).click();
     await cellAt(page, 0).getByRole('heading', { name: 'Loop goals' }).waitFor();
     await screenshot(page, 'cells-note-moved-restored');
@@ -64,8 +64,8 @@ describe('working with cells', () => {
     const editor = page.getByTestId('version-cells').locator('.cm-content').first();
     await editor.waitFor();
     expect(await editor.getAttribute('contenteditable')).toBe('false');
-    expect(await page.getByTestId('version-cells').getByRole('heading', { name: 'Loop goals' }).count()).toBe(1);
-    expect(await page.getByRole('button', { name: 'Fork from this version' }).count()).toBe(1);
+    await expect.poll(() => page.getByTestId('version-cells').getByRole('heading', { name: 'Loop goals' }).count(), { timeout: 15_000 }).toBe(1);
+    await expect.poll(() => page.getByRole('button', { name: 'Fork from this version' }).count(), { timeout: 15_000 }).toBe(1);
     await screenshot(page, 'version-read-only');
     await page.goto(`${baseUrl}/notebooks/${notebookId}`);
   });

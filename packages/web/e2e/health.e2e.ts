@@ -29,6 +29,8 @@ describe('the home page served by the API', () => {
     expect(fonts).toBe(true);
     expect(failed).toEqual([]);
     expect(elsewhere).toEqual([]);
+    // The landing page's example is a real plot, solved in the browser.
+    await page.getByTestId('plot-bode').locator('.main-svg').first().waitFor({ timeout: 30_000 });
     await screenshot(page, 'home');
   });
 });

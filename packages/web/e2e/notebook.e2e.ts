@@ -38,7 +38,7 @@ describe('a designer’s notebook, in the browser against the real server', () =
     expect(Number(await corner.getAttribute('data-value'))).toBeLessThan(1020);
     expect(await corner.textContent()).toContain('kHz');
     const requirements = cellAt(page, 0).getByTestId('requirement');
-    expect(await requirements.count()).toBe(3);
+    await expect.poll(() => requirements.count(), { timeout: 15_000 }).toBe(3);
     expect(await requirements.evaluateAll((items) => items.map((item) => item.getAttribute('data-pass')))).toEqual(['true', 'true', 'true']);
     await cellAt(page, 0).getByTestId('plot-bode').locator('.main-svg').first().waitFor({ timeout: 30_000 });
     expect(await waitSaved(page, 0)).toBeGreaterThanOrEqual(2);
@@ -52,7 +52,7 @@ describe('a designer’s notebook, in the browser against the real server', () =
     await diagnostic.waitFor({ timeout: 20_000 });
     expect(await diagnostic.getAttribute('data-severity')).toBe('error');
     expect(((await diagnostic.textContent()) ?? '').length).toBeGreaterThan(10);
-    expect(await cellAt(page, 0).locator('.cm-lintRange-error').count()).toBeGreaterThan(0);
+    await expect.poll(() => cellAt(page, 0).locator('.cm-lintRange-error').count(), { timeout: 15_000 }).toBeGreaterThan(0);
     await waitSaved(page, 0);
     await screenshot(page, 'broken-line-diagnostic');
   });
