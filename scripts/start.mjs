@@ -7,11 +7,14 @@ import { fail, info, ok, runMain, step, warn } from './lib/log.mjs';
 import { requireFreePort, waitForPort } from './lib/ports.mjs';
 import { apiDist, installAndBuild, migrate, root, seedDemoData, startDatabase } from './lib/prepare.mjs';
 import { startService } from './lib/run.mjs';
+import { requireMailStandinPorts, startMail } from './lib/mail.mjs';
 import { defaultAdminLogins, requireStandinPort, sessionSecret, startSignIn } from './lib/sign-in.mjs';
 
 const apiPort = Number(process.env.API_PORT ?? 4410);
 const dbPort = Number(process.env.DB_PORT ?? 3407);
 const oauthPort = Number(process.env.OAUTH_STANDIN_PORT ?? 4411);
+const smtpPort = Number(process.env.SMTP_STANDIN_PORT ?? 4412);
+const mailboxPort = Number(process.env.SMTP_STANDIN_HTTP_PORT ?? 4413);
 const publicUrl = process.env.PUBLIC_URL ?? `http://127.0.0.1:${apiPort}`;
 
 await runMain(async () => {
@@ -19,6 +22,7 @@ await runMain(async () => {
   process.on('exit', release);
   await requireFreePort(apiPort, 'the Rolloff server', 'API_PORT');
   await requireStandinPort(oauthPort, 'OAUTH_STANDIN_PORT');
+  await requireMailStandinPorts(smtpPort, mailboxPort, 'SMTP_STANDIN_PORT', 'SMTP_STANDIN_HTTP_PORT');
   if (!process.env.DATABASE_URL) await ensureMariadbInstalled();
   await installAndBuild();
 
@@ -53,7 +57,17 @@ await runMain(async () => {
         }
       });
     }
-    Object.assign(env, signIn.env, {
+    const mail = await startMail(smtpPort, mailboxPort);
+    if (mail.service) {
+      services.push(mail.service);
+      mail.service.exited.then(({ code }) => {
+        if (!stopping) {
+          warn(`The mail stand-in stopped unexpectedly (exit ${code}).`);
+          void stopAndExit(1);
+        }
+      });
+    }
+    Object.assign(env, signIn.env, mail.env, {
       PUBLIC_URL: publicUrl,
       SESSION_SECRET: sessionSecret(),
       ADMIN_LOGINS: process.env.ADMIN_LOGINS ?? defaultAdminLogins,
@@ -71,6 +85,7 @@ await runMain(async () => {
     if (!(await waitForPort(apiPort, 20_000))) fail('The server did not start listening within 20 s.');
     ok(`Rolloff is running: open ${publicUrl}/  (Ctrl-C stops it)`);
     if (signIn.service) info('Sign in with the local stand-in: pick one of the demo team, or type a new login.');
+    if (mail.service) info(`E-mail goes to the local mail stand-in: read it at ${publicUrl}/dev/mail`);
   } catch (error) {
     await shutdown();
     throw error;

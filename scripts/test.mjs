@@ -10,11 +10,14 @@ import { fail, info, runMain, step } from './lib/log.mjs';
 import { requireFreePort, waitForPort } from './lib/ports.mjs';
 import { apiDist, installAndBuild, migrate, root, seedDemoData, startDatabase } from './lib/prepare.mjs';
 import { run, startService } from './lib/run.mjs';
+import { requireMailStandinPorts, startMail } from './lib/mail.mjs';
 import { defaultAdminLogins, requireStandinPort, startSignIn } from './lib/sign-in.mjs';
 
 const apiPort = Number(process.env.TEST_API_PORT ?? 4420);
 const dbPort = Number(process.env.TEST_DB_PORT ?? 3417);
 const oauthPort = Number(process.env.TEST_OAUTH_STANDIN_PORT ?? 4421);
+const smtpPort = Number(process.env.TEST_SMTP_STANDIN_PORT ?? 4422);
+const mailboxPort = Number(process.env.TEST_SMTP_STANDIN_HTTP_PORT ?? 4423);
 const resultsDir = path.join(root, '.test-results');
 const suites = [
   { name: 'solver', file: 'solver.json' },
@@ -38,6 +41,8 @@ await runMain(async () => {
   process.on('exit', release);
   await requireFreePort(apiPort, 'the test server', 'TEST_API_PORT');
   await requireStandinPort(oauthPort, 'TEST_OAUTH_STANDIN_PORT');
+  // The end-to-end tests read what was sent, so `npm test` always runs its own mail stand-in.
+  await requireMailStandinPorts(smtpPort, mailboxPort, 'TEST_SMTP_STANDIN_PORT', 'TEST_SMTP_STANDIN_HTTP_PORT', { always: true });
   if (!process.env.DATABASE_URL) await ensureMariadbInstalled();
   await ensureDebianPackages({ chromium: 'chromium' }, 'the end-to-end tests');
   await installAndBuild();
@@ -81,9 +86,12 @@ await runMain(async () => {
     step('End-to-end tests in headless Chromium');
     const signIn = await startSignIn(oauthPort);
     if (signIn.service) services.push(signIn.service);
+    const mail = await startMail(smtpPort, mailboxPort, { always: true });
+    services.push(mail.service);
     const serverEnv = {
       ...env,
       ...signIn.env,
+      ...mail.env,
       NODE_ENV: 'production',
       API_PORT: String(apiPort),
       PUBLIC_URL: `http://127.0.0.1:${apiPort}`,
@@ -94,7 +102,13 @@ await runMain(async () => {
     if (!(await waitForPort(apiPort, 20_000))) fail('The test server did not start listening within 20 s.');
     await run('npx', ['vitest', 'run', '--config', 'vitest.e2e.config.ts'], {
       cwd: path.join(root, 'packages/web'),
-      env: { ...env, ...signIn.env, E2E_BASE_URL: `http://127.0.0.1:${apiPort}`, SCREENSHOT_DIR: path.join(root, 'test-output/screenshots') },
+      env: {
+        ...env,
+        ...signIn.env,
+        E2E_BASE_URL: `http://127.0.0.1:${apiPort}`,
+        MAIL_STANDIN_URL: mail.env.MAIL_STANDIN_URL,
+        SCREENSHOT_DIR: path.join(root, 'test-output/screenshots'),
+      },
     });
   } finally {
     for (const service of services.reverse()) await service.stop();

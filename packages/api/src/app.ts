@@ -1,6 +1,7 @@
 /**
- * The Express application: sign-in under /auth, the JSON API under /api, and in production
- * the built web app with a fallback to index.html for the client-side routes.
+ * The Express application: sign-in under /auth, the JSON API under /api, the development
+ * mailbox at /dev/mail when the SMTP stand-in is in use, and in production the built web app
+ * with a fallback to index.html for the client-side routes.
  */
 import { existsSync } from 'node:fs';
 import path from 'node:path';
@@ -8,15 +9,19 @@ import express from 'express';
 import type { Express } from 'express';
 import { csrfCheck, csrfCookie } from './auth/csrf.js';
 import { createAuth } from './auth/setup.js';
-import { authConfig } from './config.js';
+import { authConfig, mailConfig } from './config.js';
 import type { AuthConfig } from './config.js';
 import { connect } from './db/connection.js';
 import { errorMiddleware, unknownRoute } from './errors.js';
+import { createNotifier } from './mail/notifier.js';
+import type { AppMail, Notifier } from './mail/notifier.js';
 import { adminRouter } from './routes/admin/router.js';
 import { authRouter } from './routes/auth/router.js';
+import { devMailRouter } from './routes/dev-mail/router.js';
 import { healthRouter } from './routes/health/router.js';
 import { meRouter } from './routes/me/router.js';
 import { notebooksRouter } from './routes/notebooks/router.js';
+import { settingsRouter } from './routes/settings/router.js';
 import { usersRouter } from './routes/users/router.js';
 
 export interface AppOptions {
@@ -24,12 +29,18 @@ export interface AppOptions {
   webDist: string | null;
   /** Sign-in settings; by default read from the environment (see config.ts). */
   auth?: AuthConfig;
+  /** Sends the e-mails; by default one on the SMTP server of the environment (see config.ts). */
+  notifier?: Notifier;
+  /** The SMTP stand-in's HTTP mailbox to show at /dev/mail; by default MAIL_STANDIN_URL; null: none. */
+  mailStandinUrl?: string | null;
 }
 
-export function createApp({ webDist, auth: settings = authConfig() }: AppOptions): Express {
+export function createApp({ webDist, auth: settings = authConfig(), notifier, mailStandinUrl = mailConfig().standinUrl }: AppOptions): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
+  const mail: AppMail = { notifier: notifier ?? createNotifier({ smtp: mailConfig(), database: connect }), publicUrl: settings.publicUrl };
+  app.locals.mail = mail;
   app.use(csrfCookie);
 
   // Health answers without a session, so it works while MariaDB is down.
@@ -45,12 +56,15 @@ export function createApp({ webDist, auth: settings = authConfig() }: AppOptions
   api.use(checkCsrf);
   // Cell text is capped at 64 KiB by the schemas; the body limit leaves room for JSON escapes.
   api.use(express.json({ limit: '1mb' }));
+  api.use('/me/settings', settingsRouter);
   api.use('/me', meRouter);
   api.use('/users', usersRouter);
   api.use('/admin', adminRouter);
   api.use('/notebooks', notebooksRouter);
   api.use(unknownRoute);
   app.use('/api', api);
+
+  if (mailStandinUrl) app.use('/dev/mail', devMailRouter(mailStandinUrl));
 
   if (webDist && existsSync(path.join(webDist, 'index.html'))) {
     app.use(express.static(webDist, { index: false, maxAge: '1h' }));

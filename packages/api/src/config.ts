@@ -136,3 +136,24 @@ export function authConfig(env: NodeJS.ProcessEnv = process.env): AuthConfig {
       .filter(Boolean),
   };
 }
+
+/** Outgoing e-mail: the SMTP server, the sender, and the stand-in's mailbox in development. */
+export interface MailConfig {
+  host: string;
+  port: number;
+  from: string;
+  /** The stand-in's HTTP mailbox (`MAIL_STANDIN_URL`); when set, the server shows it at /dev/mail. */
+  standinUrl: string | null;
+}
+
+/** The SMTP stand-in that `npm start` runs, unless SMTP_HOST/SMTP_PORT name another server. */
+export const standinSmtp = { host: '127.0.0.1', port: 4412 } as const;
+
+export function mailConfig(env: NodeJS.ProcessEnv = process.env): MailConfig {
+  return {
+    host: env.SMTP_HOST || standinSmtp.host,
+    port: Number(env.SMTP_PORT || standinSmtp.port),
+    from: env.MAIL_FROM || 'Rolloff <rolloff@localhost>',
+    standinUrl: env.MAIL_STANDIN_URL ? env.MAIL_STANDIN_URL.replace(/\/+$/, '') : null,
+  };
+}

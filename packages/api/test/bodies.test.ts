@@ -87,9 +87,22 @@ describe('bodies the API cannot use', () => {
       ['POST', `/api/notebooks/${notebook.id}/forks`, '{"version": "latest"}'],
       ['PATCH', `/api/notebooks/${notebook.id}`, '{"visibility": "public"}'],
       ['PATCH', '/api/admin/users/1', '{"disabled": "yes"}'],
+      ['POST', `/api/notebooks/${notebook.id}/pins`, '{"cellId": "1", "trace": "out", "frequency": 1000, "body": "x"}'],
+      ['POST', `/api/notebooks/${notebook.id}/pins`, '{"cellId": 1, "trace": ["out"], "frequency": null, "body": {"text": "x"}}'],
+      ['POST', `/api/notebooks/${notebook.id}/pins`, '{"cellId": 1e30, "trace": "out", "frequency": 1000, "body": "x"}'],
+      ['POST', `/api/notebooks/${notebook.id}/pins/1.5/comments`, '{"body": "x"}'],
+      ['POST', `/api/notebooks/${notebook.id}/pins/99999999999/resolve`, '{}'],
+      ['GET', `/api/notebooks/${notebook.id}/pins?cellId=-1`, ''],
+      ['POST', `/api/notebooks/${notebook.id}/reviews`, '{"reviewerIds": "everyone"}'],
+      ['POST', `/api/notebooks/${notebook.id}/reviews`, '{"reviewerIds": [1e30], "versionNumber": -1}'],
+      ['POST', `/api/notebooks/${notebook.id}/reviews/abc/decision`, '{"state": "signed_off"}'],
+      ['POST', `/api/notebooks/${notebook.id}/reviews/1/decision`, '{"state": null, "summary": 5}'],
+      ['GET', `/api/notebooks/${notebook.id}/activity?limit=1000&cursor[]=x`, ''],
+      ['PATCH', '/api/me/settings', '{"mail": {"pinReplies": 1}}'],
+      ['PATCH', '/api/me/settings', '{"mail": null}'],
     ] as const;
     for (const [method, path, raw] of odd) {
-      const reply = await client.request<ErrorReply>(method, path, undefined, { raw });
+      const reply = await client.request<ErrorReply>(method, path, undefined, raw ? { raw } : {});
       expect(reply.status, `${method} ${path} ${raw}`).toBeGreaterThanOrEqual(400);
       expect(reply.status, `${method} ${path} ${raw}`).toBeLessThan(500);
       expect(typeof reply.body.message).toBe('string');

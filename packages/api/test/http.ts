@@ -1,18 +1,30 @@
 /**
  * Starts the real Express app on an ephemeral loopback port for a test file, with its own
- * OAuth stand-in (also on an ephemeral port) for sign-in.
+ * OAuth stand-in for sign-in and its own SMTP stand-in for mail (both on ephemeral ports).
  */
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { createApp } from '../src/app.js';
 import { oauthConfig } from '../src/config.js';
 import type { AuthConfig } from '../src/config.js';
+import { connect } from '../src/db/connection.js';
+import { createNotifier } from '../src/mail/notifier.js';
+import type { Notifier } from '../src/mail/notifier.js';
 import { createOAuthStandin } from '../src/standins/oauth/standin.js';
 import type { OAuthStandin } from '../src/standins/oauth/standin.js';
+import { createSmtpStandin } from '../src/standins/smtp/mailbox.js';
+import type { SmtpStandin, StoredMessage } from '../src/standins/smtp/mailbox.js';
 
 export interface TestServer {
   url: string;
   standin: OAuthStandin;
+  smtp: SmtpStandin;
+  notifier: Notifier;
+  /**
+   * Waits until every e-mail the app started is delivered (or given up on) and logged, then
+   * reads the SMTP stand-in's mailbox over HTTP, newest first.
+   */
+  mailbox(): Promise<StoredMessage[]>;
   close(): Promise<void>;
 }
 
@@ -20,6 +32,12 @@ export interface TestServerOptions {
   webDist?: string | null;
   /** Changes to the sign-in settings the test server gets by default. */
   auth?: Partial<AuthConfig>;
+  /** Mail goes to this SMTP port instead of the test's stand-in (a dead port, to see failures). */
+  smtpPort?: number;
+  /** Waits between delivery attempts, in ms (short by default, so failures finish quickly). */
+  retryDelays?: number[];
+  /** Show the stand-in's mailbox at /dev/mail, as the server does with MAIL_STANDIN_URL. */
+  devMail?: boolean;
 }
 
 /** The demo admin is an admin in tests too, as `npm start` makes them by default. */
@@ -27,6 +45,7 @@ export const testAdminLogins = ['mara.lindqvist'];
 
 export async function startTestServer(options: TestServerOptions = {}): Promise<TestServer> {
   const standin = await createOAuthStandin();
+  const smtp = await createSmtpStandin();
   const auth: AuthConfig = {
     oauth: oauthConfig({ OAUTH_BASE_URL: standin.url }),
     publicUrl: null,
@@ -34,7 +53,13 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     adminLogins: testAdminLogins,
     ...options.auth,
   };
-  const app = createApp({ webDist: options.webDist ?? null, auth });
+  const notifier = createNotifier({
+    smtp: { host: '127.0.0.1', port: options.smtpPort ?? smtp.smtpPort, from: 'Rolloff <rolloff@example.com>' },
+    database: connect,
+    retryDelays: options.retryDelays ?? [10, 10],
+  });
+  const mailboxUrl = `http://127.0.0.1:${smtp.httpPort}`;
+  const app = createApp({ webDist: options.webDist ?? null, auth, notifier, mailStandinUrl: options.devMail ? mailboxUrl : null });
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });
@@ -42,12 +67,22 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
   return {
     url: `http://127.0.0.1:${port}`,
     standin,
+    smtp,
+    notifier,
+    mailbox: async () => {
+      await notifier.idle();
+      const reply = await fetch(`${mailboxUrl}/messages`);
+      return ((await reply.json()) as { messages: StoredMessage[] }).messages;
+    },
     close: async () => {
       await new Promise<void>((resolve) => {
         server.closeAllConnections();
         server.close(() => resolve());
       });
+      await notifier.idle();
+      notifier.close();
       await standin.close();
+      await smtp.close();
     },
   };
 }

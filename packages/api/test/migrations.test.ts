@@ -28,6 +28,13 @@ describe('the migrations', () => {
         'cell_revisions',
         'notebook_versions',
         'notebook_version_cells',
+        'reviews',
+        'review_assignments',
+        'review_decisions',
+        'pins',
+        'pin_comments',
+        'user_mail_settings',
+        'mail_log',
       ]),
     );
   });
@@ -58,6 +65,24 @@ describe('the migrations', () => {
         'notebooks.forkedFromVersionId -> notebook_versions.id SET NULL',
         'notebooks.ownerId -> users.id RESTRICT',
         'sessions.userId -> users.id CASCADE',
+        'reviews.notebookId -> notebooks.id CASCADE',
+        'reviews.versionId -> notebook_versions.id CASCADE',
+        'reviews.requestedById -> users.id SET NULL',
+        'review_assignments.reviewId -> reviews.id CASCADE',
+        'review_assignments.reviewerId -> users.id CASCADE',
+        'review_decisions.reviewId -> reviews.id CASCADE',
+        'review_decisions.reviewerId -> users.id SET NULL',
+        'pins.notebookId -> notebooks.id CASCADE',
+        // One key on two columns: a pin names a revision of its own cell.
+        'pins.cellId -> cell_revisions.cellId CASCADE',
+        'pins.revisionNumber -> cell_revisions.number CASCADE',
+        'pins.createdById -> users.id SET NULL',
+        'pins.resolvedById -> users.id SET NULL',
+        'pin_comments.pinId -> pins.id CASCADE',
+        'pin_comments.authorId -> users.id SET NULL',
+        'user_mail_settings.userId -> users.id CASCADE',
+        'mail_log.userId -> users.id SET NULL',
+        'mail_log.notebookId -> notebooks.id SET NULL',
       ].sort(),
     );
   });
@@ -88,6 +113,47 @@ describe('the migrations', () => {
     expect(Number(index('users', 'login')?.nonUnique)).toBe(0);
     expect(index('sessions', 'userId')).toBeDefined();
     expect(index('sessions', 'expiresAt')).toBeDefined();
+    // a notebook's review rounds by number (unique), newest first in the timeline; a round's people and history
+    expect(Number(index('reviews', 'notebookId,round')?.nonUnique)).toBe(0);
+    expect(index('reviews', 'notebookId,createdAt')).toBeDefined();
+    expect(index('review_assignments', 'reviewId,reviewerId')).toMatchObject({ indexName: 'PRIMARY' });
+    expect(index('review_decisions', 'reviewId,createdAt')).toBeDefined();
+    // a notebook's pins (all, or one cell's), a pin's thread in order
+    expect(index('pins', 'notebookId,cellId,createdAt')).toBeDefined();
+    expect(index('pins', 'notebookId,createdAt')).toBeDefined();
+    expect(index('pin_comments', 'pinId,createdAt')).toBeDefined();
+    // one row of mail settings per person; the mail log newest first and by status
+    expect(index('user_mail_settings', 'userId')).toMatchObject({ indexName: 'PRIMARY' });
+    expect(index('mail_log', 'createdAt')).toBeDefined();
+    expect(index('mail_log', 'status,createdAt')).toBeDefined();
+  });
+
+  it('refuse what the API never writes: a pin at 0 Hz, on a revision its cell does not have, an unknown review state', async () => {
+    const { db } = scratch;
+    await db.query("INSERT INTO users (login, name) VALUES ('schema-check', 'Schema Check')");
+    const [user] = await db.query("SELECT id FROM users WHERE login = 'schema-check'");
+    const now = new Date();
+    await db.query('INSERT INTO notebooks (id, title, ownerId, createdAt, updatedAt) VALUES (?, ?, ?, ?, ?)', ['schemacheck1', 'Schema check', user.id, now, now]);
+    await db.query("INSERT INTO cells (notebookId, kind, position, revision, createdAt, updatedAt) VALUES ('schemacheck1', 'circuit', 0, 1, ?, ?)", [now, now]);
+    const [cell] = await db.query("SELECT id FROM cells WHERE notebookId = 'schemacheck1'");
+    await db.query("INSERT INTO cell_revisions (cellId, number, text, createdAt) VALUES (?, 1, 'R1 [in out] 1k', ?)", [cell.id, now]);
+    const pin = (revision: number, frequency: number) =>
+      db.query("INSERT INTO pins (notebookId, cellId, revisionNumber, trace, frequency, createdAt) VALUES ('schemacheck1', ?, ?, 'out', ?, ?)", [cell.id, revision, frequency, now]);
+    await expect(pin(1, 0)).rejects.toThrow(/chk_pins_frequency/);
+    await expect(pin(2, 1000)).rejects.toThrow(/fk_pins_revision/);
+    await pin(1, 1591.5);
+    await db.query("INSERT INTO notebook_versions (notebookId, number, label, createdAt) VALUES ('schemacheck1', 1, 'v1', ?)", [now]);
+    const [version] = await db.query("SELECT id FROM notebook_versions WHERE notebookId = 'schemacheck1'");
+    await db.query("INSERT INTO reviews (notebookId, round, versionId, message, createdAt) VALUES ('schemacheck1', 1, ?, '', ?)", [version.id, now]);
+    const [review] = await db.query("SELECT id FROM reviews WHERE notebookId = 'schemacheck1'");
+    await expect(
+      db.query("INSERT INTO review_assignments (reviewId, reviewerId, state, summary, createdAt) VALUES (?, ?, 'approved', '', ?)", [review.id, user.id, now]),
+    ).rejects.toThrow(/chk_review_assignments_state/);
+    // Deleting the notebook takes its reviews and pins with it.
+    await db.query("DELETE FROM notebooks WHERE id = 'schemacheck1'");
+    expect(await db.query("SELECT id FROM pins WHERE notebookId = 'schemacheck1'")).toEqual([]);
+    expect(await db.query("SELECT id FROM reviews WHERE notebookId = 'schemacheck1'")).toEqual([]);
+    await db.query("DELETE FROM users WHERE login = 'schema-check'");
   });
 
   it('plan the notebook list with the owner index rather than a table scan', async () => {
@@ -95,6 +161,14 @@ describe('the migrations', () => {
       `EXPLAIN SELECT id FROM notebooks WHERE ownerId = 1 AND deletedAt IS NULL ORDER BY updatedAt DESC, id DESC LIMIT 21`,
     );
     expect(plan[0]!.key).toBe('idx_notebooks_owner_changed');
+    expect(plan[0]!.type).not.toBe('ALL');
+  });
+
+  it('plan a cell\'s pins with the pins index rather than a table scan', async () => {
+    const plan: { key: string | null; type: string }[] = await scratch.db.query(
+      `EXPLAIN SELECT id FROM pins WHERE notebookId = 'AAAAAAAAAAAA' AND cellId = 1 ORDER BY createdAt, id`,
+    );
+    expect(plan[0]!.key).toBe('idx_pins_notebook_cell');
     expect(plan[0]!.type).not.toBe('ALL');
   });
 

@@ -4,6 +4,7 @@
  *
  * | action                                        | viewer | reviewer | editor | owner | site admin |
  * | read notebook, fork it                        |   ✓    |    ✓     |   ✓    |   ✓   |     ✓      |
+ * | pin / comment / sign off a review             |        |    ✓     |   ✓    |   ✓   |            |
  * | edit cells, make versions                     |        |          |   ✓    |   ✓   |            |
  * | share, change roles, delete notebook          |        |          |        |   ✓   |            |
  * A link-shared notebook makes any signed-in user a viewer. No access at all → 404.
@@ -13,19 +14,22 @@ import { connect, disconnect } from '../src/db/connection.js';
 import type { User } from '../src/db/entities/user.js';
 import { deleteCell } from '../src/services/cells.js';
 import { deleteNotebook } from '../src/services/notebooks.js';
+import { createPin } from '../src/services/pins.js';
+import { requestReview } from '../src/services/reviews.js';
 import { Client, signedIn } from './client.js';
 import { buildNotebook, buildUser } from './factories.js';
 import { startTestServer } from './http.js';
 import type { TestServer } from './http.js';
 
 type Role = 'owner' | 'editor' | 'reviewer' | 'viewer' | 'link viewer' | 'site admin' | 'stranger' | 'signed out';
-type Action = 'read' | 'fork' | 'edit' | 'share' | 'delete';
+type Action = 'read' | 'fork' | 'review' | 'edit' | 'share' | 'delete';
 
 const roles: Role[] = ['owner', 'editor', 'reviewer', 'viewer', 'link viewer', 'site admin', 'stranger', 'signed out'];
 
 const granted: Record<Action, Role[]> = {
   read: ['viewer', 'reviewer', 'editor', 'owner', 'site admin', 'link viewer'],
   fork: ['viewer', 'reviewer', 'editor', 'owner', 'site admin', 'link viewer'],
+  review: ['reviewer', 'editor', 'owner'],
   edit: ['editor', 'owner'],
   share: ['owner'],
   delete: ['owner'],
@@ -47,11 +51,22 @@ interface RouteCase {
 interface People {
   newcomer: User;
   viewer: User;
+  reviewer: User;
 }
 
 const cell = (notebook: Notebook) => notebook.cells[1]!;
 const base = (notebook: Notebook) => `/api/notebooks/${notebook.id}`;
 const actorOf = (user: User) => ({ id: user.id, siteRole: user.siteRole, disabled: user.disabled });
+/** The pin or review round a route case made in `prepare`, by notebook. */
+const made = new Map<string, number>();
+const makePin = async (n: Notebook, owner: User) => {
+  const pin = await createPin(await connect(), actorOf(owner), n.id, { cellId: cell(n).id, trace: 'out', frequency: 1000, body: 'Corner?' });
+  made.set(n.id, pin.id);
+};
+const makeReview = async (n: Notebook, owner: User) => {
+  const { review } = await requestReview(await connect(), actorOf(owner), n.id, { reviewerIds: [users.get('reviewer')!.id], message: '' });
+  made.set(n.id, review.id);
+};
 
 const routes: RouteCase[] = [
   { route: 'GET /notebooks/:id', action: 'read', ok: 200, call: (c, n) => c.get(base(n)) },
@@ -71,6 +86,19 @@ const routes: RouteCase[] = [
   { route: 'GET …/forks', action: 'read', ok: 200, call: (c, n) => c.get(`${base(n)}/forks`) },
   { route: 'GET …/members', action: 'read', ok: 200, call: (c, n) => c.get(`${base(n)}/members`) },
   { route: 'POST …/forks', action: 'fork', ok: 201, call: (c, n) => c.post(`${base(n)}/forks`, {}) },
+  { route: 'GET …/pins', action: 'read', ok: 200, call: (c, n) => c.get(`${base(n)}/pins`) },
+  { route: 'GET …/reviews', action: 'read', ok: 200, call: (c, n) => c.get(`${base(n)}/reviews`) },
+  { route: 'GET …/reviews/:reviewId', action: 'read', ok: 200, prepare: makeReview, call: (c, n) => c.get(`${base(n)}/reviews/${made.get(n.id)}`) },
+  { route: 'GET …/activity', action: 'read', ok: 200, call: (c, n) => c.get(`${base(n)}/activity`) },
+  {
+    route: 'POST …/pins',
+    action: 'review',
+    ok: 201,
+    call: (c, n) => c.post(`${base(n)}/pins`, { cellId: cell(n).id, trace: 'out', frequency: 1591.5, body: 'Corner here?' }),
+  },
+  { route: 'POST …/pins/:pinId/comments', action: 'review', ok: 201, prepare: makePin, call: (c, n) => c.post(`${base(n)}/pins/${made.get(n.id)}/comments`, { body: 'Agreed.' }) },
+  { route: 'POST …/pins/:pinId/resolve', action: 'review', ok: 200, prepare: makePin, call: (c, n) => c.post(`${base(n)}/pins/${made.get(n.id)}/resolve`) },
+  { route: 'POST …/pins/:pinId/reopen', action: 'review', ok: 200, prepare: makePin, call: (c, n) => c.post(`${base(n)}/pins/${made.get(n.id)}/reopen`) },
   { route: 'PATCH /notebooks/:id (title)', action: 'edit', ok: 200, call: (c, n) => c.patch(base(n), { title: 'Renamed' }) },
   { route: 'POST …/cells', action: 'edit', ok: 201, call: (c, n) => c.post(`${base(n)}/cells`, { kind: 'note', text: 'added' }) },
   { route: 'PUT …/cells/:cellId', action: 'edit', ok: 201, call: (c, n) => c.put(`${base(n)}/cells/${cell(n).id}`, { text: `${cell(n).text}# edit\n`, baseRevision: 1 }) },
@@ -86,6 +114,8 @@ const routes: RouteCase[] = [
     call: (c, n) => c.post(`${base(n)}/cells/${cell(n).id}/restore`),
   },
   { route: 'POST …/versions', action: 'edit', ok: 201, call: (c, n) => c.post(`${base(n)}/versions`, { label: 'Review copy' }) },
+  // Asking for a review makes a version, so it takes `edit`; the reviewer is asked, never the caller.
+  { route: 'POST …/reviews', action: 'edit', ok: 201, call: (c, n, p) => c.post(`${base(n)}/reviews`, { reviewerIds: [p.reviewer.id] }) },
   { route: 'PATCH /notebooks/:id (visibility)', action: 'share', ok: 200, call: (c, n) => c.patch(base(n), { visibility: 'link' }) },
   { route: 'PUT …/members/:userId', action: 'share', ok: 201, call: (c, n, p) => c.put(`${base(n)}/members/${p.newcomer.id}`, { role: 'viewer' }) },
   { route: 'DELETE …/members/:userId', action: 'share', ok: 204, call: (c, n, p) => c.delete(`${base(n)}/members/${p.viewer.id}`) },
@@ -144,7 +174,7 @@ describe('the role table, every route × every role', () => {
           });
           await route.prepare?.(notebook, owner);
           if (route.deleted) await deleteNotebook(await connect(), actorOf(owner), notebook.id);
-          const reply = await route.call(clients.get(role)!, notebook, { newcomer: await buildUser(), viewer });
+          const reply = await route.call(clients.get(role)!, notebook, { newcomer: await buildUser(), viewer, reviewer: users.get('reviewer')! });
           expect(reply.status, JSON.stringify(reply.body)).toBe(status);
           if (status === 404) expect(reply.body).toMatchObject({ error: 'not_found', message: 'The notebook was not found.' });
           if (status === 403) expect(reply.body).toMatchObject({ error: 'forbidden' });

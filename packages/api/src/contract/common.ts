@@ -22,6 +22,12 @@ export const LIMITS = {
   /** Default and largest page of a paged list. */
   pageSize: 20,
   maxPageSize: 100,
+  /** A comment on a pin, a review request's message or a reviewer's summary, in characters. */
+  markdownLength: 10_000,
+  /** The label of the trace a pin points at, in characters. */
+  traceLabelLength: 100,
+  /** People asked in one review request. */
+  reviewersPerRequest: 20,
 } as const;
 
 export const ErrorIdSchema = z.enum([
@@ -110,6 +116,15 @@ export const CellTextSchema = z.string().refine((text) => utf8Length(text) <= LI
   message: `A cell holds at most ${LIMITS.cellTextBytes / 1024} KiB of text.`,
   params: { [TOO_LARGE_PARAM]: true },
 });
+
+/**
+ * Markdown written by a person (a comment, a review message or summary): trimmed, at most
+ * 10 000 characters. Stored and sent as written; the web renders it without raw HTML.
+ */
+export const MarkdownSchema = z
+  .string()
+  .trim()
+  .max(LIMITS.markdownLength, `Markdown text has at most ${LIMITS.markdownLength} characters.`);
 
 /** Query of a paged list: `cursor` is opaque (the previous page's `nextCursor`). */
 export const PageQuerySchema = z.object({

@@ -16,6 +16,17 @@
  * - `GET /api/notebooks/:id/members`, `PUT|DELETE /api/notebooks/:id/members/:userId`.
  * - `GET /api/users?q=` (people to share with); admins: `GET /api/admin/users`,
  *   `PATCH /api/admin/users/:userId`.
+ * - `POST|GET /api/notebooks/:id/reviews`, `GET …/reviews/:reviewId`,
+ *   `POST …/reviews/:reviewId/decision`.
+ * - `GET|POST /api/notebooks/:id/pins`, `POST …/pins/:pinId/comments`,
+ *   `POST …/pins/:pinId/resolve`, `POST …/pins/:pinId/reopen`.
+ * - `GET /api/notebooks/:id/activity` (the timeline, paged).
+ * - `GET|PATCH /api/me/settings` (which e-mails the caller wants).
+ *
+ * E-mail goes out after the change is stored and never holds up or fails the request: to
+ * reviewers when a review is asked for, to the requester and the notebook's editors and owner
+ * when a reviewer decides, to the earlier people of a pin thread on a reply, and to a person
+ * given a role in a notebook; never to someone who turned that kind off in their settings.
  *
  * A notebook the caller may not read answers 404 `not_found`, exactly like one that does not
  * exist; one the caller may read but not change answers 403 `forbidden`.
@@ -36,3 +47,7 @@ export * from './versions.js';
 export * from './notebooks.js';
 export * from './forks.js';
 export * from './members.js';
+export * from './reviews.js';
+export * from './pins.js';
+export * from './activity.js';
+export * from './settings.js';

@@ -9,6 +9,7 @@ import {
   UserRefSchema,
 } from './common.js';
 import { CellKindSchema, CellSchema } from './cells.js';
+import { ReviewStatusSchema } from './reviews.js';
 import { VersionRefSchema } from './versions.js';
 
 /** A person's role in one notebook (architecture.md, "Roles"). */
@@ -122,5 +123,7 @@ export const NotebookSchema = NotebookSummarySchema.extend({
   forkedFrom: ForkOriginSchema.nullable(),
   /** Readable ancestors, nearest first; stops at the first one the caller may not read. */
   lineage: z.array(LineageEntrySchema),
+  /** The latest review round in brief; null when no review was ever asked for. */
+  review: ReviewStatusSchema.nullable().optional(),
 });
 export type Notebook = z.infer<typeof NotebookSchema>;

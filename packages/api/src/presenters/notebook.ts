@@ -1,6 +1,7 @@
 import type { Cell } from '../contract/cells.js';
 import type { ForkOrigin, LineageEntry, Notebook, NotebookSummary } from '../contract/notebooks.js';
 import type { ForkSummary } from '../contract/forks.js';
+import type { ReviewStatus } from '../contract/reviews.js';
 import type { VersionRef } from '../contract/versions.js';
 import { effectiveRole, permissionsOf } from '../policy.js';
 import type { Actor } from '../policy.js';
@@ -33,6 +34,7 @@ export interface NotebookDetailParts {
   deletedCells: Cell[];
   forkedFrom: ForkOrigin | null;
   lineage: LineageEntry[];
+  review: ReviewStatus | null;
 }
 
 export function presentNotebook(row: NotebookRow, actor: Actor, parts: NotebookDetailParts): Notebook {
@@ -43,6 +45,7 @@ export function presentNotebook(row: NotebookRow, actor: Actor, parts: NotebookD
     deletedCells: parts.deletedCells,
     forkedFrom: parts.forkedFrom,
     lineage: parts.lineage,
+    review: parts.review,
   };
 }
 

@@ -86,3 +86,71 @@ export interface MemberRow {
   role: 'owner' | 'editor' | 'reviewer' | 'viewer';
   addedAt: Date;
 }
+
+/** A review round with its version, its requester, and the notebook's latest round number. */
+export interface ReviewRow {
+  id: number;
+  notebookId: string;
+  round: number;
+  versionId: number;
+  versionNumber: number;
+  versionLabel: string;
+  requestedById: number | null;
+  requestedByLogin: string | null;
+  requestedByName: string | null;
+  message: string;
+  createdAt: Date;
+  latestRound: number | string;
+}
+
+/** A person asked in a round, with their current state. */
+export interface AssignmentRow {
+  reviewId: number;
+  reviewerId: number;
+  login: string;
+  name: string;
+  state: 'requested' | 'changes_asked' | 'signed_off';
+  summary: string;
+  decidedAt: Date | null;
+}
+
+/** A decision of a round's history, with its reviewer (null when gone). */
+export interface DecisionRow {
+  reviewId: number;
+  reviewerId: number | null;
+  login: string | null;
+  name: string | null;
+  state: 'changes_asked' | 'signed_off';
+  summary: string;
+  createdAt: Date;
+}
+
+/** A pin with its creator, who resolved it, and its cell's current revision number. */
+export interface PinRow {
+  id: number;
+  notebookId: string;
+  cellId: number;
+  revisionNumber: number;
+  currentRevisionNumber: number;
+  trace: string;
+  frequency: number;
+  createdById: number | null;
+  createdByLogin: string | null;
+  createdByName: string | null;
+  createdAt: Date;
+  resolvedAt: Date | null;
+  resolvedById: number | null;
+  resolvedByLogin: string | null;
+  resolvedByName: string | null;
+}
+
+/** One comment of a pin's thread, with its author. */
+export interface PinCommentRow {
+  id: number;
+  pinId: number;
+  authorId: number | null;
+  authorLogin: string | null;
+  authorName: string | null;
+  body: string;
+  createdAt: Date;
+}

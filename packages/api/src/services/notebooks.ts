@@ -19,6 +19,7 @@ import type { NotebookRow } from '../presenters/rows.js';
 import { checkCell } from './cell-check.js';
 import { cellsOf, insertCell } from './cells.js';
 import { loadNotebookFor, notebookRow, notebookSelect } from './access.js';
+import { reviewStatusOf } from './reviews.js';
 import { inTransaction, likeContains, managerOf } from './db.js';
 import type { Database } from './db.js';
 import { newNotebookId } from './ids.js';
@@ -132,6 +133,7 @@ export async function presentNotebookFor(manager: EntityManager, actor: Actor, r
     deletedCells: mayEdit ? cells.filter((cell: CellBody) => cell.deletedAt !== null) : [],
     forkedFrom: await forkOrigin(manager, actor, row),
     lineage: await lineageOf(manager, actor, row),
+    review: await reviewStatusOf(manager, row.id),
   });
 }
 

@@ -36,22 +36,52 @@ export async function versionRow(manager: EntityManager, notebookId: string, num
   return rows[0];
 }
 
+/**
+ * Snapshots every live cell of the notebook at its current revision as the next version,
+ * inside the caller's transaction (which holds the notebook's lock); returns its number.
+ */
+export async function insertVersion(manager: EntityManager, actor: Actor, notebookId: string, label: string): Promise<number> {
+  const [last] = await manager.query('SELECT COALESCE(MAX(number), 0) AS n FROM notebook_versions WHERE notebookId = ?', [notebookId]);
+  const number = toInt(last?.n) + 1;
+  const inserted = await manager.insert(NotebookVersion, { notebookId, number, label, authorId: actor.id, createdAt: new Date() });
+  const versionId = Number(inserted.identifiers[0]?.id);
+  await manager.query(
+    `INSERT INTO notebook_version_cells (versionId, cellId, revisionId, position)
+     SELECT ?, c.id, r.id, c.position
+       FROM cells c JOIN cell_revisions r ON r.cellId = c.id AND r.number = c.revision
+      WHERE c.notebookId = ? AND c.deletedAt IS NULL`,
+    [versionId, notebookId],
+  );
+  return number;
+}
+
+/**
+ * True when the notebook's live cells differ from version `versionId`: a cell saved, added,
+ * deleted or moved since.
+ */
+export async function changedSinceVersion(manager: EntityManager, notebookId: string, versionId: number): Promise<boolean> {
+  const key = (row: { cellId: number; revisionId: number; position: number }) => `${row.cellId}:${row.revisionId}:${row.position}`;
+  const now: { cellId: number; revisionId: number; position: number }[] = await manager.query(
+    `SELECT c.id AS cellId, r.id AS revisionId, c.position
+       FROM cells c JOIN cell_revisions r ON r.cellId = c.id AND r.number = c.revision
+      WHERE c.notebookId = ? AND c.deletedAt IS NULL`,
+    [notebookId],
+  );
+  const then: { cellId: number; revisionId: number; position: number }[] = await manager.query(
+    'SELECT cellId, revisionId, position FROM notebook_version_cells WHERE versionId = ?',
+    [versionId],
+  );
+  const before = new Set(then.map(key));
+  return now.length !== then.length || now.some((row) => !before.has(key(row)));
+}
+
 /** `POST /api/notebooks/:id/versions` (editor or owner). */
 export async function createVersion(db: Database, actor: Actor, notebookId: string, label: string): Promise<Version> {
   return inTransaction(db, async (manager) => {
     await loadNotebookFor(manager, actor, notebookId, 'edit', { lock: true });
-    const [last] = await manager.query('SELECT COALESCE(MAX(number), 0) AS n FROM notebook_versions WHERE notebookId = ?', [notebookId]);
-    const number = toInt(last?.n) + 1;
-    const inserted = await manager.insert(NotebookVersion, { notebookId, number, label, authorId: actor.id, createdAt: new Date() });
-    const versionId = Number(inserted.identifiers[0]?.id);
-    await manager.query(
-      `INSERT INTO notebook_version_cells (versionId, cellId, revisionId, position)
-       SELECT ?, c.id, r.id, c.position
-         FROM cells c JOIN cell_revisions r ON r.cellId = c.id AND r.number = c.revision
-        WHERE c.notebookId = ? AND c.deletedAt IS NULL`,
-      [versionId, notebookId],
-    );
-    return presentVersion(await versionRow(manager, notebookId, number), await versionCells(manager, versionId));
+    const number = await insertVersion(manager, actor, notebookId, label);
+    const row = await versionRow(manager, notebookId, number);
+    return presentVersion(row, await versionCells(manager, row.id));
   });
 }
 

@@ -1,12 +1,48 @@
 import { Cell } from './cell.js';
 import { CellRevision } from './cell-revision.js';
+import { MailLogEntry } from './mail-log-entry.js';
 import { Notebook } from './notebook.js';
 import { NotebookMember } from './notebook-member.js';
 import { NotebookVersion, NotebookVersionCell } from './notebook-version.js';
+import { Pin, PinComment } from './pin.js';
+import { Review, ReviewAssignment, ReviewDecision } from './review.js';
 import { Session } from './session.js';
 import { User } from './user.js';
+import { UserMailSettings } from './user-mail-settings.js';
 
 /** Every entity the DataSource knows. */
-export const entities = [User, Session, Notebook, NotebookMember, Cell, CellRevision, NotebookVersion, NotebookVersionCell];
+export const entities = [
+  User,
+  Session,
+  Notebook,
+  NotebookMember,
+  Cell,
+  CellRevision,
+  NotebookVersion,
+  NotebookVersionCell,
+  Review,
+  ReviewAssignment,
+  ReviewDecision,
+  Pin,
+  PinComment,
+  UserMailSettings,
+  MailLogEntry,
+];
 
-export { Cell, CellRevision, Notebook, NotebookMember, NotebookVersion, NotebookVersionCell, Session, User };
+export {
+  Cell,
+  CellRevision,
+  MailLogEntry,
+  Notebook,
+  NotebookMember,
+  NotebookVersion,
+  NotebookVersionCell,
+  Pin,
+  PinComment,
+  Review,
+  ReviewAssignment,
+  ReviewDecision,
+  Session,
+  User,
+  UserMailSettings,
+};

@@ -5,6 +5,8 @@ import { CreateSessions1764633600003 } from './1764633600003-create-sessions.js'
 import { CreateNotebooks1764633600004 } from './1764633600004-create-notebooks.js';
 import { CreateCells1764633600005 } from './1764633600005-create-cells.js';
 import { CreateVersions1764633600006 } from './1764633600006-create-versions.js';
+import { CreateReviewsAndPins1764633600007 } from './1764633600007-create-reviews-and-pins.js';
+import { CreateMail1764633600008 } from './1764633600008-create-mail.js';
 
 /**
  * Every migration, oldest first. Listed by class rather than found by a file glob, so the
@@ -18,4 +20,6 @@ export const migrations = [
   CreateNotebooks1764633600004,
   CreateCells1764633600005,
   CreateVersions1764633600006,
+  CreateReviewsAndPins1764633600007,
+  CreateMail1764633600008,
 ];

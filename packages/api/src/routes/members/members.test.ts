@@ -52,4 +52,25 @@ describe('/api/notebooks/:id/members', () => {
     expect((await owner.delete(`${base}/${person.id}`)).status).toBe(404);
     expect((await member.get(`/api/notebooks/${notebook.id}`)).status).toBe(404);
   });
+
+  it('mails a person when they are added, not when their role changes, and not if they turned it off', async () => {
+    const notebook = await buildNotebook();
+    const owner = await signedIn(server.url, notebook.ownerUser.login);
+    const [newcomer, quiet] = [await buildUser(), await buildUser()];
+    await (await signedIn(server.url, quiet.login)).patch('/api/me/settings', { mail: { addedToNotebook: false } });
+    const base = `/api/notebooks/${notebook.id}/members`;
+
+    expect((await owner.put(`${base}/${newcomer.id}`, { role: 'reviewer' })).status).toBe(201);
+    expect((await owner.put(`${base}/${newcomer.id}`, { role: 'editor' })).status).toBe(200);
+    expect((await owner.put(`${base}/${quiet.id}`, { role: 'viewer' })).status).toBe(201);
+
+    const mailbox = await server.mailbox();
+    const toNewcomer = mailbox.filter((m) => m.to.includes(newcomer.email!));
+    expect(toNewcomer.map((m) => m.subject)).toEqual([`You were added to “${notebook.title}”`]);
+    expect(toNewcomer[0]!.envelopeTo).toEqual([newcomer.email]);
+    expect(toNewcomer[0]!.text).toMatch(/gave you the reviewer role in “.*”: you may read it, pin comments and sign off reviews\./);
+    expect(toNewcomer[0]!.text).toContain(`Open the notebook: ${server.url}/notebooks/${notebook.id}`);
+    expect(mailbox.filter((m) => m.to.includes(quiet.email!))).toEqual([]);
+    expect(mailbox.filter((m) => m.to.includes(notebook.ownerUser.email!))).toEqual([]);
+  });
 });

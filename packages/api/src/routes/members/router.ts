@@ -1,7 +1,8 @@
-/** `/api/notebooks/:id/members`: who has which role; the owner gives, changes and removes roles. */
+/** `/api/notebooks/:id/members`: who has which role; the owner gives, changes and removes roles (a newcomer gets an e-mail). */
 import { Router } from 'express';
 import { actorOf } from '../../auth/require-user.js';
 import { connect } from '../../db/connection.js';
+import { mailFor } from '../../mail/notifier.js';
 import { listMembers, putMember, removeMember } from '../../services/members.js';
 import { validate } from '../../validate.js';
 import { NotebookParamsSchema } from '../notebooks/schema.js';
@@ -17,7 +18,13 @@ membersRouter.get('/', list, async (req, res) => {
 const put = validate({ params: MemberParamsSchema, body: MemberPutSchema });
 membersRouter.put('/:userId', put, async (req, res) => {
   const { params, body } = put.input(req);
-  const { created, member } = await putMember(await connect(), actorOf(req), params.id, params.userId, body.role);
+  const actor = actorOf(req);
+  const { created, member } = await putMember(await connect(), actor, params.id, params.userId, body.role);
+  // Only a newcomer is told; a changed role shows in the notebook itself.
+  if (created) {
+    const { notifier, baseUrl } = mailFor(req);
+    notifier.memberAdded({ baseUrl, by: actor, notebookId: params.id, userId: params.userId, role: body.role });
+  }
   res.status(created ? 201 : 200).json(member);
 });
 

@@ -11,9 +11,12 @@ import {
   updateNotebook,
 } from '../../services/notebooks.js';
 import { validate } from '../../validate.js';
+import { activityRouter } from '../activity/router.js';
 import { cellsRouter } from '../cells/router.js';
 import { forksRouter } from '../forks/router.js';
 import { membersRouter } from '../members/router.js';
+import { pinsRouter } from '../pins/router.js';
+import { reviewsRouter } from '../reviews/router.js';
 import { versionsRouter } from '../versions/router.js';
 import { NotebookCreateSchema, NotebookListQuerySchema, NotebookParamsSchema, NotebookUpdateSchema } from './schema.js';
 
@@ -54,3 +57,6 @@ notebooksRouter.use('/:id/cells', cellsRouter);
 notebooksRouter.use('/:id/versions', versionsRouter);
 notebooksRouter.use('/:id/forks', forksRouter);
 notebooksRouter.use('/:id/members', membersRouter);
+notebooksRouter.use('/:id/reviews', reviewsRouter);
+notebooksRouter.use('/:id/pins', pinsRouter);
+notebooksRouter.use('/:id/activity', activityRouter);

@@ -77,9 +77,17 @@ export async function createSmtpStandin({ smtpPort = 0, httpPort = 0 } = {}): Pr
     stored.length = 0;
     res.status(204).end();
   });
-  const http: Server = await new Promise((resolve) => {
-    const server = app.listen(httpPort, '127.0.0.1', () => resolve(server));
-  });
+  let http: Server;
+  try {
+    http = await new Promise((resolve, reject) => {
+      // Express 5 hands a listen error (a taken port) to this callback.
+      const server = app.listen(httpPort, '127.0.0.1', (error?: Error) => (error ? reject(error) : resolve(server)));
+    });
+  } catch (error) {
+    // The mailbox's port is taken: do not leave the SMTP side listening alone.
+    await new Promise<void>((resolve) => smtp.close(() => resolve()));
+    throw error;
+  }
 
   return {
     smtpPort: (smtp.server.address() as AddressInfo).port,

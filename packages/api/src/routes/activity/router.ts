@@ -1,0 +1,16 @@
+/** `/api/notebooks/:id/activity`: the notebook's timeline, newest first, paged. */
+import { Router } from 'express';
+import { actorOf } from '../../auth/require-user.js';
+import { connect } from '../../db/connection.js';
+import { listActivity } from '../../services/activity.js';
+import { validate } from '../../validate.js';
+import { NotebookParamsSchema } from '../notebooks/schema.js';
+import { ActivityQuerySchema } from './schema.js';
+
+export const activityRouter = Router({ mergeParams: true });
+
+const list = validate({ params: NotebookParamsSchema, query: ActivityQuerySchema });
+activityRouter.get('/', list, async (req, res) => {
+  const { params, query } = list.input(req);
+  res.json(await listActivity(await connect(), actorOf(req), params.id, query));
+});

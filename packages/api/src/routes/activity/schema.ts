@@ -1,0 +1,1 @@
+export { PageQuerySchema as ActivityQuerySchema } from '../../contract/common.js';

@@ -1,0 +1,29 @@
+/**
+ * `GET /dev/mail`: the development mailbox, mounted only when the server runs with the SMTP
+ * stand-in (MAIL_STANDIN_URL names its HTTP mailbox). It reads the stand-in on every request.
+ */
+import { Router } from 'express';
+import type { StoredMessage } from '../../standins/smtp/mailbox.js';
+import { mailboxDownPage, mailboxPage } from './page.js';
+
+export function devMailRouter(standinUrl: string): Router {
+  const router = Router();
+  router.get('/', async (_req, res) => {
+    res.set('cache-control', 'no-store');
+    // The page is static markup: no script may run in it, whatever a message holds.
+    res.set('content-security-policy', "default-src 'none'; style-src 'unsafe-inline'");
+    let messages: StoredMessage[];
+    try {
+      const reply = await fetch(`${standinUrl}/messages`, { signal: AbortSignal.timeout(3000) });
+      if (!reply.ok) throw new Error(`it answered ${reply.status}`);
+      messages = ((await reply.json()) as { messages: StoredMessage[] }).messages;
+    } catch (error) {
+      res.status(502).type('html').send(mailboxDownPage(standinUrl, (error as Error).message));
+      return;
+    }
+    // The stand-in lists newest first already; sorting again keeps the page right if it ever does not.
+    messages.sort((a, b) => b.receivedAt.localeCompare(a.receivedAt) || b.id - a.id);
+    res.type('html').send(mailboxPage(messages));
+  });
+  return router;
+}

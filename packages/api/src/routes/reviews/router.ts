@@ -1,0 +1,42 @@
+/** `/api/notebooks/:id/reviews`: ask for a review of a version, read the rounds, decide. */
+import { Router } from 'express';
+import { actorOf } from '../../auth/require-user.js';
+import { connect } from '../../db/connection.js';
+import { mailFor } from '../../mail/notifier.js';
+import { decideReview, getReview, listReviews, requestReview } from '../../services/reviews.js';
+import { validate } from '../../validate.js';
+import { NotebookParamsSchema } from '../notebooks/schema.js';
+import { ReviewCreateSchema, ReviewDecisionCreateSchema, ReviewParamsSchema } from './schema.js';
+
+export const reviewsRouter = Router({ mergeParams: true });
+
+const create = validate({ params: NotebookParamsSchema, body: ReviewCreateSchema });
+reviewsRouter.post('/', create, async (req, res) => {
+  const { params, body } = create.input(req);
+  const actor = actorOf(req);
+  const { created, review, askedIds } = await requestReview(await connect(), actor, params.id, body);
+  const { notifier, baseUrl } = mailFor(req);
+  notifier.reviewRequested({ baseUrl, by: actor, review, askedIds });
+  res.status(created ? 201 : 200).json(review);
+});
+
+const list = validate({ params: NotebookParamsSchema });
+reviewsRouter.get('/', list, async (req, res) => {
+  res.json(await listReviews(await connect(), actorOf(req), list.input(req).params.id));
+});
+
+const one = validate({ params: ReviewParamsSchema });
+reviewsRouter.get('/:reviewId', one, async (req, res) => {
+  const { params } = one.input(req);
+  res.json(await getReview(await connect(), actorOf(req), params.id, params.reviewId));
+});
+
+const decide = validate({ params: ReviewParamsSchema, body: ReviewDecisionCreateSchema });
+reviewsRouter.post('/:reviewId/decision', decide, async (req, res) => {
+  const { params, body } = decide.input(req);
+  const actor = actorOf(req);
+  const review = await decideReview(await connect(), actor, params.id, params.reviewId, body);
+  const { notifier, baseUrl } = mailFor(req);
+  notifier.reviewDecided({ baseUrl, by: actor, review, state: body.state, summary: body.summary });
+  res.json(review);
+});

@@ -1,0 +1,1 @@
+export { SettingsUpdateSchema } from '../../contract/settings.js';
