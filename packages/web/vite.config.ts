@@ -15,13 +15,6 @@ export default defineConfig({
   build: {
     sourcemap: true,
     reportCompressedSize: true,
-    rolldownOptions: {
-      treeshake: {
-        // The solver's library modules only define things, so a page that uses formatSi does
-        // not pull in the expression parser (mathjs) that only the worker needs.
-        moduleSideEffects: (id: string) => (/[\\/]packages[\\/]solver[\\/]dist[\\/]/.test(id) ? false : undefined),
-      },
-    },
   },
   worker: { format: 'es' },
   test: {

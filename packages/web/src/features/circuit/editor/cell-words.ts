@@ -1,24 +1,13 @@
 /**
  * The words of the cell language (see the language reference), grouped by what they do,
  * for colouring and completion. The solver stays the judge of what is valid; these lists
- * only decide how a word looks and what the editor offers.
+ * only decide how a word looks and what the editor offers. Statement words, measures,
+ * prefixes and units come from the solver itself, so the two never disagree.
  */
+import { MEASURES, SI_PREFIXES, STATEMENT_KEYWORDS, UNIT_SPELLINGS } from '@rolloff/solver';
 
 /** Words that start a statement. */
-export const statementWords = [
-  'let',
-  'drive',
-  'show',
-  'sweep',
-  'time',
-  'temperature',
-  'tolerance',
-  'require',
-  'block',
-  'end',
-  'use',
-  'couple',
-] as const;
+export const statementWords = STATEMENT_KEYWORDS;
 
 /** What each statement is for, shown beside it in completion. */
 export const statementInfo: Readonly<Record<(typeof statementWords)[number], string>> = {
@@ -55,29 +44,17 @@ export const partOptionWords = ['esr', 'esl', 'dcr', 'tol', 'noiseless', 'gain',
 export const modifierWords = ['current', 'impedance', 'loop', 'step', 'noise', 'phase', 'linear', 'decade', 'points', 'montecarlo', 'worstcase', 'seed', 'over', 'at', 'as'] as const;
 
 /** What a requirement measures. */
-export const measureWords = [
-  'gain',
-  'phase',
-  'delay',
-  'magnitude',
-  'corner',
-  'peak',
-  'crossover',
-  'phase-margin',
-  'gain-margin',
-  'settling',
-  'overshoot',
-] as const;
+export const measureWords = MEASURES;
 
 /** Functions and constants of value expressions. */
 export const functionWords = ['sqrt', 'exp', 'ln', 'log10', 'sin', 'cos', 'tan', 'atan', 'abs', 'min', 'max'] as const;
 export const constantWords = ['pi', 'e'] as const;
 
 /** SI prefixes a number may carry straight after its digits. */
-export const siPrefixes = ['f', 'p', 'n', 'u', 'µ', 'μ', 'm', 'k', 'M', 'G', 'T'] as const;
+export const siPrefixes: readonly string[] = Object.keys(SI_PREFIXES);
 
 /** Every spelling of a unit. */
-export const unitSpellings = ['Ω', 'ohm', 'F', 'H', 'Hz', 'V', 'A', 's', 'S', 'dB', 'deg', '°', '%', 'K', '°C'] as const;
+export const unitSpellings: readonly string[] = Object.keys(UNIT_SPELLINGS);
 
 /** Units that never take a prefix. */
 export const unprefixedUnits = ['dB', 'deg', '°', '%', 'K', '°C'] as const;
