@@ -42,6 +42,7 @@ export async function buildUser(overrides: UserOverrides = {}): Promise<User> {
 export interface NotebookOverrides {
   owner?: User;
   title?: string;
+  description?: string;
   cells?: { kind: 'circuit' | 'note'; text: string }[];
   members?: [User, 'editor' | 'reviewer' | 'viewer'][];
   visibility?: 'private' | 'link';
@@ -62,6 +63,7 @@ export async function buildNotebook(overrides: NotebookOverrides = {}): Promise<
   const actor = { id: owner.id, siteRole: owner.siteRole, disabled: owner.disabled };
   let notebook = await createNotebook(db, actor, {
     title: overrides.title ?? `Notebook ${uniqueLogin('nb')}`,
+    description: overrides.description,
     cells: overrides.cells ?? [
       { kind: 'note', text: 'A first-order low-pass in front of the converter.' },
       { kind: 'circuit', text: rcLowPass },

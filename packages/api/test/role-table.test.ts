@@ -100,6 +100,7 @@ const routes: RouteCase[] = [
   { route: 'POST …/pins/:pinId/resolve', action: 'review', ok: 200, prepare: makePin, call: (c, n) => c.post(`${base(n)}/pins/${made.get(n.id)}/resolve`) },
   { route: 'POST …/pins/:pinId/reopen', action: 'review', ok: 200, prepare: makePin, call: (c, n) => c.post(`${base(n)}/pins/${made.get(n.id)}/reopen`) },
   { route: 'PATCH /notebooks/:id (title)', action: 'edit', ok: 200, call: (c, n) => c.patch(base(n), { title: 'Renamed' }) },
+  { route: 'PATCH /notebooks/:id (description)', action: 'edit', ok: 200, call: (c, n) => c.patch(base(n), { description: 'Second try, with a damping arm.' }) },
   { route: 'POST …/cells', action: 'edit', ok: 201, call: (c, n) => c.post(`${base(n)}/cells`, { kind: 'note', text: 'added' }) },
   { route: 'PUT …/cells/:cellId', action: 'edit', ok: 201, call: (c, n) => c.put(`${base(n)}/cells/${cell(n).id}`, { text: `${cell(n).text}# edit\n`, baseRevision: 1 }) },
   { route: 'POST …/cells/:cellId/move', action: 'edit', ok: 200, call: (c, n) => c.post(`${base(n)}/cells/${cell(n).id}/move`, { position: 0 }) },

@@ -15,6 +15,8 @@ export const LIMITS = {
   cellsPerNotebook: 500,
   /** Notebook title, in characters. Over it: 400 `validation`. */
   titleLength: 200,
+  /** Notebook description, in characters. Over it: 400 `validation`. */
+  descriptionLength: 2000,
   /** Version label, in characters. */
   versionLabelLength: 200,
   /** Search text of the notebook list. */
@@ -110,6 +112,19 @@ export const TitleSchema = z
   .trim()
   .min(1, 'A title cannot be empty.')
   .max(LIMITS.titleLength, `A title has at most ${LIMITS.titleLength} characters.`);
+
+/**
+ * A notebook's description: plain text, shown as written and never rendered as Markdown.
+ * Line breaks are kept (CR LF becomes LF); other control characters are refused. Trimmed,
+ * at most 2 000 characters; empty means no description.
+ */
+export const DescriptionSchema = z
+  .string()
+  .overwrite((text) => text.replace(/\r\n?/g, '\n'))
+  .trim()
+  .max(LIMITS.descriptionLength, `A description has at most ${LIMITS.descriptionLength} characters.`)
+  // Tab and line feed are the only control characters plain text needs.
+  .refine((text) => !/[\u0000-\u0008\u000B-\u001F\u007F]/.test(text), 'A description is plain text: no control characters other than line breaks and tabs.');
 
 /** The text of a cell: any string up to 64 KiB of UTF-8. */
 export const CellTextSchema = z.string().refine((text) => utf8Length(text) <= LIMITS.cellTextBytes, {

@@ -6,7 +6,8 @@
  * - `GET /auth/github[?login=NAME&returnTo=/path]` starts GitHub sign-in (or the stand-in's);
  *   `GET /auth/github/callback` finishes it and redirects to `/notebooks` (or `returnTo`);
  *   `POST /auth/logout` → 204. `GET /api/me` → MeSchema, 401 when signed out.
- * - `GET /api/notebooks` (NotebookListQuerySchema → NotebookListSchema), `POST /api/notebooks`,
+ * - `GET /api/notebooks` (NotebookListQuerySchema → NotebookListSchema; `sort=changed|title|created`,
+ *   `order=desc|asc`, keyset cursors), `POST /api/notebooks`,
  *   `GET|PATCH|DELETE /api/notebooks/:id`, `POST /api/notebooks/:id/restore`.
  * - `POST /api/notebooks/:id/cells`, `PUT|DELETE /api/notebooks/:id/cells/:cellId`,
  *   `POST …/cells/:cellId/move`, `POST …/cells/:cellId/restore`,

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import {
   CellTextSchema,
+  DescriptionSchema,
   LIMITS,
   NotebookIdSchema,
   PageQuerySchema,
@@ -42,9 +43,10 @@ export const NotebookPermissionsSchema = z.object({
 });
 export type NotebookPermissions = z.infer<typeof NotebookPermissionsSchema>;
 
-/** `POST /api/notebooks`: a title and, optionally, the first cells in order. */
+/** `POST /api/notebooks`: a title and, optionally, a description and the first cells in order. */
 export const NotebookCreateSchema = z.strictObject({
   title: TitleSchema,
+  description: DescriptionSchema.default(''),
   cells: z
     .array(z.strictObject({ kind: CellKindSchema, text: CellTextSchema.default('') }))
     .max(LIMITS.cellsPerNotebook, `A notebook holds at most ${LIMITS.cellsPerNotebook} cells.`)
@@ -52,21 +54,40 @@ export const NotebookCreateSchema = z.strictObject({
 });
 export type NotebookCreate = z.input<typeof NotebookCreateSchema>;
 
-/** `PATCH /api/notebooks/:id`: rename (editor or owner) and/or link sharing (owner). */
+/**
+ * `PATCH /api/notebooks/:id`: a new title or description (editor or owner) and/or link
+ * sharing (owner); any one of them alone is enough.
+ */
 export const NotebookUpdateSchema = z
   .strictObject({
     title: TitleSchema.optional(),
+    description: DescriptionSchema.optional(),
     visibility: VisibilitySchema.optional(),
   })
-  .refine((body) => body.title !== undefined || body.visibility !== undefined, {
-    message: 'Send title, visibility, or both.',
+  .refine((body) => body.title !== undefined || body.description !== undefined || body.visibility !== undefined, {
+    message: 'Send at least one of title, description and visibility.',
   });
 export type NotebookUpdate = z.infer<typeof NotebookUpdateSchema>;
 
-/** `GET /api/notebooks?scope=&q=&cursor=&limit=`: newest change first. */
+/** What a notebook list is ordered by: the last change, the title, or when it was made. */
+export const NotebookSortSchema = z.enum(['changed', 'title', 'created']);
+export type NotebookSort = z.infer<typeof NotebookSortSchema>;
+
+export const SortOrderSchema = z.enum(['desc', 'asc']);
+export type SortOrder = z.infer<typeof SortOrderSchema>;
+
+/**
+ * `GET /api/notebooks?scope=&q=&sort=&order=&cursor=&limit=`: newest change first unless
+ * `sort` and `order` say otherwise; ties are ordered by id in the same direction. A cursor
+ * holds the sort it was made for (and, for `title`, a title), so it may be longer than the
+ * cursors of other lists; a cursor of another sort or order is refused.
+ */
 export const NotebookListQuerySchema = PageQuerySchema.extend({
   scope: NotebookScopeSchema.default('all'),
   q: z.string().trim().max(LIMITS.searchLength).optional(),
+  sort: NotebookSortSchema.default('changed'),
+  order: SortOrderSchema.default('desc'),
+  cursor: z.string().max(2000).optional(),
 });
 export type NotebookListQuery = z.input<typeof NotebookListQuerySchema>;
 
@@ -79,8 +100,10 @@ export const NotebookSummarySchema = z.object({
   role: NotebookRoleSchema,
   cellCount: z.number().int().nonnegative(),
   forkCount: z.number().int().nonnegative(),
+  /** Labelled versions made of the notebook. */
+  versionCount: z.number().int().nonnegative(),
   createdAt: TimestampSchema,
-  /** The last change to the notebook or any of its cells; lists sort by it. */
+  /** The last change to the notebook or any of its cells; lists sort by it by default. */
   updatedAt: TimestampSchema,
   deletedAt: TimestampSchema.nullable(),
 });
@@ -114,6 +137,8 @@ export type ForkOrigin = z.infer<typeof ForkOriginSchema>;
 
 /** `GET /api/notebooks/:id` (and the answer to create, update, restore and fork). */
 export const NotebookSchema = NotebookSummarySchema.extend({
+  /** Plain text under the title; empty when there is none. */
+  description: z.string(),
   permissions: NotebookPermissionsSchema,
   /** Live cells in order, at their current revisions. */
   cells: z.array(CellSchema),

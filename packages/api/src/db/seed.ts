@@ -57,6 +57,7 @@ async function loadNotebook(manager: EntityManager, demo: DemoNotebook, actor: (
   const owner = actor(demo.owner);
   const notebook = await createNotebook(manager, owner, {
     title: demo.title,
+    description: demo.description,
     cells: demo.cells.map((cell) => ({ kind: cell.kind, text: cell.text })),
   });
   for (const [login, role] of demo.members) await putMember(manager, owner, notebook.id, actor(login).id, role);

@@ -23,6 +23,7 @@ export function presentNotebookSummary(row: NotebookRow, actor: Actor): Notebook
     role: effectiveRole(actor, accessOf(row)) ?? 'viewer',
     cellCount: Number(row.cellCount),
     forkCount: Number(row.forkCount),
+    versionCount: Number(row.versionCount),
     createdAt: iso(row.createdAt),
     updatedAt: iso(row.updatedAt),
     deletedAt: isoOrNull(row.deletedAt),
@@ -40,6 +41,7 @@ export interface NotebookDetailParts {
 export function presentNotebook(row: NotebookRow, actor: Actor, parts: NotebookDetailParts): Notebook {
   return {
     ...presentNotebookSummary(row, actor),
+    description: row.description,
     permissions: permissionsOf(actor, accessOf(row)),
     cells: parts.cells,
     deletedCells: parts.deletedCells,

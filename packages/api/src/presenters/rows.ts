@@ -6,10 +6,11 @@ export interface UserRefRow {
   name: string;
 }
 
-/** A notebook with its owner, the caller's member role and two counts. */
+/** A notebook with its owner, the caller's member role and three counts. */
 export interface NotebookRow {
   id: string;
   title: string;
+  description: string;
   ownerId: number;
   ownerLogin: string;
   ownerName: string;
@@ -19,6 +20,7 @@ export interface NotebookRow {
   memberRole: 'editor' | 'reviewer' | 'viewer' | null;
   cellCount: number | string;
   forkCount: number | string;
+  versionCount: number | string;
   createdAt: Date;
   updatedAt: Date;
   deletedAt: Date | null;

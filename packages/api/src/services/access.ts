@@ -9,12 +9,17 @@ import type { Actor, NotebookAction } from '../policy.js';
 import { accessOf } from '../presenters/notebook.js';
 import type { NotebookRow } from '../presenters/rows.js';
 
-/** A notebook with its owner, the caller's member role (the `?`), and its live cell and fork counts. */
+/**
+ * A notebook with its owner, the caller's member role (the `?`), and its counts of live cells,
+ * live forks and versions. The counts are correlated subqueries, each read from an index on
+ * the notebook id, so a page of notebooks is still one query.
+ */
 export const notebookSelect = `
-  SELECT n.id, n.title, n.ownerId, o.login AS ownerLogin, o.name AS ownerName, n.visibility,
+  SELECT n.id, n.title, n.description, n.ownerId, o.login AS ownerLogin, o.name AS ownerName, n.visibility,
          n.forkedFromId, n.forkedFromVersionId, m.role AS memberRole,
          (SELECT COUNT(*) FROM cells c WHERE c.notebookId = n.id AND c.deletedAt IS NULL) AS cellCount,
          (SELECT COUNT(*) FROM notebooks f WHERE f.forkedFromId = n.id AND f.deletedAt IS NULL) AS forkCount,
+         (SELECT COUNT(*) FROM notebook_versions v WHERE v.notebookId = n.id) AS versionCount,
          n.createdAt, n.updatedAt, n.deletedAt
     FROM notebooks n
     JOIN users o ON o.id = n.ownerId

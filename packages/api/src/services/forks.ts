@@ -48,7 +48,8 @@ export async function forkNotebook(db: Database, actor: Actor, sourceId: string,
     const id = await insertNotebook(
       manager,
       actor,
-      { title: input.title ?? forkTitle(source.title), cells, diagnostics: cells.map((c) => c.diagnostics) },
+      // A version holds cells only, so a fork of a version takes the source's description as it is now.
+      { title: input.title ?? forkTitle(source.title), description: source.description, cells, diagnostics: cells.map((c) => c.diagnostics) },
       { notebookId: sourceId, versionId },
       forkHooks.afterCell ?? undefined,
     );

@@ -1,15 +1,13 @@
 /**
- * Notebooks: the list, one notebook with its cells and lineage, create, rename, link sharing,
- * soft delete and restore. Every read and change goes through `loadNotebookFor`, which asks
+ * Notebooks: the list, one notebook with its cells and lineage, create, rename and describe,
+ * link sharing, soft delete and restore. Every read and change goes through `loadNotebookFor`, which asks
  * the policy module.
  */
 import type { EntityManager } from 'typeorm';
 import type { Cell as CellBody } from '../contract/cells.js';
-import { NotebookIdSchema } from '../contract/common.js';
 import type { DiagnosticCounts } from '../contract/common.js';
-import type { ForkOrigin, LineageEntry, Notebook as NotebookBody, NotebookList, NotebookScope } from '../contract/notebooks.js';
+import type { ForkOrigin, LineageEntry, Notebook as NotebookBody, NotebookList, NotebookScope, NotebookSort, SortOrder } from '../contract/notebooks.js';
 import { Notebook } from '../db/entities/notebook.js';
-import { validation } from '../errors.js';
 import { can } from '../policy.js';
 import type { Actor } from '../policy.js';
 import { presentCell } from '../presenters/cell.js';
@@ -19,32 +17,23 @@ import type { NotebookRow } from '../presenters/rows.js';
 import { checkCell } from './cell-check.js';
 import { cellsOf, insertCell } from './cells.js';
 import { loadNotebookFor, notebookRow, notebookSelect } from './access.js';
+import { encodeCursor, listOrder } from './notebook-order.js';
 import { reviewStatusOf } from './reviews.js';
 import { inTransaction, likeContains, managerOf } from './db.js';
 import type { Database } from './db.js';
 import { newNotebookId } from './ids.js';
 
-interface CursorPosition {
-  updatedAt: Date;
-  id: string;
+export interface NotebookListOptions {
+  scope: NotebookScope;
+  q?: string;
+  sort: NotebookSort;
+  order: SortOrder;
+  cursor?: string;
+  limit: number;
 }
 
-function encodeCursor(row: { updatedAt: Date; id: string }): string {
-  return Buffer.from(`${row.updatedAt.getTime()}.${row.id}`).toString('base64url');
-}
-
-function decodeCursor(cursor: string): CursorPosition {
-  const [ms, id] = Buffer.from(cursor, 'base64url').toString('utf8').split('.', 2);
-  if (!ms || !/^\d{1,15}$/.test(ms) || !id || !NotebookIdSchema.safeParse(id).success) {
-    throw validation('query.cursor: not a cursor of this list (pass back the nextCursor of the previous page).', {
-      issues: [{ path: 'query.cursor', message: 'not a cursor of this list' }],
-    });
-  }
-  return { updatedAt: new Date(Number(ms)), id };
-}
-
-/** `GET /api/notebooks`: the caller's notebooks in `scope`, newest change first. */
-export async function listNotebooks(db: Database, actor: Actor, query: { scope: NotebookScope; q?: string; cursor?: string; limit: number }): Promise<NotebookList> {
+/** `GET /api/notebooks`: the caller's notebooks in `scope`, in the order asked for, one page. */
+export async function listNotebooks(db: Database, actor: Actor, query: NotebookListOptions): Promise<NotebookList> {
   const where: string[] = [];
   const params: unknown[] = [actor.id];
   switch (query.scope) {
@@ -72,21 +61,18 @@ export async function listNotebooks(db: Database, actor: Actor, query: { scope: 
     where.push('n.title LIKE ?');
     params.push(likeContains(query.q));
   }
-  if (query.cursor) {
-    const after = decodeCursor(query.cursor);
-    where.push('(n.updatedAt < ? OR (n.updatedAt = ? AND n.id < ?))');
-    params.push(after.updatedAt, after.updatedAt, after.id);
+  const order = listOrder(query.sort, query.order, query.cursor || undefined);
+  if (order.after) {
+    where.push(order.after.sql);
+    params.push(...order.after.params);
   }
   params.push(query.limit + 1);
-  const rows: NotebookRow[] = await db.query(
-    `${notebookSelect} WHERE ${where.join(' AND ')} ORDER BY n.updatedAt DESC, n.id DESC LIMIT ?`,
-    params,
-  );
+  const rows: NotebookRow[] = await db.query(`${notebookSelect} WHERE ${where.join(' AND ')} ORDER BY ${order.orderBy} LIMIT ?`, params);
   const page = rows.slice(0, query.limit);
   const last = page[page.length - 1];
   return {
     items: page.map((row) => presentNotebookSummary(row, actor)),
-    nextCursor: rows.length > query.limit && last ? encodeCursor(last) : null,
+    nextCursor: rows.length > query.limit && last ? encodeCursor(last, query.sort, query.order) : null,
   };
 }
 
@@ -145,6 +131,8 @@ export async function getNotebook(db: Database, actor: Actor, id: string): Promi
 
 export interface NotebookSeed {
   title: string;
+  /** Plain text under the title; empty when left out. */
+  description?: string;
   cells: { kind: 'circuit' | 'note'; text: string }[];
 }
 
@@ -170,6 +158,7 @@ export async function insertNotebook(
   await manager.insert(Notebook, {
     id,
     title: seed.title,
+    description: seed.description ?? '',
     ownerId: actor.id,
     visibility: 'private',
     forkedFromId: forkedFrom?.notebookId ?? null,
@@ -195,13 +184,24 @@ export async function createNotebook(db: Database, actor: Actor, seed: NotebookS
   });
 }
 
-/** `PATCH /api/notebooks/:id`: a new title needs `edit`, a new visibility needs `share`. */
-export async function updateNotebook(db: Database, actor: Actor, id: string, input: { title?: string; visibility?: 'private' | 'link' }): Promise<NotebookBody> {
+/**
+ * `PATCH /api/notebooks/:id`: a new title or description needs `edit` (and counts as a
+ * change of the notebook), a new visibility needs `share`.
+ */
+export async function updateNotebook(
+  db: Database,
+  actor: Actor,
+  id: string,
+  input: { title?: string; description?: string; visibility?: 'private' | 'link' },
+): Promise<NotebookBody> {
   return inTransaction(db, async (manager) => {
-    if (input.title !== undefined) await loadNotebookFor(manager, actor, id, 'edit', { lock: true });
+    const edits = input.title !== undefined || input.description !== undefined;
+    if (edits) await loadNotebookFor(manager, actor, id, 'edit', { lock: true });
     if (input.visibility !== undefined) await loadNotebookFor(manager, actor, id, 'share', { lock: true });
     const changes: Partial<Notebook> = {};
-    if (input.title !== undefined) Object.assign(changes, { title: input.title, updatedAt: new Date() });
+    if (input.title !== undefined) changes.title = input.title;
+    if (input.description !== undefined) changes.description = input.description;
+    if (edits) changes.updatedAt = new Date();
     if (input.visibility !== undefined) changes.visibility = input.visibility;
     await manager.update(Notebook, { id }, changes);
     const row = await notebookRow(manager, id, actor.id);

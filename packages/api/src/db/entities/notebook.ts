@@ -12,6 +12,10 @@ export class Notebook {
   @Column({ type: 'varchar', length: 200 })
   title!: string;
 
+  /** Plain text under the title (never rendered as Markdown); empty when there is none. */
+  @Column({ type: 'varchar', length: 2000, default: '' })
+  description!: string;
+
   @Column({ type: 'int', unsigned: true })
   ownerId!: number;
 

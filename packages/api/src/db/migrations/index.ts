@@ -7,6 +7,8 @@ import { CreateCells1764633600005 } from './1764633600005-create-cells.js';
 import { CreateVersions1764633600006 } from './1764633600006-create-versions.js';
 import { CreateReviewsAndPins1764633600007 } from './1764633600007-create-reviews-and-pins.js';
 import { CreateMail1764633600008 } from './1764633600008-create-mail.js';
+import { AddNotebookDescription1764633600009 } from './1764633600009-add-notebook-description.js';
+import { AddNotebookSortKeys1764633600010 } from './1764633600010-add-notebook-sort-keys.js';
 
 /**
  * Every migration, oldest first. Listed by class rather than found by a file glob, so the
@@ -22,4 +24,6 @@ export const migrations = [
   CreateVersions1764633600006,
   CreateReviewsAndPins1764633600007,
   CreateMail1764633600008,
+  AddNotebookDescription1764633600009,
+  AddNotebookSortKeys1764633600010,
 ];

@@ -278,6 +278,8 @@ export interface DemoCell {
 export interface DemoNotebook {
   key: string;
   title: string;
+  /** Plain text shown under the title. */
+  description: string;
   owner: string;
   members: [string, MemberRole][];
   visibility: 'private' | 'link';
@@ -292,6 +294,7 @@ export const demoNotebooks: DemoNotebook[] = [
   {
     key: 'anti-alias',
     title: 'Anti-alias filter for the vibration-sensor converter',
+    description: 'Filter between the VS-200 charge amplifier and the converter: flat to 2 kHz, at least 40 dB down from 14 kHz at 16 kS/s.',
     owner: 'ines.carvalho',
     members: [
       ['tobias.okafor', 'editor'],
@@ -338,6 +341,7 @@ stays near 43 dB. Tobias will measure the first boards on the bench next week.`,
   {
     key: 'tone',
     title: 'Tone network for the bench audio amplifier',
+    description: 'Gentle bass and treble lift for the BA-40 listening tests; the midrange stays flat.',
     owner: 'tobias.okafor',
     members: [
       ['mara.lindqvist', 'editor'],
@@ -364,6 +368,7 @@ its loss. Shared by link with the whole team for the listening test.
   {
     key: 'decoupling',
     title: 'Decoupling network for the mixed-signal board',
+    description: 'Analog rail of the MX-8 board: below 1 Ω at the converter supply pin from 10 kHz to 50 MHz.',
     owner: 'kenji.arai',
     members: [
       ['priya.venkat', 'editor'],
@@ -398,6 +403,7 @@ the next cell for the anti-resonance we found and the damping arm that tames it.
   {
     key: 'regulator',
     title: 'Compensation of the 3.3 V regulator loop',
+    description: 'Crossover above 20 kHz with at least 45° of phase margin at full load.',
     owner: 'priya.venkat',
     members: [
       ['kenji.arai', 'editor'],

@@ -31,12 +31,13 @@ describe('/api/notebooks/:id/forks', () => {
 
   it('copies the current cells into a notebook of the caller, recording where it came from', async () => {
     const viewer = await buildUser();
-    const source = await buildNotebook({ title: 'Decoupling network', members: [[viewer, 'viewer']] });
+    const source = await buildNotebook({ title: 'Decoupling network', description: 'Analog rail, below 1 Ω from 10 kHz up.', members: [[viewer, 'viewer']] });
     const client = await signedIn(server.url, viewer.login);
     const made = await client.post<Notebook>(`/api/notebooks/${source.id}/forks`, {});
     expect(made.status).toBe(201);
     const fork = NotebookSchema.parse(made.body);
-    expect(fork).toMatchObject({ title: 'Decoupling network (fork)', role: 'owner', owner: { id: viewer.id } });
+    expect(fork).toMatchObject({ title: 'Decoupling network (fork)', description: source.description, role: 'owner', owner: { id: viewer.id }, versionCount: 0 });
+    expect(source.description).toBe('Analog rail, below 1 Ω from 10 kHz up.');
     expect(fork.id).not.toBe(source.id);
     expect(fork.cells.map((c) => [c.kind, c.text, c.revision])).toEqual(source.cells.map((c) => [c.kind, c.text, 1]));
     expect(fork.cells.map((c) => c.id)).not.toEqual(source.cells.map((c) => c.id));
@@ -54,13 +55,17 @@ describe('/api/notebooks/:id/forks', () => {
   });
 
   it('forks from a version, and shows the lineage of a fork of a fork', async () => {
-    const source = await buildNotebook({ title: 'Regulator loop' });
+    const source = await buildNotebook({ title: 'Regulator loop', description: 'Type II compensation.' });
     const owner = await signedIn(server.url, source.ownerUser.login);
     await owner.post(`/api/notebooks/${source.id}/versions`, { label: 'Baseline' });
     await owner.put(`/api/notebooks/${source.id}/cells/${source.cells[1]!.id}`, { text: `${rcLowPass}# after the version\n`, baseRevision: 1 });
 
+    // A version holds cells only: a fork of it takes the source's description as it is now.
+    expect((await owner.patch(`/api/notebooks/${source.id}`, { description: 'Type II compensation, after the bench.' })).status).toBe(200);
+
     const fork = NotebookSchema.parse((await owner.post(`/api/notebooks/${source.id}/forks`, { version: 1, title: 'Loop, type II try' })).body);
     expect(fork.title).toBe('Loop, type II try');
+    expect(fork.description).toBe('Type II compensation, after the bench.');
     expect(fork.cells.map((c) => c.text)).toEqual(source.cells.map((c) => c.text));
     expect(fork.forkedFrom).toEqual({ notebook: { id: source.id, title: 'Regulator loop' }, version: { number: 1, label: 'Baseline' } });
 
