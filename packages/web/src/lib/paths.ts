@@ -14,7 +14,8 @@ export const apiPaths = {
   health: () => '/api/health',
   me: () => '/api/me',
   logout: () => '/auth/logout',
-  notebooks: (params: Omit<NotebookListQuery, 'limit'> & { limit?: number } = {}) => `/api/notebooks${query({ scope: params.scope, q: params.q, cursor: params.cursor, limit: params.limit })}`,
+  notebooks: (params: Omit<NotebookListQuery, 'limit'> & { limit?: number } = {}) =>
+    `/api/notebooks${query({ scope: params.scope, q: params.q, sort: params.sort, order: params.order, cursor: params.cursor, limit: params.limit })}`,
   notebook: (id: string) => `/api/notebooks/${enc(id)}`,
   restoreNotebook: (id: string) => `/api/notebooks/${enc(id)}/restore`,
   cells: (id: string) => `/api/notebooks/${enc(id)}/cells`,
@@ -31,6 +32,15 @@ export const apiPaths = {
   users: (q: string) => `/api/users${query({ q })}`,
   adminUsers: () => '/api/admin/users',
   adminUser: (userId: number) => `/api/admin/users/${userId}`,
+  reviews: (id: string) => `/api/notebooks/${enc(id)}/reviews`,
+  review: (id: string, reviewId: number) => `/api/notebooks/${enc(id)}/reviews/${reviewId}`,
+  reviewDecision: (id: string, reviewId: number) => `/api/notebooks/${enc(id)}/reviews/${reviewId}/decision`,
+  pins: (id: string) => `/api/notebooks/${enc(id)}/pins`,
+  pinComments: (id: string, pinId: number) => `/api/notebooks/${enc(id)}/pins/${pinId}/comments`,
+  pinResolve: (id: string, pinId: number) => `/api/notebooks/${enc(id)}/pins/${pinId}/resolve`,
+  pinReopen: (id: string, pinId: number) => `/api/notebooks/${enc(id)}/pins/${pinId}/reopen`,
+  activity: (id: string, cursor?: string) => `/api/notebooks/${enc(id)}/activity${query({ cursor, limit: 30 })}`,
+  settings: () => '/api/me/settings',
 } as const;
 
 export const appPaths = {
@@ -40,6 +50,11 @@ export const appPaths = {
   cellHistory: (id: string, cellId: number) => `/notebooks/${enc(id)}/cells/${cellId}/history`,
   versions: (id: string) => `/notebooks/${enc(id)}/versions`,
   version: (id: string, number: number) => `/notebooks/${enc(id)}/versions/${number}`,
+  review: (id: string, reviewId: number) => `/notebooks/${enc(id)}/reviews/${reviewId}`,
+  activity: (id: string) => `/notebooks/${enc(id)}/activity`,
+  /** A pin's thread on the notebook page (the address the pin e-mails link to). */
+  pin: (id: string, pinId: number) => `/notebooks/${enc(id)}#pin-${pinId}`,
+  settings: () => '/settings',
   admin: () => '/admin',
   help: () => '/help',
   /** The server's sign-in; it comes back to `returnTo` (a path of this site). */

@@ -1,16 +1,19 @@
 /**
- * The notebook page: header, cells (circuit cells drawn by the circuit feature), forks, and
- * the share dialog. Loaded lazily; its loader warms the notebook in the query cache.
+ * The notebook page: header (with the latest review's state and "Ask for review"), cells
+ * (circuit cells drawn by the circuit feature, with their pins), the pin threads, forks, and
+ * the share dialog. Loaded lazily; its loader warms the notebook in the query cache, and
+ * sends a review e-mail's link (`?review=N`) on to that review.
  */
-import type { CellSaved, Notebook, Visibility } from '@rolloff/api/contract';
+import type { CellSaved, Notebook, Review, Visibility } from '@rolloff/api/contract';
 import { NotebookIdSchema } from '@rolloff/api/contract';
 import { useQueryClient } from '@tanstack/react-query';
-import { useCallback, useState } from 'react';
+import { useCallback, useMemo, useState } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
-import { data, useNavigate, useParams } from 'react-router-dom';
-import { Button } from '../../components/ui/button';
+import { data, Link, redirect, useLocation, useNavigate, useParams } from 'react-router-dom';
+import { Button, buttonClass } from '../../components/ui/button';
 import { Dialog } from '../../components/ui/dialog';
 import { ErrorMessage, Loading } from '../../components/ui/status-message';
+import { useMe } from '../../features/auth/api/get-me';
 import { CellList } from '../../features/cells/components/cell-list';
 import type { CircuitBodyProps } from '../../features/cells/components/cell-list';
 import { CircuitWorkbench } from '../../features/circuit/components/circuit-workbench';
@@ -21,6 +24,13 @@ import { useRestoreNotebook } from '../../features/notebooks/api/restore-noteboo
 import { useUpdateNotebook } from '../../features/notebooks/api/update-notebook';
 import { ForksPanel } from '../../features/notebooks/components/forks-panel';
 import { NotebookHeader } from '../../features/notebooks/components/notebook-header';
+import { usePinList } from '../../features/pins/api/list-pins';
+import { pinLabels, pinMarks } from '../../features/pins/components/pin-labels';
+import { PinList } from '../../features/pins/components/pin-list';
+import { ReviewStatusLink } from '../../features/reviews/components/review-badge';
+import { RequestReviewDialog } from '../../features/reviews/components/request-review-dialog';
+import type { ReviewCandidate } from '../../features/reviews/components/request-review-dialog';
+import { useMemberList } from '../../features/sharing/api/list-members';
 import { ShareDialog } from '../../features/sharing/components/share-dialog';
 import { appPaths } from '../../lib/paths';
 import { orRouteError, requireMe } from '../loaders';
@@ -36,8 +46,82 @@ export function notebookIdOf(params: { id?: string }): string {
 export async function loader({ request, params }: LoaderFunctionArgs) {
   await requireMe(request);
   const id = notebookIdOf(params);
+  const reviewId = Number(new URL(request.url).searchParams.get('review'));
+  if (Number.isInteger(reviewId) && reviewId > 0) throw redirect(appPaths.review(id, reviewId));
   await orRouteError(queryClient.ensureQueryData(notebookQueryOptions(id)));
   return null;
+}
+
+/** "cell 2": where a cell stands among the notebook's live cells. */
+export function cellNamer(cells: readonly { id: number; position: number }[]): (cellId: number) => string {
+  const positions = new Map(cells.map((cell) => [cell.id, cell.position]));
+  return (cellId) => {
+    const position = positions.get(cellId);
+    return position === undefined ? 'a deleted cell' : `cell ${position + 1}`;
+  };
+}
+
+/** The pin threads under the cells; a link to `#pin-N` (a pin e-mail's) opens that one. */
+function PinsSection({ notebook }: { notebook: Notebook }) {
+  const pins = usePinList(notebook.id);
+  const location = useLocation();
+  const focused = Number(/^#pin-(\d+)$/.exec(location.hash)?.[1] ?? NaN);
+  const labels = useMemo(() => pinLabels(pins.data?.items ?? []), [pins.data]);
+  if (pins.isPending) return <Loading text="Loading the pins…" />;
+  if (pins.isError) return <ErrorMessage error={pins.error} retry={() => void pins.refetch()} />;
+  if (pins.data.items.length === 0) return null;
+  return (
+    <section aria-labelledby="pins-heading" className="space-y-3">
+      <h2 id="pins-heading" className="text-lg font-semibold">
+        Pins
+      </h2>
+      <PinList
+        notebookId={notebook.id}
+        pins={pins.data.items}
+        labels={labels}
+        cellName={cellNamer(notebook.cells)}
+        canComment={notebook.permissions.review && !notebook.deletedAt}
+        focusedPinId={Number.isFinite(focused) ? focused : null}
+      />
+    </section>
+  );
+}
+
+/** "Ask for review" and its dialog, for people who may edit. */
+function AskForReview({ notebook }: { notebook: Notebook }) {
+  const [open, setOpen] = useState(false);
+  const me = useMe();
+  const members = useMemberList(notebook.id, open);
+  const client = useQueryClient();
+  const navigate = useNavigate();
+  const candidates = useMemo<ReviewCandidate[] | null>(
+    () => members.data?.items.filter((m) => m.role !== 'viewer' && m.user.id !== me.data?.id).map((m) => ({ user: m.user, role: m.role })) ?? null,
+    [members.data, me.data],
+  );
+  const onRequested = useCallback(
+    (review: Review) => {
+      setOpen(false);
+      // The header's state and the versions (one may have been made for the review) changed.
+      void client.invalidateQueries({ queryKey: notebookQueryOptions(notebook.id).queryKey });
+      navigate(appPaths.review(notebook.id, review.id));
+    },
+    [client, navigate, notebook.id],
+  );
+  return (
+    <>
+      <Button onClick={() => setOpen(true)} data-testid="ask-for-review">
+        Ask for review
+      </Button>
+      <RequestReviewDialog
+        notebookId={notebook.id}
+        open={open}
+        onClose={() => setOpen(false)}
+        candidates={candidates}
+        candidatesError={members.error}
+        onRequested={onRequested}
+      />
+    </>
+  );
 }
 
 /** A file-name stem for downloads: the title in lower-case words. */
@@ -75,6 +159,11 @@ function NotebookPage({ notebook }: { notebook: Notebook }) {
   const update = useUpdateNotebook(notebook.id);
   const key = notebookQueryOptions(notebook.id).queryKey;
   const stem = slugOf(notebook.title);
+  const pins = usePinList(notebook.id);
+  const marksOf = useMemo(() => {
+    const items = pins.data?.items ?? [];
+    return pinMarks(items, pinLabels(items));
+  }, [pins.data]);
 
   const refresh = useCallback(() => void client.invalidateQueries({ queryKey: key, exact: true }), [client, key]);
   const onSaved = useCallback(
@@ -85,6 +174,8 @@ function NotebookPage({ notebook }: { notebook: Notebook }) {
   const renderCircuit = useCallback(
     (props: CircuitBodyProps) => (
       <CircuitWorkbench
+        // Pins sit on the saved revision; while the text differs they would point at nothing.
+        pins={props.text === props.cell.text ? marksOf(props.cell.id, props.cell.revision) : undefined}
         cellKey={`${notebook.id}:${props.cell.id}`}
         text={props.text}
         onChange={props.onChange}
@@ -96,7 +187,7 @@ function NotebookPage({ notebook }: { notebook: Notebook }) {
         helpHref={appPaths.help()}
       />
     ),
-    [notebook.id, stem],
+    [notebook.id, stem, marksOf],
   );
 
   return (
@@ -108,6 +199,22 @@ function NotebookPage({ notebook }: { notebook: Notebook }) {
         forking={fork.isPending}
         onDelete={() => setConfirmDelete(true)}
         deleting={remove.isPending}
+        status={
+          notebook.review ? (
+            <>
+              <span aria-hidden>·</span>
+              <ReviewStatusLink status={notebook.review} href={appPaths.review(notebook.id, notebook.review.reviewId)} />
+            </>
+          ) : null
+        }
+        actions={
+          <>
+            {notebook.permissions.edit && !notebook.deletedAt ? <AskForReview notebook={notebook} /> : null}
+            <Link to={appPaths.activity(notebook.id)} className={buttonClass('secondary')}>
+              Activity
+            </Link>
+          </>
+        }
       />
       {fork.error ? <ErrorMessage error={fork.error} /> : null}
       {notebook.deletedAt ? <DeletedNotice notebook={notebook} /> : null}
@@ -121,6 +228,7 @@ function NotebookPage({ notebook }: { notebook: Notebook }) {
         onSaved={onSaved}
         historyHref={(cellId) => appPaths.cellHistory(notebook.id, cellId)}
       />
+      <PinsSection notebook={notebook} />
       <ForksPanel notebookId={notebook.id} forkCount={notebook.forkCount} />
       {notebook.permissions.share ? (
         <ShareDialog

@@ -3,7 +3,7 @@ import type { LoaderFunctionArgs } from 'react-router-dom';
 import { data, Link, useNavigate, useParams } from 'react-router-dom';
 import { Button } from '../../components/ui/button';
 import { ErrorMessage, Loading } from '../../components/ui/status-message';
-import { MarkdownView } from '../../features/cells/components/markdown-view';
+import { MarkdownView } from '../../components/ui/markdown-view';
 import { CircuitWorkbench } from '../../features/circuit/components/circuit-workbench';
 import { useForkNotebook } from '../../features/notebooks/api/fork-notebook';
 import { notebookQueryOptions, useNotebook } from '../../features/notebooks/api/get-notebook';

@@ -5,7 +5,7 @@ import { RoleBadge } from '../../../components/ui/role-badge';
 import { appPaths } from '../../../lib/paths';
 import { useSignOut } from '../api/sign-out';
 
-/** The signed-in person in the header: name, site role, admin link, sign out. */
+/** The signed-in person in the header: name, site role, settings and admin links, sign out. */
 export function UserMenu({ me }: { me: Me }) {
   const signOut = useSignOut();
   return (
@@ -15,6 +15,9 @@ export function UserMenu({ me }: { me: Me }) {
           Admin
         </Link>
       ) : null}
+      <Link to={appPaths.settings()} className="text-ink-soft hover:text-ink">
+        Settings
+      </Link>
       <span className="flex items-center gap-2" data-testid="signed-in-as" data-login={me.login}>
         <span className="font-medium">{me.name || me.login}</span>
         {me.siteRole === 'admin' ? <RoleBadge role="admin" /> : null}

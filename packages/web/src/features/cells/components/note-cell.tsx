@@ -5,7 +5,7 @@
  */
 import { useEffect, useRef, useState } from 'react';
 import { Button } from '../../../components/ui/button';
-import { MarkdownView } from './markdown-view';
+import { MarkdownView } from '../../../components/ui/markdown-view';
 
 export interface NoteCellProps {
   text: string;

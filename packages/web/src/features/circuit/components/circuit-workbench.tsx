@@ -6,6 +6,7 @@
  */
 import type { Result } from '@rolloff/solver';
 import { useMemo, useRef } from 'react';
+import type { PlotPin } from '../plot/plot-pins';
 import { hazardReasons } from '../lib/hazard';
 import { useAnalysis } from '../worker/use-analysis';
 import { DiagnosticsList } from './diagnostics-list';
@@ -28,12 +29,14 @@ export interface CircuitWorkbenchProps {
   autoFocus?: boolean;
   /** Where the language reference lives. */
   helpHref: string;
+  /** Pins on this text's plot (made on the revision being edited). */
+  pins?: readonly PlotPin[];
 }
 
 const hasErrors = (result: Result) => result.diagnostics.some((d) => d.severity === 'error');
 
 /** The editor, plots and readouts of one circuit cell. */
-export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, filename, onLeave, autoFocus, helpHref }: CircuitWorkbenchProps) {
+export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, filename, onLeave, autoFocus, helpHref, pins }: CircuitWorkbenchProps) {
   const { outcome, busy } = useAnalysis(text, { key: cellKey });
   const lastGood = useRef<Result | null>(null);
   const result = outcome?.ok ? outcome.result : null;
@@ -66,7 +69,7 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
         ) : null}
         {stale ? <p className="text-xs text-warn">The cell has errors: showing the last result that solved.</p> : null}
         <div className={stale ? 'opacity-60' : ''}>
-          {shown ? <LazyCircuitPlots series={series} filename={filename} /> : <PlotPlaceholder text={outcome ? 'Nothing to plot: fix the errors or add a show line.' : 'Solving…'} />}
+          {shown ? <LazyCircuitPlots series={series} filename={filename} pins={pins} /> : <PlotPlaceholder text={outcome ? 'Nothing to plot: fix the errors or add a show line.' : 'Solving…'} />}
         </div>
         {shown ? (
           <>

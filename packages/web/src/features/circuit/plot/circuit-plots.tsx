@@ -1,8 +1,10 @@
 /**
  * The plots of one cell (or of several revisions overlaid): each figure with its download
- * buttons. Loaded lazily (default export), as it brings Plotly with it.
+ * buttons, and pins on it when given. Loaded lazily (default export), as it brings Plotly.
  */
 import { useMemo, useRef } from 'react';
+import { readPlotPick } from './plot-pins';
+import type { PlotPick, PlotPin } from './plot-pins';
 import { PlotlyChart } from './plotly-chart';
 import type { ChartHandle } from './plotly-chart';
 import { usePlotTheme } from './plot-theme';
@@ -15,9 +17,15 @@ export interface CircuitPlotsProps {
   filename: string;
   /** Smaller plots, for the landing page and overlays. */
   compact?: boolean;
+  /** Pins drawn on the first series' traces. */
+  pins?: readonly PlotPin[];
+  /** A click on a plot: a frequency on a trace, or a pin. */
+  onPick?: (pick: PlotPick) => void;
 }
 
-function FigurePanel({ figure, filename, compact }: { figure: Figure; filename: string; compact: boolean }) {
+const NO_PINS: readonly PlotPin[] = [];
+
+function FigurePanel({ figure, filename, compact, onPick }: { figure: Figure; filename: string; compact: boolean; onPick?: (pick: PlotPick) => void }) {
   const chart = useRef<ChartHandle>(null);
   const stem = `${filename}-${figure.kind}`;
   const height = figure.kind === 'bode' || figure.kind === 'impedance' ? (compact ? 'h-80' : 'h-[26rem]') : compact ? 'h-56' : 'h-72';
@@ -39,22 +47,35 @@ function FigurePanel({ figure, filename, compact }: { figure: Figure; filename: 
           ))}
         </span>
       </figcaption>
-      <PlotlyChart ref={chart} figure={figure} label={figure.title} className={`w-full ${height}`} />
+      <PlotlyChart
+        ref={chart}
+        figure={figure}
+        label={figure.title}
+        className={`w-full ${height} ${onPick ? 'cursor-crosshair' : ''}`}
+        onPointClick={
+          onPick
+            ? (points) => {
+                const pick = readPlotPick(figure.targets, points);
+                if (pick) onPick(pick);
+              }
+            : undefined
+        }
+      />
     </figure>
   );
 }
 
 /** Every figure the series have something for. */
-export default function CircuitPlots({ series, filename, compact = false }: CircuitPlotsProps) {
+export default function CircuitPlots({ series, filename, compact = false, pins = NO_PINS, onPick }: CircuitPlotsProps) {
   const theme = usePlotTheme();
-  const figures = useMemo(() => figuresFor(series, theme), [series, theme]);
+  const figures = useMemo(() => figuresFor(series, theme, pins), [series, theme, pins]);
   if (figures.length === 0) {
     return <p className="rounded-lg border border-dashed border-rule px-4 py-8 text-center text-sm text-ink-faint">Nothing to plot yet: add a show line.</p>;
   }
   return (
     <div className="space-y-3">
       {figures.map((figure) => (
-        <FigurePanel key={figure.kind} figure={figure} filename={filename} compact={compact} />
+        <FigurePanel key={figure.kind} figure={figure} filename={filename} compact={compact} onPick={onPick} />
       ))}
     </div>
   );

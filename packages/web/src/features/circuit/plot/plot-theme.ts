@@ -18,6 +18,7 @@ export function readPlotTheme(): PlotTheme {
     panel: get('--panel', '#fffdf9'),
     pass: get('--pass', '#2f7a4f'),
     fail: get('--fail', '#b4462f'),
+    pin: get('--sand', '#c99a3c'),
     traces: [1, 2, 3, 4, 5, 6].map((i) => get(`--trace-${i}`, '#1f5d6b')),
   };
 }

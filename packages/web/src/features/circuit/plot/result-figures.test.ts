@@ -15,6 +15,7 @@ const theme: PlotTheme = {
   panel: '#ffffff',
   pass: '#00aa00',
   fail: '#aa0000',
+  pin: '#cc9900',
   traces: ['#000001', '#000002', '#000003'],
 };
 

@@ -3,11 +3,16 @@
  * degrees on one log-frequency axis), an impedance plot (|Z| in Ω, log-log, with phase), a
  * noise-density plot and a step-response plot. Markers and requirement shading come from the
  * Result's readouts and requirements; nothing numerical is computed here beyond placing them.
- * Pure functions of plain data, so they are tested without a browser's Plotly.
+ * A loop trace carries its margins on the plot (loop-margins.ts), and pins, when given, sit
+ * on their traces (plot-pins.ts). Pure functions of plain data, so they are tested without a
+ * browser's Plotly.
  */
 import { formatSi } from '@rolloff/solver';
 import type { NumberArray, Readout, RequirementResult, Result, TraceResult } from '@rolloff/solver';
 import type { Annotation, Layout, ScatterData, Shape } from 'plotly.js-dist-min';
+import { loopMarginMarks } from './loop-margins';
+import { pinMarkers } from './plot-pins';
+import type { PlotPin, PlotTarget } from './plot-pins';
 import { parseRequirementRange } from './requirement-ranges';
 import type { RequirementRange } from './requirement-ranges';
 
@@ -21,6 +26,8 @@ export interface PlotTheme {
   panel: string;
   pass: string;
   fail: string;
+  /** Pins on the plot. */
+  pin: string;
   traces: readonly string[];
 }
 
@@ -39,6 +46,8 @@ export interface Figure {
   title: string;
   data: Partial<ScatterData>[];
   layout: Partial<Layout>;
+  /** What each entry of `data` stands for (by index, as Plotly's `curveNumber`), for clicks. */
+  targets: (PlotTarget | null)[];
 }
 
 const BODE_KINDS: ReadonlySet<TraceResult['kind']> = new Set(['ratio', 'loop', 'transimpedance', 'current']);
@@ -183,38 +192,6 @@ function frequencyMarkers(readouts: Readout[], traceColour: (trace: string) => s
       });
       slot += 1;
     }
-    const crossover = find('crossover');
-    const phaseMargin = find('phase-margin');
-    if (crossover && phaseMargin && crossover.value > 0) {
-      annotations.push({
-        xref: 'x',
-        yref: 'y2 domain',
-        x: Math.log10(crossover.value),
-        y: 0.95,
-        yanchor: 'top',
-        ...labelSide(crossover.value, frequencies),
-        showarrow: false,
-        text: `phase margin ${formatSi(phaseMargin.value, 'deg')}`,
-        font: { color: colour, size: 11 },
-        bgcolor: theme.panel,
-      });
-    }
-    const phaseCrossover = find('phase-crossover');
-    const gainMargin = find('gain-margin');
-    if (phaseCrossover && gainMargin && phaseCrossover.value > 0) {
-      annotations.push({
-        xref: 'x',
-        yref: 'y domain',
-        x: Math.log10(phaseCrossover.value),
-        y: 0.08,
-        yanchor: 'bottom',
-        ...labelSide(phaseCrossover.value, frequencies),
-        showarrow: false,
-        text: `gain margin ${formatSi(gainMargin.value, 'dB')}`,
-        font: { color: colour, size: 11 },
-        bgcolor: theme.panel,
-      });
-    }
   }
   return { shapes, annotations };
 }
@@ -358,13 +335,14 @@ function slotsOf(series: PlotSeries[], kinds: (kind: TraceResult['kind']) => boo
   return slots;
 }
 
-function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme: PlotTheme): Figure | null {
+function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme: PlotTheme, pins: readonly PlotPin[]): Figure | null {
   const slots = slotsOf(series, kind === 'bode' ? (k) => BODE_KINDS.has(k) : (k) => k === 'impedance', theme);
   if (slots.length === 0) return null;
   const primary = series[0].result;
   const frequencies = primary.frequencies;
   const data: Partial<ScatterData>[] = [];
-  for (const { series: s, trace, colour } of slots) {
+  const targets: (PlotTarget | null)[] = [];
+  for (const { series: s, seriesIndex, trace, colour } of slots) {
     const x = finiteOrNull(s.result.frequencies);
     const customdata = hoverData(s.result.frequencies, trace, kind === 'bode' ? 'dB' : 'linear');
     const line = { color: colour, width: 2, dash: s.dash ?? 'solid' };
@@ -396,6 +374,9 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
       customdata,
       hovertemplate: HOVER,
     });
+    // Only the primary series can be pinned: the others are earlier revisions for comparison.
+    const target: PlotTarget | null = seriesIndex === 0 ? { kind: 'trace', trace: trace.label } : null;
+    targets.push(target, target);
   }
   const placed = placeRequirements(primary).filter((p) => slots.some((s) => s.seriesIndex === 0 && s.trace === p.trace));
   const magnitudeMeasures = kind === 'bode' ? ['gain'] : ['magnitude'];
@@ -409,7 +390,17 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
   const primaryColour = (label: string) => slots.find((s) => s.seriesIndex === 0 && s.trace.label === label)?.colour ?? null;
   const markers = frequencyMarkers(primary.readouts, primaryColour, theme, frequencies);
   const impedanceMarkers = kind === 'impedance' ? minimumImpedanceMarkers(primary.readouts, primaryColour, theme) : { points: [], annotations: [] };
-  data.push(...magnitudeShading.points, ...phaseShading.points, ...impedanceMarkers.points);
+  const primarySlots = slots.filter((s) => s.seriesIndex === 0);
+  const margins = primarySlots.map((s) => loopMarginMarks(s.trace, primary.readouts, frequencies, s.colour, theme.panel));
+  const pinned = pinMarkers(
+    pins,
+    primarySlots.map((s) => ({ label: s.trace.label, values: kind === 'bode' ? s.trace.magnitudeDb : s.trace.magnitude })),
+    frequencies,
+    theme.pin,
+  );
+  const marks = [...magnitudeShading.points, ...phaseShading.points, ...impedanceMarkers.points];
+  data.push(...marks, ...pinned.data);
+  targets.push(...marks.map(() => null), ...pinned.targets);
   const layout: Partial<Layout> = {
     ...baseLayout(theme),
     xaxis: frequencyAxis(theme, frequencies, 'y2'),
@@ -420,10 +411,16 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
       ...(kind === 'bode' ? { range: magnitudeRange } : { type: 'log' as const, range: magnitudeRange, exponentformat: 'SI' as const }),
     },
     yaxis2: { ...axisStyle(theme), domain: [0, 0.34], title: { text: 'phase (°)' }, range: phase, dtick: phaseTick(phase) },
-    shapes: [...frequencyRequirementShapes(placed, frequencies, theme), ...magnitudeShading.shapes, ...phaseShading.shapes, ...markers.shapes],
-    annotations: [...markers.annotations, ...impedanceMarkers.annotations],
+    shapes: [
+      ...frequencyRequirementShapes(placed, frequencies, theme),
+      ...magnitudeShading.shapes,
+      ...phaseShading.shapes,
+      ...markers.shapes,
+      ...margins.flatMap((m) => m.shapes),
+    ],
+    annotations: [...markers.annotations, ...margins.flatMap((m) => m.annotations), ...impedanceMarkers.annotations, ...pinned.annotations],
   };
-  return { kind, title: kind === 'bode' ? 'Bode plot' : 'Impedance', data, layout };
+  return { kind, title: kind === 'bode' ? 'Bode plot' : 'Impedance', data, layout, targets };
 }
 
 /** Log-axis range (in decades) around positive data and limits. */
@@ -474,7 +471,7 @@ function noiseFigure(series: PlotSeries[], theme: PlotTheme): Figure | null {
     xaxis: frequencyAxis(theme, series[0].result.frequencies, 'y'),
     yaxis: { ...axisStyle(theme), type: 'log', title: { text: 'noise density (V/√Hz)' }, exponentformat: 'SI' },
   };
-  return { kind: 'noise', title: 'Noise density', data, layout };
+  return { kind: 'noise', title: 'Noise density', data, layout, targets: data.map(() => null) };
 }
 
 function stepFigure(series: PlotSeries[], theme: PlotTheme): Figure | null {
@@ -501,16 +498,19 @@ function stepFigure(series: PlotSeries[], theme: PlotTheme): Figure | null {
     xaxis: { ...axisStyle(theme), title: { text: 'time (s)' }, exponentformat: 'SI' },
     yaxis: { ...axisStyle(theme), title: { text: 'step response' } },
   };
-  return { kind: 'step', title: 'Step response', data, layout };
+  return { kind: 'step', title: 'Step response', data, layout, targets: data.map(() => null) };
 }
 
-/** Every figure a Result has something for, in the order a cell shows them. */
-export function figuresFor(series: PlotSeries[], theme: PlotTheme): Figure[] {
+/**
+ * Every figure a Result has something for, in the order a cell shows them; `pins` are drawn
+ * on the Bode and impedance plots of the first series.
+ */
+export function figuresFor(series: PlotSeries[], theme: PlotTheme, pins: readonly PlotPin[] = []): Figure[] {
   if (series.length === 0 || series[0].result.frequencies.length === 0) {
     const steps = series.length > 0 ? stepFigure(series, theme) : null;
     return steps ? [steps] : [];
   }
-  return [gainPhaseFigure('bode', series, theme), gainPhaseFigure('impedance', series, theme), noiseFigure(series, theme), stepFigure(series, theme)].filter(
+  return [gainPhaseFigure('bode', series, theme, pins), gainPhaseFigure('impedance', series, theme, pins), noiseFigure(series, theme), stepFigure(series, theme)].filter(
     (f): f is Figure => f !== null,
   );
 }

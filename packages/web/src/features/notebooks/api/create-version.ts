@@ -4,6 +4,7 @@ import type { Version, VersionCreate } from '@rolloff/api/contract';
 import { apiRequest } from '../../../lib/api-client';
 import { apiPaths } from '../../../lib/paths';
 import { versionQueryOptions } from './get-version';
+import { notebookListsKey } from './list-notebooks';
 import { versionListQueryOptions } from './list-versions';
 
 /** Labels a snapshot of every cell's current revision. */
@@ -18,6 +19,8 @@ export const useCreateVersion = (id: string) => {
     onSuccess: (version) => {
       client.setQueryData(versionQueryOptions(id, version.number).queryKey, version);
       void client.invalidateQueries({ queryKey: versionListQueryOptions(id).queryKey, exact: true });
+      // The lists show how many versions each notebook has.
+      void client.invalidateQueries({ queryKey: notebookListsKey() });
     },
   });
 };

@@ -6,7 +6,7 @@ import { apiPaths } from '../../../lib/paths';
 
 type ListParams = Omit<NotebookListQuery, 'limit'> & { limit?: number };
 
-/** One page of the notebooks the caller can open, newest change first. */
+/** One page of the notebooks the caller can open, in the order asked for (newest change first by default). */
 export function listNotebooks(params: ListParams, signal?: AbortSignal): Promise<NotebookList> {
   return apiRequest(apiPaths.notebooks(params), NotebookListSchema, { signal });
 }

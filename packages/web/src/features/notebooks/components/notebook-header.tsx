@@ -1,13 +1,17 @@
 /**
- * The top of a notebook page: title, owner and the caller's role, where it was forked from,
- * and the actions the caller's role allows (Share, Fork, Versions, Delete).
+ * The top of a notebook page: title, description, owner and the caller's role, where it was
+ * forked from, and the actions the caller's role allows (Share, Fork, Versions, Delete). The
+ * page adds what other features show there (the review state, asking for a review) through
+ * slots.
  */
 import type { Notebook } from '@rolloff/api/contract';
+import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { Button, buttonClass } from '../../../components/ui/button';
 import { RoleBadge } from '../../../components/ui/role-badge';
 import { exactTime, timeAgo } from '../../../lib/format-time';
 import { appPaths } from '../../../lib/paths';
+import { NotebookDescription } from './notebook-description';
 import { NotebookTitle } from './notebook-title';
 
 export interface NotebookHeaderProps {
@@ -17,6 +21,10 @@ export interface NotebookHeaderProps {
   forking: boolean;
   onDelete: () => void;
   deleting: boolean;
+  /** Shown after the notebook's facts, e.g. the latest review's state. */
+  status?: ReactNode;
+  /** More actions, placed before Versions. */
+  actions?: ReactNode;
 }
 
 /** Where a fork came from, linked when the caller may open it. */
@@ -40,13 +48,14 @@ export function ForkOrigin({ notebook }: { notebook: Notebook }) {
 }
 
 /** The header of a notebook page. */
-export function NotebookHeader({ notebook, onShare, onFork, forking, onDelete, deleting }: NotebookHeaderProps) {
+export function NotebookHeader({ notebook, onShare, onFork, forking, onDelete, deleting, status, actions }: NotebookHeaderProps) {
   const { permissions } = notebook;
   return (
     <header className="space-y-2 border-b border-rule pb-4">
       <div className="flex flex-wrap items-start justify-between gap-3">
         <div className="min-w-0 flex-1 space-y-1">
           <NotebookTitle notebook={notebook} />
+          <NotebookDescription notebook={notebook} />
           <p className="flex flex-wrap items-center gap-2 text-sm text-ink-soft">
             <span>by {notebook.owner.name || notebook.owner.login}</span>
             <span aria-hidden>·</span>
@@ -61,6 +70,7 @@ export function NotebookHeader({ notebook, onShare, onFork, forking, onDelete, d
                 <span>link sharing on</span>
               </>
             ) : null}
+            {status}
           </p>
           <ForkOrigin notebook={notebook} />
         </div>
@@ -75,6 +85,7 @@ export function NotebookHeader({ notebook, onShare, onFork, forking, onDelete, d
               {forking ? 'Forking…' : 'Fork'}
             </Button>
           ) : null}
+          {actions}
           <Link to={appPaths.versions(notebook.id)} className={buttonClass('secondary')}>
             Versions
           </Link>

@@ -1,10 +1,11 @@
 /**
  * The notebooks the user can open: search, scope (mine, shared with me, all, deleted),
- * sorting by any column, and paging. Search and scope live in the address, so a reload or
- * a shared link keeps them.
+ * sorting by title, creation or last change, and paging. The server sorts and pages, so
+ * every page follows the chosen order. Search, scope and sort live in the address, so a
+ * reload or a shared link keeps them.
  */
-import type { NotebookScope, NotebookSummary } from '@rolloff/api/contract';
-import { useEffect, useMemo, useState } from 'react';
+import type { NotebookScope, NotebookSort } from '@rolloff/api/contract';
+import { useEffect, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { RoleBadge } from '../../../components/ui/role-badge';
@@ -13,6 +14,7 @@ import { exactTime, timeAgo } from '../../../lib/format-time';
 import { appPaths } from '../../../lib/paths';
 import { useNotebookList } from '../api/list-notebooks';
 import { useRestoreNotebook } from '../api/restore-notebook';
+import { nextSort, sortFromParams, withSort } from '../lib/list-sort';
 import { NewNotebookButton } from './new-notebook-dialog';
 
 const SCOPES: { value: NotebookScope; label: string }[] = [
@@ -21,26 +23,6 @@ const SCOPES: { value: NotebookScope; label: string }[] = [
   { value: 'shared', label: 'Shared with me' },
   { value: 'deleted', label: 'Deleted' },
 ];
-
-type SortKey = 'title' | 'owner' | 'role' | 'updatedAt' | 'cellCount' | 'forkCount';
-const ROLE_ORDER = { owner: 0, editor: 1, reviewer: 2, viewer: 3 } as const;
-
-function compare(a: NotebookSummary, b: NotebookSummary, key: SortKey): number {
-  switch (key) {
-    case 'title':
-      return a.title.localeCompare(b.title);
-    case 'owner':
-      return (a.owner.name || a.owner.login).localeCompare(b.owner.name || b.owner.login);
-    case 'role':
-      return ROLE_ORDER[a.role] - ROLE_ORDER[b.role];
-    case 'updatedAt':
-      return a.updatedAt.localeCompare(b.updatedAt);
-    case 'cellCount':
-      return a.cellCount - b.cellCount;
-    case 'forkCount':
-      return a.forkCount - b.forkCount;
-  }
-}
 
 function useDebounced<T>(value: T, ms: number): T {
   const [debounced, setDebounced] = useState(value);
@@ -57,13 +39,17 @@ export function NotebooksTable() {
   const scope = (SCOPES.find((s) => s.value === params.get('scope'))?.value ?? 'all') as NotebookScope;
   const [search, setSearch] = useState(params.get('q') ?? '');
   const q = useDebounced(search.trim(), 300);
-  const [cursors, setCursors] = useState<(string | undefined)[]>([undefined]);
-  const [sort, setSort] = useState<{ key: SortKey; descending: boolean }>({ key: 'updatedAt', descending: true });
-  const list = useNotebookList({ scope, q: q || undefined, cursor: cursors[cursors.length - 1] });
+  const sort = sortFromParams(params);
+  // Cursors belong to one list (scope, search and sort): another list starts on its first page.
+  const listKey = [scope, q, sort.sort, sort.order].join('\n');
+  const [paging, setPaging] = useState<{ listKey: string; cursors: (string | undefined)[] }>({ listKey, cursors: [undefined] });
+  const cursors = paging.listKey === listKey ? paging.cursors : [undefined];
+  const setCursors = (next: (current: (string | undefined)[]) => (string | undefined)[]) => setPaging({ listKey, cursors: next(cursors) });
+  const list = useNotebookList({ scope, q: q || undefined, sort: sort.sort, order: sort.order, cursor: cursors[cursors.length - 1] });
   const restore = useRestoreNotebook();
+  const rows = list.data?.items ?? [];
 
   useEffect(() => {
-    setCursors([undefined]);
     setParams(
       (old) => {
         const next = new URLSearchParams(old);
@@ -73,29 +59,25 @@ export function NotebooksTable() {
       },
       { replace: true },
     );
-  }, [q, scope, setParams]);
+  }, [q, setParams]);
 
-  const rows = useMemo(() => {
-    const items = [...(list.data?.items ?? [])];
-    items.sort((a, b) => compare(a, b, sort.key) * (sort.descending ? -1 : 1));
-    return items;
-  }, [list.data, sort]);
-
-  const header = (key: SortKey, label: string, className = '') => {
-    const active = sort.key === key;
+  const sortable = (key: NotebookSort, label: string) => {
+    const active = sort.sort === key;
+    const descending = sort.order === 'desc';
     return (
-      <th scope="col" className={`px-3 py-2 font-medium ${className}`} aria-sort={active ? (sort.descending ? 'descending' : 'ascending') : 'none'}>
-        <button
-          type="button"
-          className="inline-flex items-center gap-1 uppercase tracking-wide hover:text-ink"
-          onClick={() => setSort({ key, descending: active ? !sort.descending : key === 'updatedAt' })}
-        >
+      <th scope="col" className="px-3 py-2 font-medium" aria-sort={active ? (descending ? 'descending' : 'ascending') : 'none'}>
+        <button type="button" className="inline-flex items-center gap-1 uppercase tracking-wide hover:text-ink" onClick={() => setParams((old) => withSort(old, nextSort(sort, key)))}>
           {label}
-          <span aria-hidden>{active ? (sort.descending ? '↓' : '↑') : ''}</span>
+          <span aria-hidden>{active ? (descending ? '↓' : '↑') : ''}</span>
         </button>
       </th>
     );
   };
+  const plain = (label: string, className = '') => (
+    <th scope="col" className={`px-3 py-2 font-medium uppercase tracking-wide ${className}`}>
+      {label}
+    </th>
+  );
 
   return (
     <div className="space-y-4">
@@ -151,12 +133,14 @@ export function NotebooksTable() {
           <table className="w-full text-sm" data-testid="notebooks">
             <thead className="bg-sunken text-left text-xs text-ink-faint">
               <tr>
-                {header('title', 'Title')}
-                {header('owner', 'Owner')}
-                {header('role', 'Your role')}
-                {header('updatedAt', 'Last change')}
-                {header('cellCount', 'Cells', 'text-right')}
-                {header('forkCount', 'Forks', 'text-right')}
+                {sortable('title', 'Title')}
+                {plain('Owner')}
+                {plain('Your role')}
+                {sortable('created', 'Created')}
+                {sortable('changed', 'Last change')}
+                {plain('Versions', 'text-right')}
+                {plain('Cells', 'text-right')}
+                {plain('Forks', 'text-right')}
                 {scope === 'deleted' ? <th className="px-3 py-2" /> : null}
               </tr>
             </thead>
@@ -177,9 +161,13 @@ export function NotebooksTable() {
                   <td className="px-3 py-2">
                     <RoleBadge role={notebook.role} />
                   </td>
+                  <td className="px-3 py-2 text-ink-soft" title={exactTime(notebook.createdAt)}>
+                    {timeAgo(notebook.createdAt)}
+                  </td>
                   <td className="px-3 py-2 text-ink-soft" title={exactTime(notebook.updatedAt)}>
                     {timeAgo(notebook.updatedAt)}
                   </td>
+                  <td className="px-3 py-2 text-right tabular-nums">{notebook.versionCount}</td>
                   <td className="px-3 py-2 text-right tabular-nums">{notebook.cellCount}</td>
                   <td className="px-3 py-2 text-right tabular-nums">{notebook.forkCount}</td>
                   {scope === 'deleted' ? (
@@ -199,15 +187,14 @@ export function NotebooksTable() {
       {cursors.length > 1 || list.data?.nextCursor ? (
         <nav aria-label="Pages" className="flex items-center justify-between text-sm">
           <Button disabled={cursors.length <= 1} onClick={() => setCursors((c) => c.slice(0, -1))}>
-            ← Newer
+            ← Previous
           </Button>
           <span className="text-ink-faint">Page {cursors.length}</span>
           <Button disabled={!list.data?.nextCursor} onClick={() => list.data?.nextCursor && setCursors((c) => [...c, list.data.nextCursor ?? undefined])}>
-            Older →
+            Next →
           </Button>
         </nav>
       ) : null}
-      {rows.length > 1 ? <p className="text-xs text-ink-faint">Sorting orders the page shown; pages follow the last change, newest first.</p> : null}
     </div>
   );
 }

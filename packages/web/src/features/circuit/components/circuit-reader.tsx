@@ -1,0 +1,73 @@
+/**
+ * A circuit cell for reading, as a review shows it: the plots across the page with the
+ * loop margins and pins on them, the readouts and requirement results under them, and the
+ * cell's text read-only beside those. A click on a plot picks a frequency on a trace.
+ */
+import type { ReactNode } from 'react';
+import { useMemo } from 'react';
+import type { PlotPick, PlotPin } from '../plot/plot-pins';
+import { hazardReasons } from '../lib/hazard';
+import { useAnalysis } from '../worker/use-analysis';
+import { DiagnosticsList } from './diagnostics-list';
+import { HazardCaution, SmallSignalNote } from './hazard-caution';
+import { LazyCircuitEditor, LazyCircuitPlots, PlotPlaceholder } from './lazy-parts';
+import { ReadoutsPanel } from './readouts-panel';
+import { RequirementBadges } from './requirement-badges';
+
+export interface CircuitReaderProps {
+  /** Separates this cell's analyses from other cells'. */
+  cellKey: string;
+  text: string;
+  /** Accessible name of the cell's text. */
+  label: string;
+  /** File name stem of plot downloads. */
+  filename: string;
+  pins?: readonly PlotPin[];
+  onPick?: (pick: PlotPick) => void;
+  /** Shown under the readouts, given the labels of the traces the cell draws (to pin on). */
+  footer?: (traces: readonly string[]) => ReactNode;
+}
+
+const NO_TRACES: readonly string[] = [];
+
+/** One circuit cell, read-only, with everything a reviewer reads off it. */
+export function CircuitReader({ cellKey, text, label, filename, pins, onPick, footer }: CircuitReaderProps) {
+  const { outcome } = useAnalysis(text, { key: cellKey });
+  const result = outcome?.ok ? outcome.result : null;
+  const series = useMemo(() => (result ? [{ result }] : []), [result]);
+  const traces = useMemo(() => (result ? result.traces.filter((t) => t.kind !== 'noise').map((t) => t.label) : NO_TRACES), [result]);
+  const reasons = useMemo(() => hazardReasons(text), [text]);
+  const diagnostics = useMemo(() => (outcome?.ok ? { text: outcome.text, items: outcome.result.diagnostics } : null), [outcome]);
+
+  return (
+    <div className="space-y-3" data-testid="circuit-reader">
+      <HazardCaution reasons={reasons} />
+      {outcome && !outcome.ok ? (
+        <p role="alert" className="rounded-lg border border-fail bg-fail-soft p-3 text-sm text-fail">
+          The solver could not run this cell: {outcome.message}
+        </p>
+      ) : null}
+      {result && result.traces.length > 0 ? (
+        <LazyCircuitPlots series={series} filename={filename} pins={pins} onPick={onPick} />
+      ) : (
+        <PlotPlaceholder text={outcome ? 'This revision has nothing to plot.' : 'Solving…'} />
+      )}
+      <div className="grid gap-3 lg:grid-cols-2">
+        <div className="min-w-0 space-y-3">
+          {result ? (
+            <>
+              <ReadoutsPanel readouts={result.readouts} />
+              <RequirementBadges requirements={result.requirements} traces={result.traces} />
+            </>
+          ) : null}
+          <SmallSignalNote />
+        </div>
+        <div className="min-w-0 space-y-2">
+          <LazyCircuitEditor value={text} diagnostics={diagnostics} readOnly label={label} />
+          {result ? <DiagnosticsList diagnostics={result.diagnostics} /> : null}
+        </div>
+      </div>
+      {footer ? footer(traces) : null}
+    </div>
+  );
+}

@@ -1,0 +1,37 @@
+/** A review state as a small badge, and the notebook header's link to the latest round. */
+import type { ReviewState, ReviewStatus } from '@rolloff/api/contract';
+import { Link } from 'react-router-dom';
+import { REVIEW_STATE_WORDS } from './review-state';
+
+const TONES: Record<ReviewState, string> = {
+  requested: 'bg-accent-soft text-accent',
+  changes_asked: 'bg-warn-soft text-warn',
+  signed_off: 'bg-pass-soft text-pass',
+};
+
+/** "requested", "changes asked" or "signed off", in its colour. */
+export function ReviewStateBadge({ state }: { state: ReviewState }) {
+  return (
+    <span className={`inline-flex rounded-full px-2 py-0.5 text-xs font-semibold ${TONES[state]}`} data-testid="review-state" data-state={state}>
+      {REVIEW_STATE_WORDS[state]}
+    </span>
+  );
+}
+
+/** The latest round in brief, linked to its review view: "Review: changes asked · version 2". */
+export function ReviewStatusLink({ status, href }: { status: ReviewStatus; href: string }) {
+  return (
+    <Link
+      to={href}
+      className="inline-flex items-center gap-1.5 rounded-full border border-rule px-2 py-0.5 text-sm hover:bg-sunken"
+      data-testid="review-status"
+      data-state={status.state}
+      data-version={status.versionNumber}
+      aria-label={`Review round ${status.round}: ${REVIEW_STATE_WORDS[status.state]}, version ${status.versionNumber}`}
+    >
+      <span className="text-ink-soft">Review</span>
+      <ReviewStateBadge state={status.state} />
+      <span className="text-ink-soft">version {status.versionNumber}</span>
+    </Link>
+  );
+}
