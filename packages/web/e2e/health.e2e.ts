@@ -15,7 +15,14 @@ describe('the home page served by the API', () => {
     const { page } = session;
     const failed: string[] = [];
     const elsewhere: string[] = [];
-    page.on('requestfailed', (request) => failed.push(request.url()));
+    // An aborted request (the browser dropping a duplicate icon fetch, say) is not a failure.
+    page.on('requestfailed', (request) => {
+      if (request.failure()?.errorText !== 'net::ERR_ABORTED') failed.push(request.url());
+    });
+    // Every file of the app loads; API answers (a 401 from /api/me when signed out) are the page's business.
+    page.on('response', (response) => {
+      if (response.status() >= 400 && !response.url().startsWith(`${baseUrl}/api/`)) failed.push(`${response.status()} ${response.url()}`);
+    });
     page.on('request', (request) => {
       const url = request.url();
       if (!url.startsWith(baseUrl) && !url.startsWith('data:')) elsewhere.push(url);
