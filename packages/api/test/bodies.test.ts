@@ -1,10 +1,8 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { disconnect } from '../src/db/connection.js';
+import { beforeAll, describe, expect, it } from 'vitest';
 import type { Client } from './client.js';
 import { signedIn } from './client.js';
 import { buildNotebook } from './factories.js';
-import { startTestServer } from './http.js';
-import type { TestServer } from './http.js';
+import { useTestServer } from './use-test-server.js';
 
 interface ErrorReply {
   error: string;
@@ -13,17 +11,12 @@ interface ErrorReply {
 }
 
 describe('bodies the API cannot use', () => {
-  let server: TestServer;
+  const server = useTestServer();
   let client: Client;
   let notebook: Awaited<ReturnType<typeof buildNotebook>>;
   beforeAll(async () => {
-    server = await startTestServer();
     notebook = await buildNotebook();
     client = await signedIn(server.url, notebook.ownerUser.login);
-  });
-  afterAll(async () => {
-    await server.close();
-    await disconnect();
   });
 
   it('answers malformed JSON with 400, saying so', async () => {

@@ -1,24 +1,15 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { ActivityPageSchema } from '../../contract/activity.js';
 import type { ActivityItem } from '../../contract/activity.js';
 import { NotebookSchema } from '../../contract/notebooks.js';
 import { PinSchema } from '../../contract/pins.js';
 import { ReviewSchema } from '../../contract/reviews.js';
-import { disconnect } from '../../db/connection.js';
 import { Client, signedIn } from '../../../test/client.js';
 import { buildNotebook, buildUser, rcLowPass } from '../../../test/factories.js';
-import { startTestServer } from '../../../test/http.js';
-import type { TestServer } from '../../../test/http.js';
+import { useTestServer } from '../../../test/use-test-server.js';
 
 describe('/api/notebooks/:id/activity', () => {
-  let server: TestServer;
-  beforeAll(async () => {
-    server = await startTestServer();
-  });
-  afterAll(async () => {
-    await server.close();
-    await disconnect();
-  });
+  const server = useTestServer();
 
   it('requires sign-in', async () => {
     const notebook = await buildNotebook();

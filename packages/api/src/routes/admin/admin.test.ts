@@ -1,20 +1,11 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { AdminUserListSchema, AdminUserSchema } from '../../contract/users.js';
-import { disconnect } from '../../db/connection.js';
 import { Client, signedIn } from '../../../test/client.js';
 import { buildUser } from '../../../test/factories.js';
-import { startTestServer } from '../../../test/http.js';
-import type { TestServer } from '../../../test/http.js';
+import { useTestServer } from '../../../test/use-test-server.js';
 
 describe('/api/admin/users', () => {
-  let server: TestServer;
-  beforeAll(async () => {
-    server = await startTestServer();
-  });
-  afterAll(async () => {
-    await server.close();
-    await disconnect();
-  });
+  const server = useTestServer();
 
   it('requires sign-in', async () => {
     const anonymous = new Client(server.url);

@@ -1,23 +1,15 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '../../contract/common.js';
 import { MeSchema } from '../../contract/users.js';
-import { connect, disconnect } from '../../db/connection.js';
+import { connect } from '../../db/connection.js';
 import { Session } from '../../db/entities/session.js';
 import { User } from '../../db/entities/user.js';
 import { Client, signedIn } from '../../../test/client.js';
 import { buildUser, uniqueLogin } from '../../../test/factories.js';
-import { startTestServer } from '../../../test/http.js';
-import type { TestServer } from '../../../test/http.js';
+import { useTestServer } from '../../../test/use-test-server.js';
 
 describe('sign-in through the OAuth stand-in', () => {
-  let server: TestServer;
-  beforeAll(async () => {
-    server = await startTestServer();
-  });
-  afterAll(async () => {
-    await server.close();
-    await disconnect();
-  });
+  const server = useTestServer();
 
   it('requires sign-in: GET /api/me answers 401 when signed out', async () => {
     const reply = await new Client(server.url).get('/api/me');

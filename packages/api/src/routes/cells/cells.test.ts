@@ -1,24 +1,16 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { CellRevisionListSchema, CellRevisionSchema, CellSavedSchema, ConflictSchema } from '../../contract/cells.js';
 import type { CellSaved } from '../../contract/cells.js';
 import { LIMITS } from '../../contract/common.js';
 import { NotebookSchema } from '../../contract/notebooks.js';
-import { connect, disconnect } from '../../db/connection.js';
+import { connect } from '../../db/connection.js';
 import { Client, signedIn } from '../../../test/client.js';
 import type { Reply } from '../../../test/client.js';
 import { buildNotebook, buildUser, rcLowPass } from '../../../test/factories.js';
-import { startTestServer } from '../../../test/http.js';
-import type { TestServer } from '../../../test/http.js';
+import { useTestServer } from '../../../test/use-test-server.js';
 
 describe('/api/notebooks/:id/cells', () => {
-  let server: TestServer;
-  beforeAll(async () => {
-    server = await startTestServer();
-  });
-  afterAll(async () => {
-    await server.close();
-    await disconnect();
-  });
+  const server = useTestServer();
 
   async function ownNotebook(cells?: { kind: 'circuit' | 'note'; text: string }[]) {
     const notebook = await buildNotebook(cells ? { cells } : {});

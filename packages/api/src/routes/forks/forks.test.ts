@@ -1,25 +1,17 @@
-import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { ForkListSchema } from '../../contract/forks.js';
 import { NotebookSchema } from '../../contract/notebooks.js';
 import type { Notebook } from '../../contract/notebooks.js';
-import { connect, disconnect } from '../../db/connection.js';
+import { connect } from '../../db/connection.js';
 import { forkHooks } from '../../services/forks.js';
 import { Client, signedIn } from '../../../test/client.js';
 import { buildNotebook, buildUser, rcLowPass } from '../../../test/factories.js';
-import { startTestServer } from '../../../test/http.js';
-import type { TestServer } from '../../../test/http.js';
+import { useTestServer } from '../../../test/use-test-server.js';
 
 describe('/api/notebooks/:id/forks', () => {
-  let server: TestServer;
-  beforeAll(async () => {
-    server = await startTestServer();
-  });
+  const server = useTestServer();
   afterEach(() => {
     forkHooks.afterCell = null;
-  });
-  afterAll(async () => {
-    await server.close();
-    await disconnect();
   });
 
   it('requires sign-in', async () => {

@@ -1,23 +1,14 @@
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { HealthSchema } from '../../contract/health.js';
-import { disconnect } from '../../db/connection.js';
-import { startTestServer } from '../../../test/http.js';
-import type { TestServer } from '../../../test/http.js';
+import { useTestServer } from '../../../test/use-test-server.js';
 
 describe('GET /api/health', () => {
-  let server: TestServer;
-  beforeAll(async () => {
-    const web = mkdtempSync(path.join(os.tmpdir(), 'rolloff-web-'));
-    writeFileSync(path.join(web, 'index.html'), '<!doctype html><title>Rolloff</title><div id="root"></div>');
-    server = await startTestServer({ webDist: web });
-  });
-  afterAll(async () => {
-    await server.close();
-    await disconnect();
-  });
+  const web = mkdtempSync(path.join(os.tmpdir(), 'rolloff-web-'));
+  writeFileSync(path.join(web, 'index.html'), '<!doctype html><title>Rolloff</title><div id="root"></div>');
+  const server = useTestServer({ webDist: web });
 
   it('answers ok after a real query to MariaDB', async () => {
     const response = await fetch(`${server.url}/api/health`);

@@ -1,22 +1,14 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { LIMITS } from '../../contract/common.js';
 import { NotebookListSchema, NotebookSchema } from '../../contract/notebooks.js';
 import type { Notebook } from '../../contract/notebooks.js';
-import { connect, disconnect } from '../../db/connection.js';
+import { connect } from '../../db/connection.js';
 import { Client, signedIn } from '../../../test/client.js';
 import { buildNotebook, buildUser, rcLowPass, uniqueLogin } from '../../../test/factories.js';
-import { startTestServer } from '../../../test/http.js';
-import type { TestServer } from '../../../test/http.js';
+import { useTestServer } from '../../../test/use-test-server.js';
 
 describe('/api/notebooks', () => {
-  let server: TestServer;
-  beforeAll(async () => {
-    server = await startTestServer();
-  });
-  afterAll(async () => {
-    await server.close();
-    await disconnect();
-  });
+  const server = useTestServer();
 
   it('requires sign-in', async () => {
     const anonymous = new Client(server.url);

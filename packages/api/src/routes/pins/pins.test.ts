@@ -1,13 +1,11 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { LIMITS } from '../../contract/common.js';
 import { PinListSchema, PinSchema } from '../../contract/pins.js';
 import type { Pin } from '../../contract/pins.js';
-import { disconnect } from '../../db/connection.js';
 import type { User } from '../../db/entities/user.js';
 import { Client, signedIn } from '../../../test/client.js';
 import { buildNotebook, buildUser, rcLowPass } from '../../../test/factories.js';
-import { startTestServer } from '../../../test/http.js';
-import type { TestServer } from '../../../test/http.js';
+import { useTestServer } from '../../../test/use-test-server.js';
 
 interface ErrorReply {
   error: string;
@@ -19,14 +17,7 @@ interface ErrorReply {
 const corner = 1 / (2 * Math.PI * 1e3 * 100e-9);
 
 describe('/api/notebooks/:id/pins', () => {
-  let server: TestServer;
-  beforeAll(async () => {
-    server = await startTestServer();
-  });
-  afterAll(async () => {
-    await server.close();
-    await disconnect();
-  });
+  const server = useTestServer();
 
   async function team() {
     const [editor, reviewer, other, viewer] = [await buildUser(), await buildUser(), await buildUser(), await buildUser()];

@@ -1,15 +1,13 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { NotebookSchema } from '../../contract/notebooks.js';
 import { ReviewListSchema, ReviewSchema } from '../../contract/reviews.js';
 import type { Review } from '../../contract/reviews.js';
 import { VersionListSchema } from '../../contract/versions.js';
-import { disconnect } from '../../db/connection.js';
 import type { User } from '../../db/entities/user.js';
 import { Client, signedIn } from '../../../test/client.js';
 import type { Reply } from '../../../test/client.js';
 import { buildNotebook, buildUser, rcLowPass } from '../../../test/factories.js';
-import { startTestServer } from '../../../test/http.js';
-import type { TestServer } from '../../../test/http.js';
+import { useTestServer } from '../../../test/use-test-server.js';
 
 interface ErrorReply {
   error: string;
@@ -18,14 +16,7 @@ interface ErrorReply {
 }
 
 describe('/api/notebooks/:id/reviews', () => {
-  let server: TestServer;
-  beforeAll(async () => {
-    server = await startTestServer();
-  });
-  afterAll(async () => {
-    await server.close();
-    await disconnect();
-  });
+  const server = useTestServer();
 
   /** A notebook with an editor who asks, two reviewers, a viewer, and a reviewer nobody asks. */
   async function team() {

@@ -1,21 +1,13 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { ReviewSchema } from '../../contract/reviews.js';
 import { SettingsSchema } from '../../contract/settings.js';
-import { connect, disconnect } from '../../db/connection.js';
+import { connect } from '../../db/connection.js';
 import { Client, signedIn } from '../../../test/client.js';
 import { buildNotebook, buildUser } from '../../../test/factories.js';
-import { startTestServer } from '../../../test/http.js';
-import type { TestServer } from '../../../test/http.js';
+import { useTestServer } from '../../../test/use-test-server.js';
 
 describe('/api/me/settings', () => {
-  let server: TestServer;
-  beforeAll(async () => {
-    server = await startTestServer();
-  });
-  afterAll(async () => {
-    await server.close();
-    await disconnect();
-  });
+  const server = useTestServer();
 
   it('requires sign-in', async () => {
     const anonymous = new Client(server.url);

@@ -1,7 +1,8 @@
 /** A notebook's activity: saves, versions, forks, pins and review states, newest first. */
 import type { LoaderFunctionArgs } from 'react-router-dom';
-import { Link, useParams } from 'react-router-dom';
+import { useParams } from 'react-router-dom';
 import { ErrorMessage, Loading } from '../../components/ui/status-message';
+import { SubPage } from '../../components/ui/sub-page';
 import { activityQueryOptions } from '../../features/activity/api/list-activity';
 import { ActivityTimeline } from '../../features/activity/components/activity-timeline';
 import { notebookQueryOptions, useNotebook } from '../../features/notebooks/api/get-notebook';
@@ -23,17 +24,8 @@ export function Component() {
   if (notebook.isPending) return <Loading />;
   if (notebook.isError) return <ErrorMessage error={notebook.error} retry={() => void notebook.refetch()} />;
   return (
-    <section className="space-y-6">
-      <div>
-        <p className="text-sm">
-          <Link to={appPaths.notebook(id)} className="text-accent underline-offset-2 hover:underline">
-            ← {notebook.data.title}
-          </Link>
-        </p>
-        <h1 className="text-2xl font-semibold tracking-tight">Activity</h1>
-        <p className="text-ink-soft">Saves, versions, forks, pins and reviews of this notebook, newest first.</p>
-      </div>
+    <SubPage backTo={appPaths.notebook(id)} backLabel={notebook.data.title} title="Activity" intro="Saves, versions, forks, pins and reviews of this notebook, newest first.">
       <ActivityTimeline notebookId={id} cellName={cellNamer(notebook.data.cells)} />
-    </section>
+    </SubPage>
   );
 }

@@ -1,8 +1,9 @@
 /** The history of one cell, with its two chosen revisions overlaid by the circuit feature. */
 import { useQueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
-import { data, Link, useParams } from 'react-router-dom';
+import { data, useParams } from 'react-router-dom';
 import { ErrorMessage, Loading } from '../../components/ui/status-message';
+import { SubPage } from '../../components/ui/sub-page';
 import { CellHistory } from '../../features/cells/components/cell-history';
 import { RevisionOverlay } from '../../features/circuit/components/revision-overlay';
 import { notebookQueryOptions, useNotebook } from '../../features/notebooks/api/get-notebook';
@@ -38,18 +39,9 @@ export function Component() {
   const cell = cells.find((c) => c.id === cellId);
   if (!cell) return <ErrorMessage error={new Error('This cell is not in the notebook any more.')} />;
   const position = notebook.data.cells.findIndex((c) => c.id === cellId);
+  const title = `History of ${cell.kind === 'circuit' ? 'circuit' : 'note'} cell ${position >= 0 ? position + 1 : '(deleted)'}`;
   return (
-    <section className="space-y-6">
-      <div>
-        <p className="text-sm">
-          <Link to={appPaths.notebook(id)} className="text-accent underline-offset-2 hover:underline">
-            ← {notebook.data.title}
-          </Link>
-        </p>
-        <h1 className="text-2xl font-semibold tracking-tight">
-          History of {cell.kind === 'circuit' ? 'circuit' : 'note'} cell {position >= 0 ? position + 1 : '(deleted)'}
-        </h1>
-      </div>
+    <SubPage backTo={appPaths.notebook(id)} backLabel={notebook.data.title} title={title}>
       <CellHistory
         notebookId={id}
         cellId={cellId}
@@ -58,6 +50,6 @@ export function Component() {
         renderOverlay={({ entries }) => <RevisionOverlay entries={entries} cellKey={`${id}:${cellId}`} filename={`${slugOf(notebook.data.title)}-cell-history`} />}
         onRestored={() => void client.invalidateQueries({ queryKey: notebookQueryOptions(id).queryKey, exact: true })}
       />
-    </section>
+    </SubPage>
   );
 }

@@ -1,6 +1,7 @@
 import type { LoaderFunctionArgs } from 'react-router-dom';
-import { Link, useParams } from 'react-router-dom';
+import { useParams } from 'react-router-dom';
 import { ErrorMessage, Loading } from '../../components/ui/status-message';
+import { SubPage } from '../../components/ui/sub-page';
 import { notebookQueryOptions, useNotebook } from '../../features/notebooks/api/get-notebook';
 import { versionListQueryOptions } from '../../features/notebooks/api/list-versions';
 import { VersionsPanel } from '../../features/notebooks/components/versions-panel';
@@ -23,17 +24,8 @@ export function Component() {
   if (notebook.isPending) return <Loading />;
   if (notebook.isError) return <ErrorMessage error={notebook.error} retry={() => void notebook.refetch()} />;
   return (
-    <section className="space-y-6">
-      <div>
-        <p className="text-sm">
-          <Link to={appPaths.notebook(id)} className="text-accent underline-offset-2 hover:underline">
-            ← {notebook.data.title}
-          </Link>
-        </p>
-        <h1 className="text-2xl font-semibold tracking-tight">Versions</h1>
-        <p className="text-ink-soft">A version keeps every cell as it was, read-only, for a review or to fork from.</p>
-      </div>
+    <SubPage backTo={appPaths.notebook(id)} backLabel={notebook.data.title} title="Versions" intro="A version keeps every cell as it was, read-only, for a review or to fork from.">
       <VersionsPanel notebookId={id} canCreate={notebook.data.permissions.edit} />
-    </section>
+    </SubPage>
   );
 }

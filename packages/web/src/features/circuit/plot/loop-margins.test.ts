@@ -1,24 +1,11 @@
 import { analyze } from '@rolloff/solver';
 import type { Result } from '@rolloff/solver';
-import type { Annotation, Shape } from 'plotly.js-dist-min';
+import type { Annotation } from 'plotly.js-dist-min';
 import { describe, expect, it } from 'vitest';
 import { FIRST_EXAMPLE } from '../../../test/first-example';
+import { bodeFigure, shapesOf } from '../../../test/plot-figures';
 import { gainMarginText, loopMarginMarks, marginReference, phaseMarginText } from './loop-margins';
-import { figuresFor } from './result-figures';
-import type { Figure, PlotTheme } from './result-figures';
-
-const theme: PlotTheme = {
-  font: 'sans',
-  monoFont: 'mono',
-  ink: '#111111',
-  inkSoft: '#222222',
-  rule: '#333333',
-  panel: '#ffffff',
-  pass: '#00aa00',
-  fail: '#aa0000',
-  pin: '#cc9900',
-  traces: ['#000001', '#000002', '#000003'],
-};
+import type { Figure } from './result-figures';
 
 /**
  * The follower loop of reference-values.md §9 (OA-PM): L(s) = 10⁵ / ((1 + s/2π·10)(1 + s/2π·10⁶)),
@@ -49,12 +36,7 @@ show loop out / x
 sweep 10 .. 1M
 `;
 
-const bodeOf = (result: Result): Figure => {
-  const figure = figuresFor([{ result }], theme).find((f) => f.kind === 'bode');
-  if (!figure) throw new Error('no Bode figure');
-  return figure;
-};
-const shapesOf = (figure: Figure) => (figure.layout.shapes ?? []) as Partial<Shape>[];
+const bodeOf = (result: Result): Figure => bodeFigure([{ result }]);
 const annotationsOf = (figure: Figure) => (figure.layout.annotations ?? []) as Partial<Annotation>[];
 const readout = (result: Result, name: string) => {
   const found = result.readouts.find((r) => r.name === name);

@@ -1,33 +1,16 @@
 import { analyze } from '@rolloff/solver';
 import { describe, expect, it } from 'vitest';
 import { FIRST_EXAMPLE } from '../../../test/first-example';
+import { bodeFigure, testTheme } from '../../../test/plot-figures';
 import { readPlotPick } from './plot-pins';
 import type { PlotPin } from './plot-pins';
-import { figuresFor } from './result-figures';
-import type { Figure, PlotTheme } from './result-figures';
+import type { Figure } from './result-figures';
 import { valueAtFrequency } from './trace-at';
-
-const theme: PlotTheme = {
-  font: 'sans',
-  monoFont: 'mono',
-  ink: '#111111',
-  inkSoft: '#222222',
-  rule: '#333333',
-  panel: '#ffffff',
-  pass: '#00aa00',
-  fail: '#aa0000',
-  pin: '#cc9900',
-  traces: ['#000001', '#000002', '#000003'],
-};
 
 const result = analyze(FIRST_EXAMPLE);
 const trace = result.traces[0];
 const pin = (overrides: Partial<PlotPin> = {}): PlotPin => ({ id: 11, label: 'P1', trace: trace.label, frequency: 2500, resolved: false, note: 'Is <this> corner right?', ...overrides });
-const bodeOf = (pins: PlotPin[], series = [{ result }]): Figure => {
-  const figure = figuresFor(series, theme, pins).find((f) => f.kind === 'bode');
-  if (!figure) throw new Error('no Bode figure');
-  return figure;
-};
+const bodeOf = (pins: PlotPin[], series = [{ result }]): Figure => bodeFigure(series, pins);
 
 describe('pins on the Bode plot', () => {
   it('sit on their trace’s magnitude at their frequency, labelled as in the thread', () => {
@@ -37,7 +20,7 @@ describe('pins on the Bode plot', () => {
     const marker = figure.data[index];
     expect(marker.x).toEqual([2500]);
     expect((marker.y as number[])[0]).toBeCloseTo(valueAtFrequency(result.frequencies, trace.magnitudeDb, 2500) ?? NaN, 12);
-    expect(marker.marker?.color).toBe(theme.pin);
+    expect(marker.marker?.color).toBe(testTheme.pin);
     // The comment is shown on hover as text, never as markup.
     expect(String((marker.hovertext as string[])[0])).toContain('Is &lt;this&gt; corner right?');
     const label = figure.layout.annotations?.find((a) => a.text === 'P1');
@@ -50,7 +33,7 @@ describe('pins on the Bode plot', () => {
     expect(pins).toEqual([{ kind: 'pin', pinId: 1 }]);
     const marker = figure.data[figure.targets.indexOf(pins[0])];
     expect(marker.marker?.color).toBe('rgba(0,0,0,0)');
-    expect(marker.marker?.line?.color).toBe(theme.pin);
+    expect(marker.marker?.line?.color).toBe(testTheme.pin);
   });
 });
 

@@ -1,31 +1,12 @@
 import { analyze, formatSi } from '@rolloff/solver';
 import type { Result } from '@rolloff/solver';
-import type { Shape } from 'plotly.js-dist-min';
 import { describe, expect, it } from 'vitest';
 import { FIRST_EXAMPLE } from '../../../test/first-example';
+import { bodeFigure, shapesOf, testTheme } from '../../../test/plot-figures';
 import { decibelRange, figuresFor, finiteOrNull, placeRequirements } from './result-figures';
-import type { Figure, PlotTheme } from './result-figures';
+import type { Figure } from './result-figures';
 
-const theme: PlotTheme = {
-  font: 'sans',
-  monoFont: 'mono',
-  ink: '#111111',
-  inkSoft: '#222222',
-  rule: '#333333',
-  panel: '#ffffff',
-  pass: '#00aa00',
-  fail: '#aa0000',
-  pin: '#cc9900',
-  traces: ['#000001', '#000002', '#000003'],
-};
-
-const bodeOf = (result: Result): Figure => {
-  const figure = figuresFor([{ result }], theme).find((f) => f.kind === 'bode');
-  if (!figure) throw new Error('no Bode figure');
-  return figure;
-};
-
-const shapes = (figure: Figure) => (figure.layout.shapes ?? []) as Partial<Shape>[];
+const bodeOf = (result: Result): Figure => bodeFigure([{ result }]);
 
 describe('the Bode figure of a result', () => {
   const result = analyze(FIRST_EXAMPLE);
@@ -58,7 +39,7 @@ describe('the Bode figure of a result', () => {
   it('marks the corner at the frequency of the readout, with its value', () => {
     const corner = result.readouts.find((r) => r.trace === trace.label && r.name === 'corner');
     expect(corner).toBeDefined();
-    const marker = shapes(figure).find((s) => s.type === 'line' && s.x0 === corner?.value && s.x1 === corner?.value);
+    const marker = shapesOf(figure).find((s) => s.type === 'line' && s.x0 === corner?.value && s.x1 === corner?.value);
     expect(marker).toBeDefined();
     const label = figure.layout.annotations?.find((a) => String(a.text).startsWith('corner'));
     expect(label?.text).toBe(`corner ${formatSi(corner?.value ?? NaN, 'Hz')}`);
@@ -68,13 +49,13 @@ describe('the Bode figure of a result', () => {
 
   it('shades each requirement range where it is checked, tinted by its result', () => {
     for (const requirement of result.requirements) expect(requirement.pass).toBe(true);
-    const rects = shapes(figure).filter((s) => s.type === 'rect');
+    const rects = shapesOf(figure).filter((s) => s.type === 'rect');
     // require out gain >= -0.3 dB over 10 .. 500: allowed from the limit upwards over 10 Hz to 500 Hz.
     const passband = rects.find((s) => s.x0 === 10 && s.x1 === 500);
-    expect(passband).toMatchObject({ yref: 'y', y0: -0.3, fillcolor: theme.pass });
+    expect(passband).toMatchObject({ yref: 'y', y0: -0.3, fillcolor: testTheme.pass });
     // require out gain <= -38 dB over 10k ..: open to the end of the sweep.
     const stopband = rects.find((s) => s.x0 === 10_000);
-    expect(stopband).toMatchObject({ yref: 'y', y1: -38, x1: result.frequencies[result.frequencies.length - 1], fillcolor: theme.pass });
+    expect(stopband).toMatchObject({ yref: 'y', y1: -38, x1: result.frequencies[result.frequencies.length - 1], fillcolor: testTheme.pass });
     // require out corner = 1k ± 2%: the frequencies between 980 Hz and 1.02 kHz, full height.
     const corner = rects.find((s) => s.yref === 'y domain');
     expect(corner?.x0).toBeCloseTo(980, 9);
@@ -86,8 +67,8 @@ describe('the Bode figure of a result', () => {
     const requirement = failing.requirements.find((r) => r.text.includes('-0.1 dB'));
     expect(requirement?.pass).toBe(false);
     const figureOfFailing = bodeOf(failing);
-    const rect = shapes(figureOfFailing).find((s) => s.type === 'rect' && s.x0 === 10 && s.x1 === 700);
-    expect(rect?.fillcolor).toBe(theme.fail);
+    const rect = shapesOf(figureOfFailing).find((s) => s.type === 'rect' && s.x0 === 10 && s.x1 === 700);
+    expect(rect?.fillcolor).toBe(testTheme.fail);
     const worst = figureOfFailing.data.find((d) => d.mode === 'markers' && (d.x as number[])[0] === requirement?.worstAt);
     expect((worst?.y as number[])[0]).toBe(requirement?.measured);
   });
@@ -101,7 +82,7 @@ describe('other figures', () => {
   it('draws an impedance trace in Ω on log axes, not in dB', () => {
     const result = analyze('drive in\nR1 [in out] 100\nC1 [out gnd] 1u\nshow impedance in\nsweep 10 .. 100k\n');
     expect(result.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
-    const figures = figuresFor([{ result }], theme);
+    const figures = figuresFor([{ result }], testTheme);
     expect(figures.map((f) => f.kind)).toEqual(['impedance']);
     const [magnitude] = figures[0].data;
     expect(magnitude.y).toEqual(finiteOrNull(result.traces[0].magnitude));
@@ -118,7 +99,7 @@ describe('other figures', () => {
         { result: newer, name: 'revision 2' },
         { result: older, name: 'revision 1', dash: 'dash' },
       ],
-      theme,
+      testTheme,
     ).find((f) => f.kind === 'bode');
     const lines = (figure?.data ?? []).filter((d) => d.mode === 'lines' && d.yaxis === 'y');
     expect(lines.map((d) => d.name)).toEqual(['revision 2 · out', 'revision 1 · out']);
@@ -129,7 +110,7 @@ describe('other figures', () => {
 
   it('draws nothing for a cell whose text has errors', () => {
     const result = analyze('R1 [a b');
-    expect(figuresFor([{ result }], theme)).toEqual([]);
+    expect(figuresFor([{ result }], testTheme)).toEqual([]);
   });
 });
 

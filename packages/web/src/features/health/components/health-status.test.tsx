@@ -1,16 +1,11 @@
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, render, screen, waitFor } from '@testing-library/react';
+import { cleanup, screen, waitFor } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
+import { renderWithQuery } from '../../../test/render-with-query';
 import { HealthStatus } from './health-status';
 
 function renderWithAnswer(status: number, body: unknown) {
   vi.stubGlobal('fetch', vi.fn(async () => new Response(JSON.stringify(body), { status })));
-  const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
-  render(
-    <QueryClientProvider client={client}>
-      <HealthStatus />
-    </QueryClientProvider>,
-  );
+  renderWithQuery(<HealthStatus />);
 }
 
 describe('HealthStatus', () => {

@@ -1,10 +1,10 @@
 import type { Notebook, NotebookPermissions } from '@rolloff/api/contract';
 import { LIMITS } from '@rolloff/api/contract';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, fireEvent, render, screen, waitFor } from '@testing-library/react';
+import { cleanup, fireEvent, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { ines } from '../../../test/cells';
+import { renderWithQuery } from '../../../test/render-with-query';
 import { NotebookDescription } from './notebook-description';
 
 const reader: NotebookPermissions = { read: true, fork: true, review: false, edit: false, share: false, delete: false };
@@ -54,12 +54,7 @@ function stubUpdate(notebook: Notebook, status = 200) {
 }
 
 function renderDescription(notebook: Notebook) {
-  const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
-  render(
-    <QueryClientProvider client={client}>
-      <NotebookDescription notebook={notebook} />
-    </QueryClientProvider>,
-  );
+  renderWithQuery(<NotebookDescription notebook={notebook} />);
 }
 
 describe('the notebook description', () => {

@@ -1,10 +1,10 @@
 import type { NotebookList, NotebookSummary } from '@rolloff/api/contract';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, render, screen, waitFor, within } from '@testing-library/react';
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { MemoryRouter } from 'react-router-dom';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { ines } from '../../../test/cells';
+import { renderWithQuery } from '../../../test/render-with-query';
 import { NotebooksTable } from './notebooks-table';
 
 function summary(id: string, title: string, versionCount: number): NotebookSummary {
@@ -43,13 +43,10 @@ function stubList() {
 }
 
 function renderTable(address = '/notebooks') {
-  const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
-  render(
-    <QueryClientProvider client={client}>
-      <MemoryRouter initialEntries={[address]}>
-        <NotebooksTable />
-      </MemoryRouter>
-    </QueryClientProvider>,
+  renderWithQuery(
+    <MemoryRouter initialEntries={[address]}>
+      <NotebooksTable />
+    </MemoryRouter>,
   );
 }
 

@@ -1,8 +1,8 @@
 import type { Pin } from '@rolloff/api/contract';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, render, screen, waitFor, within } from '@testing-library/react';
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { renderWithQuery, testQueryClient } from '../../../test/render-with-query';
 import { buildPin, ines, mara, reviewNotebookId } from '../../../test/reviews';
 import { pinListQueryOptions, usePinList } from '../api/list-pins';
 import { pinLabels } from './pin-labels';
@@ -56,13 +56,9 @@ function Threads({ canComment, shownRevision }: { canComment: boolean; shownRevi
 
 async function renderThreads(pins: Pin[], props: { canComment: boolean; shownRevision?: number }) {
   const calls = stubApi(pins);
-  const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
+  const client = testQueryClient();
   await client.prefetchQuery(pinListQueryOptions(reviewNotebookId));
-  render(
-    <QueryClientProvider client={client}>
-      <Threads {...props} />
-    </QueryClientProvider>,
-  );
+  renderWithQuery(<Threads {...props} />, client);
   await screen.findByTestId('pins');
   return calls;
 }

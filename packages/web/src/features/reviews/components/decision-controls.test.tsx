@@ -1,8 +1,8 @@
 import type { Review } from '@rolloff/api/contract';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, render, screen, waitFor } from '@testing-library/react';
+import { cleanup, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { renderWithQuery } from '../../../test/render-with-query';
 import { buildReview, ines, kenji, mara, reviewNotebookId, tobias } from '../../../test/reviews';
 import { DecisionControls } from './decision-controls';
 
@@ -35,12 +35,7 @@ function stubApi(review: Review) {
 }
 
 function renderControls(review: Review, meId: number, onDecided = vi.fn()) {
-  const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
-  const view = render(
-    <QueryClientProvider client={client}>
-      <DecisionControls notebookId={reviewNotebookId} review={review} meId={meId} onDecided={onDecided} />
-    </QueryClientProvider>,
-  );
+  const view = renderWithQuery(<DecisionControls notebookId={reviewNotebookId} review={review} meId={meId} onDecided={onDecided} />);
   return { ...view, onDecided };
 }
 

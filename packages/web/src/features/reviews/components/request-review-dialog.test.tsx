@@ -1,8 +1,8 @@
 import type { Review } from '@rolloff/api/contract';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, render, screen, waitFor } from '@testing-library/react';
+import { cleanup, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { renderWithQuery } from '../../../test/render-with-query';
 import { buildReview, kenji, mara, reviewNotebookId, tobias } from '../../../test/reviews';
 import { RequestReviewDialog } from './request-review-dialog';
 import type { ReviewCandidate } from './request-review-dialog';
@@ -14,12 +14,7 @@ const candidates: ReviewCandidate[] = [
 ];
 
 function renderDialog(props: { candidates: ReviewCandidate[] | null; onRequested?: (review: Review) => void }) {
-  const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
-  render(
-    <QueryClientProvider client={client}>
-      <RequestReviewDialog notebookId={reviewNotebookId} open onClose={() => {}} candidates={props.candidates} onRequested={props.onRequested ?? (() => {})} />
-    </QueryClientProvider>,
-  );
+  renderWithQuery(<RequestReviewDialog notebookId={reviewNotebookId} open onClose={() => {}} candidates={props.candidates} onRequested={props.onRequested ?? (() => {})} />);
 }
 
 describe('asking for a review', () => {

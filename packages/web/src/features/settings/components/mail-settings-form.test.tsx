@@ -1,8 +1,8 @@
 import type { Settings } from '@rolloff/api/contract';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, render, screen, waitFor } from '@testing-library/react';
+import { cleanup, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { renderWithQuery } from '../../../test/render-with-query';
 import { MailSettingsForm } from './mail-settings-form';
 
 /** A stand-in for /api/me/settings; `refuse` makes every change fail. */
@@ -25,12 +25,7 @@ function stubApi({ refuse = false } = {}) {
 }
 
 function renderForm() {
-  const client = new QueryClient({ defaultOptions: { queries: { retry: false }, mutations: { retry: false } } });
-  render(
-    <QueryClientProvider client={client}>
-      <MailSettingsForm />
-    </QueryClientProvider>,
-  );
+  renderWithQuery(<MailSettingsForm />);
 }
 
 describe('the e-mail settings', () => {

@@ -1,9 +1,9 @@
 import type { Member, MemberList, UserDirectory } from '@rolloff/api/contract';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, render, screen, waitFor, within } from '@testing-library/react';
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { ines, tobias } from '../../../test/cells';
+import { renderWithQuery } from '../../../test/render-with-query';
 import { ShareDialog } from './share-dialog';
 
 const notebookId = 'Nb1234567890';
@@ -55,19 +55,16 @@ function stubApi() {
 }
 
 function renderDialog(props: { canShare: boolean; onVisibilityChange?: (v: 'private' | 'link') => void }) {
-  const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
-  render(
-    <QueryClientProvider client={client}>
-      <ShareDialog
-        notebookId={notebookId}
-        open
-        onClose={() => {}}
-        canShare={props.canShare}
-        visibility="private"
-        onVisibilityChange={props.onVisibilityChange ?? (() => {})}
-        link={`http://localhost/notebooks/${notebookId}`}
-      />
-    </QueryClientProvider>,
+  renderWithQuery(
+    <ShareDialog
+      notebookId={notebookId}
+      open
+      onClose={() => {}}
+      canShare={props.canShare}
+      visibility="private"
+      onVisibilityChange={props.onVisibilityChange ?? (() => {})}
+      link={`http://localhost/notebooks/${notebookId}`}
+    />,
   );
 }
 
