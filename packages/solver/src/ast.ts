@@ -3,7 +3,7 @@
  * resolved yet (names are names, values are unevaluated); `elaborate` does that.
  * A statement whose parse failed part-way keeps what was read, with `null` for the rest.
  */
-import type { SourceRange } from './circuit.js';
+import type { Measure, SourceRange } from './circuit.js';
 import type { Token } from './lexer.js';
 import type { Unit } from './units.js';
 
@@ -178,18 +178,8 @@ export interface ToleranceStatement {
   range: SourceRange;
 }
 
-export type MeasureName =
-  | 'gain'
-  | 'phase'
-  | 'delay'
-  | 'magnitude'
-  | 'corner'
-  | 'peak'
-  | 'crossover'
-  | 'phase-margin'
-  | 'gain-margin'
-  | 'settling'
-  | 'overshoot';
+/** What a requirement measures; the same words the elaborated network uses. */
+export type MeasureName = Measure;
 
 /** What a requirement names: a quoted label, or the words of a `show` line's expression. */
 export interface RequireTarget {

@@ -11,5 +11,6 @@ export { MEASURES, STATEMENT_KEYWORDS, parse } from './parser.js';
 export { lex } from './lexer.js';
 export { compile } from './compile.js';
 export { analyze } from './analyze.js';
+export { FIRST_EXAMPLE } from './examples.js';
 export { toCsv, toJson } from './output.js';
 export { SI_PREFIXES, UNIT_SPELLINGS, formatSi, parseSi } from './units.js';

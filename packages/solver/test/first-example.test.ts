@@ -2,28 +2,12 @@
  * The first example of the language definition (cell-language.md, "A first example")
  * must compile with no diagnostics at all and give the circuit a designer expects.
  */
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { compile } from '../src/compile.js';
 import type { Capacitor, OpAmp, Resistor } from '../src/circuit.js';
+import { FIRST_EXAMPLE } from '../src/examples.js';
 
-const FIRST_EXAMPLE = `# 2nd-order unity-gain low-pass, Butterworth, fc = 1 kHz
-let R  = 10k
-let Cb = 11.25n
-let Ca = 2*Cb
-
-drive in                             # 1 V AC between node in and gnd
-R1 [in a]       R      ±1%
-R2 [a b]        R      ±1%
-C1 [a out]      Ca     ±5%
-C2 [b gnd]      Cb     ±5%  esr 20m
-U1 [b out out]  opamp  gain 100dB  gbw 1M
-
-show out                             # H = V(out) / drive
-sweep 10 .. 100k, 100/decade
-require out gain >= -0.3 dB over 10 .. 500
-require out corner = 1k ± 2%
-require out gain <= -38 dB over 10k ..
-`;
 
 describe('the first example of the language definition', () => {
   const { circuit, diagnostics } = compile(FIRST_EXAMPLE);
@@ -78,5 +62,10 @@ describe('the first example of the language definition', () => {
     expect(b.over).toBeUndefined();
     expect(d).toMatchObject({ trace: 0, measure: 'gain', op: '<=', value: -38, over: { from: 10e3 } });
     expect(d.over?.to).toBeUndefined();
+  });
+
+  it('is the example LANGUAGE.md shows, word for word', () => {
+    const reference = readFileSync(new URL('../LANGUAGE.md', import.meta.url), 'utf8');
+    expect(reference).toContain(FIRST_EXAMPLE);
   });
 });

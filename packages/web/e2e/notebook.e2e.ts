@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { FIRST_EXAMPLE } from '../src/test/first-example';
+import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { baseUrl, openBrowser, screenshot } from './browser';
 import type { Session } from './browser';
 import { cellAt, circuitText, createNotebook, setCircuitText, signIn, waitSaved } from './helpers';

@@ -1,6 +1,7 @@
 import { lazy, Suspense } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { redirect, useSearchParams } from 'react-router-dom';
+import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { meQueryOptions } from '../../features/auth/api/get-me';
 import { SignInButton } from '../../features/auth/components/sign-in-button';
 import { PlotPlaceholder } from '../../features/circuit/components/lazy-parts';
@@ -10,26 +11,6 @@ import { queryClient } from '../query-client';
 
 // The example brings the solver's formatting and the plot; the page's words come first.
 const ExamplePlot = lazy(() => import('../../features/circuit/components/example-plot').then((m) => ({ default: m.ExamplePlot })));
-
-/** The example drawn on the landing page: a second-order unity-gain low-pass, fc = 1 kHz. */
-const LANDING_EXAMPLE = `# 2nd-order unity-gain low-pass, Butterworth, fc = 1 kHz
-let R  = 10k
-let Cb = 11.25n
-let Ca = 2*Cb
-
-drive in
-R1 [in a]       R      ±1%
-R2 [a b]        R      ±1%
-C1 [a out]      Ca     ±5%
-C2 [b gnd]      Cb     ±5%  esr 20m
-U1 [b out out]  opamp  gain 100dB  gbw 1M
-
-show out
-sweep 10 .. 100k, 100/decade
-require out gain >= -0.3 dB over 10 .. 500
-require out corner = 1k ± 2%
-require out gain <= -38 dB over 10k ..
-`;
 
 /** Signed-in people go straight to their notebooks. */
 export async function homeLoader({ request }: LoaderFunctionArgs) {
@@ -62,7 +43,7 @@ export function HomeRoute() {
       </div>
       <figure className="space-y-2">
         <Suspense fallback={<PlotPlaceholder text="Loading an example plot…" />}>
-          <ExamplePlot text={LANDING_EXAMPLE} filename="rolloff-example" />
+          <ExamplePlot text={FIRST_EXAMPLE} filename="rolloff-example" />
         </Suspense>
         <figcaption className="text-sm text-ink-faint">
           A real result: a unity-gain second-order low-pass at 1 kHz, solved in your browser by the same solver a notebook uses.

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { FIRST_EXAMPLE } from '../../../test/first-example';
+import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { collectCellNames, completionsFor } from './cell-completion';
 import { statementWords } from './cell-words';
 

@@ -1,7 +1,7 @@
 import { ensureSyntaxTree } from '@codemirror/language';
 import { EditorState } from '@codemirror/state';
 import { describe, expect, it } from 'vitest';
-import { FIRST_EXAMPLE } from '../../../test/first-example';
+import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { cellLanguage, tokenizeCell, tokenizeCellLine } from './cell-language';
 import type { CellTokenStyle } from './cell-language';
 

@@ -3,7 +3,7 @@ import type { EditorView } from '@codemirror/view';
 import { analyze } from '@rolloff/solver';
 import type { Diagnostic } from '@rolloff/solver';
 import { describe, expect, it } from 'vitest';
-import { FIRST_EXAMPLE } from '../../../test/first-example';
+import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { toLintDiagnostics } from './cell-lint';
 
 /** A stand-in for the view that applies dispatched changes to a state. */

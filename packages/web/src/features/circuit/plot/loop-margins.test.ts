@@ -2,7 +2,7 @@ import { analyze } from '@rolloff/solver';
 import type { Result } from '@rolloff/solver';
 import type { Annotation } from 'plotly.js-dist-min';
 import { describe, expect, it } from 'vitest';
-import { FIRST_EXAMPLE } from '../../../test/first-example';
+import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { bodeFigure, shapesOf } from '../../../test/plot-figures';
 import { gainMarginText, loopMarginMarks, marginReference, phaseMarginText } from './loop-margins';
 import type { Figure } from './result-figures';

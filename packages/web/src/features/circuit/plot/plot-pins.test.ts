@@ -1,6 +1,6 @@
 import { analyze } from '@rolloff/solver';
 import { describe, expect, it } from 'vitest';
-import { FIRST_EXAMPLE } from '../../../test/first-example';
+import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { bodeFigure, testTheme } from '../../../test/plot-figures';
 import { readPlotPick } from './plot-pins';
 import type { PlotPin } from './plot-pins';

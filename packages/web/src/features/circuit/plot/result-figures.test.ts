@@ -1,7 +1,7 @@
 import { analyze, formatSi } from '@rolloff/solver';
 import type { Result } from '@rolloff/solver';
 import { describe, expect, it } from 'vitest';
-import { FIRST_EXAMPLE } from '../../../test/first-example';
+import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { bodeFigure, shapesOf, testTheme } from '../../../test/plot-figures';
 import { decibelRange, figuresFor, finiteOrNull, placeRequirements } from './result-figures';
 import type { Figure } from './result-figures';

@@ -1,6 +1,7 @@
 /**
- * The first example of the cell language's reference (design doc cell-language.md, "A first
- * example"): a unity-gain second-order low-pass, Butterworth, designed for fc = 1 kHz.
+ * The first example of the language reference (LANGUAGE.md, and the design's
+ * cell-language.md): a unity-gain second-order low-pass, Butterworth, designed for
+ * fc = 1 kHz. The landing page draws it; the tests of every package start from it.
  */
 export const FIRST_EXAMPLE = `# 2nd-order unity-gain low-pass, Butterworth, fc = 1 kHz
 let R  = 10k
