@@ -56,7 +56,7 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
           <a href={helpHref} target="_blank" rel="noreferrer" className="text-accent underline-offset-2 hover:underline">
             Cell language reference
           </a>{' '}
-          · Ctrl-Space completes · Shift-Enter goes to the next cell
+          · Ctrl-Space offers words, ↓ and Enter pick one · Shift-Enter goes to the next cell
           {outcome?.ok ? <span data-testid="solve-time"> · solved in {Math.max(1, Math.round(outcome.elapsedMs))} ms</span> : null}
         </p>
       </div>

@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { FIRST_EXAMPLE } from '@rolloff/solver';
-import { collectCellNames, completionsFor } from './cell-completion';
+import { CompletionContext } from '@codemirror/autocomplete';
+import { EditorState } from '@codemirror/state';
+import { cellCompletionSource, collectCellNames, completionsFor } from './cell-completion';
 import { statementWords } from './cell-words';
 
 const names = collectCellNames(FIRST_EXAMPLE);
@@ -41,5 +43,23 @@ describe('completion in circuit cells', () => {
 
   it('stays quiet inside comments', () => {
     expect(labels('R1 [a b] 1k  # a comment ')).toEqual([]);
+  });
+});
+
+describe('the completion source while typing', () => {
+  const complete = (doc: string, explicit = false) =>
+    cellCompletionSource(new CompletionContext(EditorState.create({ doc }), doc.length, explicit));
+
+  it('offers nothing on the SI prefix or unit of a number, even when asked', () => {
+    for (const doc of ['C1 [a gnd] 10n', 'L1 [a b] 1m', 'R1 [in a] 4k7', 'C2 [b out] 2.2uF', 'let C = 1e-9', 'sweep 10 .. 1M']) {
+      expect(complete(doc), doc).toBeNull();
+      expect(complete(doc, true), doc).toBeNull();
+    }
+  });
+
+  it('still offers words where a word starts', () => {
+    expect(complete('R1 [a b] 10k n')?.options.length).toBeGreaterThan(0);
+    expect(complete('sweep 10 .. 1k, 100/d')?.options.map((o) => o.label)).toContain('decade');
+    expect(complete('dr')?.options.map((o) => o.label)).toContain('drive');
   });
 });

@@ -105,6 +105,9 @@ export function cellCompletionSource(context: CompletionContext): CompletionResu
   const from = word ? word.from : context.pos;
   const line = context.state.doc.lineAt(context.pos);
   const lineBefore = line.text.slice(0, from - line.from);
+  // Letters straight after digits are a number's SI prefix or unit (`10n`, `1m`, `4k7`,
+  // `1e-9`), not the start of a word: offering words there turns `10n` into `10noise`.
+  if (/[0-9.]$/.test(lineBefore)) return null;
   const names = collectCellNames(context.state.doc.toString());
   const options = completionsFor(lineBefore, names);
   if (options.length === 0) return null;

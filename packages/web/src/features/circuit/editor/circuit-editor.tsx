@@ -55,7 +55,9 @@ export default function CircuitEditor({ value, onChange, diagnostics, readOnly =
   const extensions = useMemo(
     () => [
       cellLanguageSupport(),
-      autocompletion({ override: [cellCompletionSource], activateOnTyping: true }),
+      // Enter ends the line unless the designer moved into the list (↓ or ↑) first, so typing a
+      // value and pressing Enter never accepts a word that was merely offered.
+      autocompletion({ override: [cellCompletionSource], activateOnTyping: true, selectOnOpen: false }),
       lintGutter(),
       EditorView.contentAttributes.of({ 'aria-label': label }),
       Prec.highest(keymap.of([{ key: 'Shift-Enter', run: () => (leave.current ? (leave.current(), true) : false) }])),
