@@ -1,5 +1,5 @@
 /** What the plot tests share: a theme of distinct colours and a way to the Bode figure. */
-import type { Shape } from 'plotly.js-dist-min';
+import type { Shape } from 'plotly.js-basic-dist-min';
 import type { PlotPin } from '../features/circuit/plot/plot-pins';
 import { figuresFor } from '../features/circuit/plot/result-figures';
 import type { Figure, PlotSeries, PlotTheme } from '../features/circuit/plot/result-figures';

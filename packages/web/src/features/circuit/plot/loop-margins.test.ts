@@ -1,6 +1,6 @@
 import { analyze } from '@rolloff/solver';
 import type { Result } from '@rolloff/solver';
-import type { Annotation } from 'plotly.js-dist-min';
+import type { Annotations } from 'plotly.js-basic-dist-min';
 import { describe, expect, it } from 'vitest';
 import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { bodeFigure, shapesOf } from '../../../test/plot-figures';
@@ -37,7 +37,7 @@ sweep 10 .. 1M
 `;
 
 const bodeOf = (result: Result): Figure => bodeFigure([{ result }]);
-const annotationsOf = (figure: Figure) => (figure.layout.annotations ?? []) as Partial<Annotation>[];
+const annotationsOf = (figure: Figure) => (figure.layout.annotations ?? []) as Partial<Annotations>[];
 const readout = (result: Result, name: string) => {
   const found = result.readouts.find((r) => r.name === name);
   if (!found) throw new Error(`no ${name} readout`);

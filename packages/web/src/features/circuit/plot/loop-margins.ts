@@ -7,12 +7,12 @@
  */
 import { formatSi } from '@rolloff/solver';
 import type { NumberArray, Readout, TraceResult } from '@rolloff/solver';
-import type { Annotation, Shape } from 'plotly.js-dist-min';
+import type { Annotations, Shape } from 'plotly.js-basic-dist-min';
 import { valueAtFrequency } from './trace-at';
 
 export interface LoopMarginMarks {
   shapes: Partial<Shape>[];
-  annotations: Partial<Annotation>[];
+  annotations: Partial<Annotations>[];
 }
 
 /** The phase the margin is measured from: the odd multiple of 180° nearest `phase − margin`. */
@@ -39,7 +39,7 @@ const finite = (readout: Readout | undefined) => (readout && Number.isFinite(rea
  */
 export function loopMarginMarks(trace: TraceResult, readouts: readonly Readout[], frequencies: NumberArray, colour: string, panel: string): LoopMarginMarks {
   const shapes: Partial<Shape>[] = [];
-  const annotations: Partial<Annotation>[] = [];
+  const annotations: Partial<Annotations>[] = [];
   if (trace.kind !== 'loop' || frequencies.length < 2) return { shapes, annotations };
   const mine = readouts.filter((r) => r.trace === trace.label);
   const find = (name: string) => mine.find((r) => r.name === name);

@@ -6,7 +6,7 @@
  */
 import { formatSi } from '@rolloff/solver';
 import type { NumberArray } from '@rolloff/solver';
-import type { Annotation, ScatterData } from 'plotly.js-dist-min';
+import type { Annotations, ScatterData } from 'plotly.js-basic-dist-min';
 import { valueAtFrequency } from './trace-at';
 
 /** A pin as a plot draws it. */
@@ -52,7 +52,7 @@ function escapeHover(text: string): string {
 export function pinMarkers(pins: readonly PlotPin[], traces: readonly PinnableTrace[], frequencies: NumberArray, pinColour: string) {
   const data: Partial<ScatterData>[] = [];
   const targets: PlotTarget[] = [];
-  const annotations: Partial<Annotation>[] = [];
+  const annotations: Partial<Annotations>[] = [];
   for (const pin of pins) {
     const trace = traces.find((t) => t.label === pin.trace);
     if (!trace) continue;

@@ -4,7 +4,7 @@
  * Plotly's state on unmount.
  * This module is only reached through a lazy import, so Plotly stays out of the first page.
  */
-import Plotly from 'plotly.js-dist-min';
+import Plotly from 'plotly.js-basic-dist-min';
 import { useEffect, useImperativeHandle, useRef } from 'react';
 import type { Ref } from 'react';
 import type { ClickedPoint } from './plot-pins';

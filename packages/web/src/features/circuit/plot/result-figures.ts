@@ -9,7 +9,7 @@
  */
 import { formatSi } from '@rolloff/solver';
 import type { NumberArray, Readout, RequirementResult, Result, TraceResult } from '@rolloff/solver';
-import type { Annotation, Layout, ScatterData, Shape } from 'plotly.js-dist-min';
+import type { Annotations, Layout, ScatterData, Shape } from 'plotly.js-basic-dist-min';
 import { loopMarginMarks } from './loop-margins';
 import { pinMarkers } from './plot-pins';
 import type { PlotPin, PlotTarget } from './plot-pins';
@@ -160,7 +160,7 @@ function labelSide(frequency: number, frequencies: NumberArray): { xanchor: 'lef
 /** A vertical dotted marker with its value written at the top of the magnitude panel. */
 function frequencyMarkers(readouts: Readout[], traceColour: (trace: string) => string | null, theme: PlotTheme, frequencies: NumberArray) {
   const shapes: Partial<Shape>[] = [];
-  const annotations: Partial<Annotation>[] = [];
+  const annotations: Partial<Annotations>[] = [];
   const byTrace = new Map<string, Readout[]>();
   for (const readout of readouts) byTrace.set(readout.trace, [...(byTrace.get(readout.trace) ?? []), readout]);
   let slot = 0;
@@ -432,7 +432,7 @@ function logRange(values: NumberArray[], limits: number[]): [number, number] {
 
 function minimumImpedanceMarkers(readouts: Readout[], traceColour: (trace: string) => string | null, theme: PlotTheme) {
   const points: Partial<ScatterData>[] = [];
-  const annotations: Partial<Annotation>[] = [];
+  const annotations: Partial<Annotations>[] = [];
   for (const readout of readouts) {
     const colour = traceColour(readout.trace);
     if (readout.name !== 'min-impedance' || colour === null || readout.at === null || !(readout.value > 0) || !(readout.at > 0)) continue;
