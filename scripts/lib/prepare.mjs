@@ -46,5 +46,5 @@ export async function migrate(env) {
 /** Loads the demo data with the built API (only the first time for a database). */
 export async function seedDemoData(env) {
   step('Loading the demo data (only the first time)');
-  await mustRun('Loading the demo data', process.execPath, [path.join(apiDist, 'db/seed-cli.js')], { cwd: root, env: { ...process.env, ...env } });
+  await mustRun('Loading the demo data', process.execPath, [path.join(apiDist, 'seed/cli.js')], { cwd: root, env: { ...process.env, ...env } });
 }

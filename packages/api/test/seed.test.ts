@@ -1,8 +1,8 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { User } from '../src/db/entities/user.js';
-import { seedDemoData } from '../src/db/seed.js';
-import { demoNotebooks } from '../src/db/seed/demo-notebooks.js';
-import { demoUsers } from '../src/db/seed/demo-users.js';
+import { seedDemoData } from '../src/seed/demo-data.js';
+import { demoNotebooks } from '../src/seed/demo-notebooks.js';
+import { demoUsers } from '../src/seed/demo-users.js';
 import { checkCircuitText } from '../src/services/cell-check.js';
 import { createScratchDb } from './scratch-db.js';
 import type { ScratchDb } from './scratch-db.js';

@@ -3,7 +3,7 @@ import { baseUrl, openBrowser, screenshot } from './browser';
 import type { Session } from './browser';
 import { cellAt, circuitText, createNotebook, setCircuitText, signIn, waitSaved } from './helpers';
 
-// A demo user (packages/api/src/db/seed/demo-users.ts), signed in from two browsers.
+// A demo user (packages/api/src/seed/demo-users.ts), signed in from two browsers.
 const designer = 'priya.venkat';
 
 describe('working with cells', () => {

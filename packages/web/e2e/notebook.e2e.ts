@@ -4,7 +4,7 @@ import { baseUrl, openBrowser, screenshot } from './browser';
 import type { Session } from './browser';
 import { cellAt, circuitText, createNotebook, setCircuitText, signIn, waitSaved } from './helpers';
 
-// A demo user (packages/api/src/db/seed/demo-users.ts).
+// A demo user (packages/api/src/seed/demo-users.ts).
 const designer = 'tobias.okafor';
 
 describe('a designer’s notebook, in the browser against the real server', () => {

@@ -4,7 +4,7 @@ import { baseUrl, openBrowser, screenshot } from './browser';
 import type { Session } from './browser';
 import { cellAt, fetchFromPage, setCircuitText, signIn, waitSaved } from './helpers';
 
-// Demo users (packages/api/src/db/seed/demo-users.ts): Priya designs the regulator loop and
+// Demo users (packages/api/src/seed/demo-users.ts): Priya designs the regulator loop and
 // asks Mara to review it.
 const designer = { login: 'priya.venkat', email: 'priya.venkat@example.com' };
 const reviewer = { login: 'mara.lindqvist', name: 'Mara Lindqvist', email: 'mara.lindqvist@example.com' };

@@ -3,7 +3,7 @@ import { baseUrl, openBrowser, screenshot } from './browser';
 import type { Session } from './browser';
 import { cellAt, circuitText, createNotebook, fetchFromPage, setCircuitText, signIn, waitSaved } from './helpers';
 
-// Demo users (packages/api/src/db/seed/demo-users.ts): an owner and a colleague.
+// Demo users (packages/api/src/seed/demo-users.ts): an owner and a colleague.
 const owner = 'ines.carvalho';
 const colleague = 'kenji.arai';
 

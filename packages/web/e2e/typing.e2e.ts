@@ -4,7 +4,7 @@ import { baseUrl, openBrowser } from './browser';
 import type { Session } from './browser';
 import { cellAt, fetchFromPage, signIn, waitSaved } from './helpers';
 
-// A demo user (packages/api/src/db/seed/demo-users.ts).
+// A demo user (packages/api/src/seed/demo-users.ts).
 const designer = 'priya.venkat';
 
 // Lines that end in a number with an SI prefix or a unit: once, Enter after them accepted an
@@ -30,8 +30,11 @@ async function typeCell(session: Session, index: number, text: string): Promise<
   await editor.click();
   const lines = text.split('\n');
   for (const [n, line] of lines.entries()) {
-    await page.keyboard.type(line);
-    if (n < lines.length - 1) await page.keyboard.press('Enter');
+    // At a person's pace, so the completion list has time to open before Enter.
+    await page.keyboard.type(line, { delay: 25 });
+    if (n === lines.length - 1) break;
+    await page.waitForTimeout(300);
+    await page.keyboard.press('Enter');
   }
 }
 

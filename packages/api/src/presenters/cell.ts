@@ -1,6 +1,6 @@
 import type { Cell, CellRevision, CellRevisionSummary } from '../contract/cells.js';
 import { presentAuthor, presentDiagnostics, iso, isoOrNull } from './common.js';
-import type { CellRow, RevisionRow } from './rows.js';
+import type { CellRow, RevisionRow } from '../services/cells.js';
 
 export function presentCell(row: CellRow): Cell {
   return {

@@ -1,5 +1,5 @@
 import type { DiagnosticCounts, UserRef } from '../contract/common.js';
-import type { UserRefRow } from './rows.js';
+import type { UserRefRow } from '../services/users.js';
 
 export const iso = (date: Date): string => date.toISOString();
 export const isoOrNull = (date: Date | null): string | null => (date ? date.toISOString() : null);

@@ -6,7 +6,7 @@ import type { VersionRef } from '../contract/versions.js';
 import { effectiveRole, permissionsOf } from '../policy.js';
 import type { Actor } from '../policy.js';
 import { iso, isoOrNull } from './common.js';
-import type { NotebookRow } from './rows.js';
+import type { NotebookRow } from '../services/access.js';
 
 /** The policy's view of a notebook row. */
 export function accessOf(row: NotebookRow) {

@@ -1,6 +1,6 @@
 import type { Pin, PinComment } from '../contract/pins.js';
 import { iso, isoOrNull, presentAuthor } from './common.js';
-import type { PinCommentRow, PinRow } from './rows.js';
+import type { PinCommentRow, PinRow } from '../services/pins.js';
 
 export function presentPinComment(row: PinCommentRow): PinComment {
   return { id: row.id, author: presentAuthor(row.authorId, row.authorLogin, row.authorName), body: row.body, createdAt: iso(row.createdAt) };

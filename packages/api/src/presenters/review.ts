@@ -1,7 +1,7 @@
 import type { Review, ReviewState, ReviewStatus } from '../contract/reviews.js';
 import { iso, isoOrNull, presentAuthor } from './common.js';
 import { presentVersionRef } from './version.js';
-import type { AssignmentRow, DecisionRow, ReviewRow } from './rows.js';
+import type { AssignmentRow, DecisionRow, ReviewRow } from '../services/reviews.js';
 
 /**
  * A round's state from its reviewers' states: any request for changes wins, then a round

@@ -1,6 +1,6 @@
 import type { Version, VersionCell, VersionRef, VersionSummary } from '../contract/versions.js';
 import { presentAuthor, presentDiagnostics, iso } from './common.js';
-import type { VersionCellRow, VersionRow } from './rows.js';
+import type { VersionCellRow, VersionRow } from '../services/versions.js';
 
 export function presentVersionRef(row: { number: number; label: string }): VersionRef {
   return { number: row.number, label: row.label };

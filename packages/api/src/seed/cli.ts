@@ -1,6 +1,6 @@
 /** `npm run seed`: loads the demo data into the configured database, once. */
-import { dataSource } from './data-source.js';
-import { seedDemoData } from './seed.js';
+import { dataSource } from '../db/data-source.js';
+import { seedDemoData } from './demo-data.js';
 
 const messages = {
   loaded: 'demo data loaded',

@@ -1,13 +1,13 @@
 /**
- * The demo data, loaded once per database by `npm start` (through seed-cli.ts). A marker row in app_state records
+ * The demo data, loaded once per database by `npm start` (through cli.ts). A marker row in app_state records
  * that it ran, so it never runs again, and it never touches a database that has users.
  * Everything loads in one transaction, through the same services the API uses.
  */
 import type { DataSource, EntityManager } from 'typeorm';
-import { User } from './entities/user.js';
-import { demoFork, demoNotebooks } from './seed/demo-notebooks.js';
-import type { DemoNotebook } from './seed/demo-notebooks.js';
-import { demoUsers } from './seed/demo-users.js';
+import { User } from '../db/entities/user.js';
+import { demoFork, demoNotebooks } from './demo-notebooks.js';
+import type { DemoNotebook } from './demo-notebooks.js';
+import { demoUsers } from './demo-users.js';
 import type { Actor } from '../policy.js';
 import { saveCell } from '../services/cells.js';
 import { forkNotebook } from '../services/forks.js';

@@ -4,7 +4,7 @@
  * without errors; a few requirements fail on purpose in early revisions, as they did while
  * the team iterated. All part values and figures are invented for the demo.
  */
-import type { MemberRole } from '../entities/notebook-member.js';
+import type { MemberRole } from '../db/entities/notebook-member.js';
 
 /** Circuit-cell texts, by name. */
 export const demoCircuits = {

@@ -7,7 +7,26 @@ import { notFound } from '../errors.js';
 import { authorize } from '../policy.js';
 import type { Actor, NotebookAction } from '../policy.js';
 import { accessOf } from '../presenters/notebook.js';
-import type { NotebookRow } from '../presenters/rows.js';
+
+/** A notebook with its owner, the caller's member role and three counts. */
+export interface NotebookRow {
+  id: string;
+  title: string;
+  description: string;
+  ownerId: number;
+  ownerLogin: string;
+  ownerName: string;
+  visibility: 'private' | 'link';
+  forkedFromId: string | null;
+  forkedFromVersionId: number | null;
+  memberRole: 'editor' | 'reviewer' | 'viewer' | null;
+  cellCount: number | string;
+  forkCount: number | string;
+  versionCount: number | string;
+  createdAt: Date;
+  updatedAt: Date;
+  deletedAt: Date | null;
+}
 
 /**
  * A notebook with its owner, the caller's member role (the `?`), and its counts of live cells,

@@ -15,11 +15,43 @@ import { ApiError, notFound, tooLarge, validation } from '../errors.js';
 import type { Actor } from '../policy.js';
 import { presentCell, presentCurrentRevision, presentRevision, presentRevisionSummary } from '../presenters/cell.js';
 import { presentDiagnostics } from '../presenters/common.js';
-import type { CellRow, RevisionRow } from '../presenters/rows.js';
 import { checkCell } from './cell-check.js';
 import { inTransaction, managerOf, toInt } from './db.js';
 import type { Database } from './db.js';
 import { loadNotebookFor } from './access.js';
+
+/** A cell joined with its current revision and that revision's author. */
+export interface CellRow {
+  id: number;
+  notebookId: string;
+  kind: 'circuit' | 'note';
+  position: number;
+  revision: number;
+  updatedAt: Date;
+  deletedAt: Date | null;
+  revisionId: number;
+  text: string;
+  diagnosticErrors: number | null;
+  diagnosticWarnings: number | null;
+  authorId: number | null;
+  authorLogin: string | null;
+  authorName: string | null;
+  revisionCreatedAt: Date;
+}
+
+/** A revision with its author; `text` only when one revision is read, `size` in lists. */
+export interface RevisionRow {
+  cellId: number;
+  number: number;
+  text?: string;
+  size?: number | string;
+  diagnosticErrors: number | null;
+  diagnosticWarnings: number | null;
+  authorId: number | null;
+  authorLogin: string | null;
+  authorName: string | null;
+  createdAt: Date;
+}
 
 /** A cell with its current revision and that revision's author. */
 export const cellSelect = `

@@ -10,13 +10,13 @@ import { can } from '../policy.js';
 import type { Actor } from '../policy.js';
 import { accessOf, presentForkSummary } from '../presenters/notebook.js';
 import { presentVersionRef } from '../presenters/version.js';
-import type { NotebookRow } from '../presenters/rows.js';
 import { loadNotebookFor, notebookRow, notebookSelect } from './access.js';
 import { cellsOf } from './cells.js';
 import { inTransaction, managerOf, toInt } from './db.js';
 import type { Database } from './db.js';
 import { insertNotebook, presentNotebookFor } from './notebooks.js';
 import { versionCells, versionRow } from './versions.js';
+import type { NotebookRow } from './access.js';
 
 /**
  * A test's way to make a fork fail part-way: called after each copied cell, inside the

@@ -4,10 +4,17 @@ import { NotebookMember } from '../db/entities/notebook-member.js';
 import { notFound, validation } from '../errors.js';
 import type { Actor } from '../policy.js';
 import { presentMember } from '../presenters/member.js';
-import type { MemberRow } from '../presenters/rows.js';
 import { loadNotebookFor } from './access.js';
 import { inTransaction, managerOf } from './db.js';
 import type { Database } from './db.js';
+
+export interface MemberRow {
+  userId: number;
+  login: string;
+  name: string;
+  role: 'owner' | 'editor' | 'reviewer' | 'viewer';
+  addedAt: Date;
+}
 
 async function memberRows(db: Database, notebookId: string): Promise<MemberRow[]> {
   return db.query(

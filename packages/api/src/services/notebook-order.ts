@@ -8,7 +8,7 @@ import { LIMITS, NotebookIdSchema } from '../contract/common.js';
 import { NotebookSortSchema, SortOrderSchema } from '../contract/notebooks.js';
 import type { NotebookSort, SortOrder } from '../contract/notebooks.js';
 import { validation } from '../errors.js';
-import type { NotebookRow } from '../presenters/rows.js';
+import type { NotebookRow } from './access.js';
 
 /** The column behind each sort. Titles compare in the column's collation (case-insensitive). */
 const columns: Record<NotebookSort, 'n.updatedAt' | 'n.title' | 'n.createdAt'> = {

@@ -13,7 +13,6 @@ import type { Actor } from '../policy.js';
 import { presentCell } from '../presenters/cell.js';
 import { accessOf, presentNotebook, presentNotebookSummary } from '../presenters/notebook.js';
 import { presentVersionRef } from '../presenters/version.js';
-import type { NotebookRow } from '../presenters/rows.js';
 import { checkCell } from './cell-check.js';
 import { cellsOf, insertCell } from './cells.js';
 import { loadNotebookFor, notebookRow, notebookSelect } from './access.js';
@@ -22,6 +21,7 @@ import { reviewStatusOf } from './reviews.js';
 import { inTransaction, likeContains, managerOf } from './db.js';
 import type { Database } from './db.js';
 import { newNotebookId } from './ids.js';
+import type { NotebookRow } from './access.js';
 
 export interface NotebookListOptions {
   scope: NotebookScope;

@@ -9,10 +9,39 @@ import { Pin as PinEntity, PinComment as PinCommentEntity } from '../db/entities
 import { notFound, validation } from '../errors.js';
 import type { Actor } from '../policy.js';
 import { presentPin, presentPinComment } from '../presenters/pin.js';
-import type { PinCommentRow, PinRow } from '../presenters/rows.js';
 import { loadNotebookFor } from './access.js';
 import { inTransaction, managerOf } from './db.js';
 import type { Database } from './db.js';
+
+/** A pin with its creator, who resolved it, and its cell's current revision number. */
+export interface PinRow {
+  id: number;
+  notebookId: string;
+  cellId: number;
+  revisionNumber: number;
+  currentRevisionNumber: number;
+  trace: string;
+  frequency: number;
+  createdById: number | null;
+  createdByLogin: string | null;
+  createdByName: string | null;
+  createdAt: Date;
+  resolvedAt: Date | null;
+  resolvedById: number | null;
+  resolvedByLogin: string | null;
+  resolvedByName: string | null;
+}
+
+/** One comment of a pin's thread, with its author. */
+export interface PinCommentRow {
+  id: number;
+  pinId: number;
+  authorId: number | null;
+  authorLogin: string | null;
+  authorName: string | null;
+  body: string;
+  createdAt: Date;
+}
 
 const pinSelect = `
   SELECT p.id, p.notebookId, p.cellId, p.revisionNumber, c.revision AS currentRevisionNumber, p.trace, p.frequency,

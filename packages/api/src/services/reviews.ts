@@ -12,11 +12,49 @@ import { Review as ReviewEntity, ReviewAssignment, ReviewDecision } from '../db/
 import { conflict, forbidden, notFound, validation } from '../errors.js';
 import type { Actor } from '../policy.js';
 import { presentReview, presentReviewStatus } from '../presenters/review.js';
-import type { AssignmentRow, DecisionRow, NotebookRow, ReviewRow } from '../presenters/rows.js';
 import { loadNotebookFor } from './access.js';
 import { inTransaction, managerOf, toInt } from './db.js';
 import type { Database } from './db.js';
 import { changedSinceVersion, insertVersion } from './versions.js';
+import type { NotebookRow } from './access.js';
+
+/** A review round with its version, its requester, and the notebook's latest round number. */
+export interface ReviewRow {
+  id: number;
+  notebookId: string;
+  round: number;
+  versionId: number;
+  versionNumber: number;
+  versionLabel: string;
+  requestedById: number | null;
+  requestedByLogin: string | null;
+  requestedByName: string | null;
+  message: string;
+  createdAt: Date;
+  latestRound: number | string;
+}
+
+/** A person asked in a round, with their current state. */
+export interface AssignmentRow {
+  reviewId: number;
+  reviewerId: number;
+  login: string;
+  name: string;
+  state: 'requested' | 'changes_asked' | 'signed_off';
+  summary: string;
+  decidedAt: Date | null;
+}
+
+/** A decision of a round's history, with its reviewer (null when gone). */
+export interface DecisionRow {
+  reviewId: number;
+  reviewerId: number | null;
+  login: string | null;
+  name: string | null;
+  state: 'changes_asked' | 'signed_off';
+  summary: string;
+  createdAt: Date;
+}
 
 /** The label of a version made because a review was asked for a changed notebook. */
 export const reviewVersionLabel = 'For review';

@@ -11,6 +11,12 @@ import { presentAdminUser } from '../presenters/user.js';
 import { inTransaction } from './db.js';
 import type { Database } from './db.js';
 
+export interface UserRefRow {
+  id: number;
+  login: string;
+  name: string;
+}
+
 /** What a GitHub profile (or the stand-in's) tells us about a person. */
 export interface GithubIdentity {
   githubId: string;

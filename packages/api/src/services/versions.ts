@@ -5,10 +5,31 @@ import { NotebookVersion } from '../db/entities/notebook-version.js';
 import { notFound } from '../errors.js';
 import type { Actor } from '../policy.js';
 import { presentVersion, presentVersionSummary } from '../presenters/version.js';
-import type { VersionCellRow, VersionRow } from '../presenters/rows.js';
 import { loadNotebookFor } from './access.js';
 import { inTransaction, managerOf, toInt } from './db.js';
 import type { Database } from './db.js';
+
+export interface VersionRow {
+  id: number;
+  notebookId: string;
+  number: number;
+  label: string;
+  authorId: number | null;
+  authorLogin: string | null;
+  authorName: string | null;
+  createdAt: Date;
+  cellCount: number | string;
+}
+
+export interface VersionCellRow {
+  cellId: number;
+  kind: 'circuit' | 'note';
+  position: number;
+  revision: number;
+  text: string;
+  diagnosticErrors: number | null;
+  diagnosticWarnings: number | null;
+}
 
 const versionSelect = `
   SELECT v.id, v.notebookId, v.number, v.label, v.authorId, u.login AS authorLogin, u.name AS authorName, v.createdAt,

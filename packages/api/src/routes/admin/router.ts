@@ -3,7 +3,8 @@ import { actorOf, requireUser } from '../../auth/require-user.js';
 import { connect } from '../../db/connection.js';
 import { listUsers, updateUser } from '../../services/users.js';
 import { validate } from '../../validate.js';
-import { AdminUserUpdateSchema, UserParamsSchema } from './schema.js';
+import { AdminUserUpdateSchema } from '../../contract/users.js';
+import { UserParamsSchema } from '../params.js';
 
 /** `/api/admin/users`: site admins list people, change site roles, disable and enable. */
 export const adminRouter = Router();

@@ -1,6 +1,5 @@
 /** The few plain pages sign-in shows itself, when it cannot hand over to the web app. */
-const escapeHtml = (text: string) =>
-  text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+import { escapeHtml } from '../../html.js';
 
 /** A small page with a title, a sentence and a link onwards. */
 export function messagePage(title: string, message: string, link: { href: string; text: string }): string {

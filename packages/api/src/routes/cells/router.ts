@@ -4,8 +4,9 @@ import { actorOf } from '../../auth/require-user.js';
 import { connect } from '../../db/connection.js';
 import { createCell, deleteCell, getRevision, listRevisions, moveCell, restoreCell, saveCell } from '../../services/cells.js';
 import { validate } from '../../validate.js';
-import { NotebookParamsSchema } from '../notebooks/schema.js';
-import { CellCreateSchema, CellMoveSchema, CellParamsSchema, CellSaveSchema, RevisionListQuerySchema, RevisionParamsSchema } from './schema.js';
+import { CellCreateSchema, CellMoveSchema, CellSaveSchema } from '../../contract/cells.js';
+import { PageQuerySchema } from '../../contract/common.js';
+import { CellParamsSchema, NotebookParamsSchema, RevisionParamsSchema } from '../params.js';
 
 export const cellsRouter = Router({ mergeParams: true });
 
@@ -39,7 +40,7 @@ cellsRouter.post('/:cellId/restore', one, async (req, res) => {
   res.json(await restoreCell(await connect(), actorOf(req), params.id, params.cellId));
 });
 
-const revisions = validate({ params: CellParamsSchema, query: RevisionListQuerySchema });
+const revisions = validate({ params: CellParamsSchema, query: PageQuerySchema });
 cellsRouter.get('/:cellId/revisions', revisions, async (req, res) => {
   const { params, query } = revisions.input(req);
   res.json(await listRevisions(await connect(), actorOf(req), params.id, params.cellId, query));

@@ -1,8 +1,6 @@
 /** The development mailbox page: the stand-in's messages, newest first, every value escaped. */
-import type { StoredMessage } from '../../standins/smtp/mailbox.js';
-
-const escapeHtml = (text: string) =>
-  text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+import { escapeHtml } from '../../html.js';
+import type { MailboxMessage } from './mailbox.js';
 
 /** Escapes `text` and makes its http(s) addresses links (the only markup a message gets). */
 function linkify(text: string): string {
@@ -26,7 +24,7 @@ function shell(body: string): string {
 ${body}</body></html>`;
 }
 
-export function mailboxPage(messages: StoredMessage[]): string {
+export function mailboxPage(messages: MailboxMessage[]): string {
   if (messages.length === 0) return shell('<p data-testid="mailbox-empty">No messages yet.</p>');
   const articles = messages.map(
     (message) => `<article data-testid="mail-message">

@@ -3,7 +3,8 @@
  * stand-in (MAIL_STANDIN_URL names its HTTP mailbox). It reads the stand-in on every request.
  */
 import { Router } from 'express';
-import type { StoredMessage } from '../../standins/smtp/mailbox.js';
+import { MailboxReplySchema } from './mailbox.js';
+import type { MailboxMessage } from './mailbox.js';
 import { mailboxDownPage, mailboxPage } from './page.js';
 
 export function devMailRouter(standinUrl: string): Router {
@@ -12,11 +13,13 @@ export function devMailRouter(standinUrl: string): Router {
     res.set('cache-control', 'no-store');
     // The page is static markup: no script may run in it, whatever a message holds.
     res.set('content-security-policy', "default-src 'none'; style-src 'unsafe-inline'");
-    let messages: StoredMessage[];
+    let messages: MailboxMessage[];
     try {
       const reply = await fetch(`${standinUrl}/messages`, { signal: AbortSignal.timeout(3000) });
       if (!reply.ok) throw new Error(`it answered ${reply.status}`);
-      messages = ((await reply.json()) as { messages: StoredMessage[] }).messages;
+      const parsed = MailboxReplySchema.safeParse(await reply.json());
+      if (!parsed.success) throw new Error('its reply is not a list of messages');
+      messages = parsed.data.messages;
     } catch (error) {
       res.status(502).type('html').send(mailboxDownPage(standinUrl, (error as Error).message));
       return;

@@ -4,8 +4,8 @@ import { actorOf } from '../../auth/require-user.js';
 import { connect } from '../../db/connection.js';
 import { forkNotebook, listForks } from '../../services/forks.js';
 import { validate } from '../../validate.js';
-import { NotebookParamsSchema } from '../notebooks/schema.js';
-import { ForkCreateSchema } from './schema.js';
+import { ForkCreateSchema } from '../../contract/forks.js';
+import { NotebookParamsSchema } from '../params.js';
 
 export const forksRouter = Router({ mergeParams: true });
 

@@ -5,8 +5,8 @@ import { connect } from '../../db/connection.js';
 import { mailFor } from '../../mail/notifier.js';
 import { listMembers, putMember, removeMember } from '../../services/members.js';
 import { validate } from '../../validate.js';
-import { NotebookParamsSchema } from '../notebooks/schema.js';
-import { MemberParamsSchema, MemberPutSchema } from './schema.js';
+import { MemberPutSchema } from '../../contract/members.js';
+import { MemberParamsSchema, NotebookParamsSchema } from '../params.js';
 
 export const membersRouter = Router({ mergeParams: true });
 

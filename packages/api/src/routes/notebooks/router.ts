@@ -18,7 +18,8 @@ import { membersRouter } from '../members/router.js';
 import { pinsRouter } from '../pins/router.js';
 import { reviewsRouter } from '../reviews/router.js';
 import { versionsRouter } from '../versions/router.js';
-import { NotebookCreateSchema, NotebookListQuerySchema, NotebookParamsSchema, NotebookUpdateSchema } from './schema.js';
+import { NotebookCreateSchema, NotebookListQuerySchema, NotebookUpdateSchema } from '../../contract/notebooks.js';
+import { NotebookParamsSchema } from '../params.js';
 
 export const notebooksRouter = Router();
 notebooksRouter.use(requireUser);

@@ -5,8 +5,8 @@ import { connect } from '../../db/connection.js';
 import { mailFor } from '../../mail/notifier.js';
 import { addPinComment, createPin, listPins, setPinResolved } from '../../services/pins.js';
 import { validate } from '../../validate.js';
-import { NotebookParamsSchema } from '../notebooks/schema.js';
-import { PinCommentCreateSchema, PinCreateSchema, PinListQuerySchema, PinParamsSchema } from './schema.js';
+import { PinCommentCreateSchema, PinCreateSchema, PinListQuerySchema } from '../../contract/pins.js';
+import { NotebookParamsSchema, PinParamsSchema } from '../params.js';
 
 export const pinsRouter = Router({ mergeParams: true });
 

@@ -5,8 +5,8 @@ import { connect } from '../../db/connection.js';
 import { mailFor } from '../../mail/notifier.js';
 import { decideReview, getReview, listReviews, requestReview } from '../../services/reviews.js';
 import { validate } from '../../validate.js';
-import { NotebookParamsSchema } from '../notebooks/schema.js';
-import { ReviewCreateSchema, ReviewDecisionCreateSchema, ReviewParamsSchema } from './schema.js';
+import { ReviewCreateSchema, ReviewDecisionCreateSchema } from '../../contract/reviews.js';
+import { NotebookParamsSchema, ReviewParamsSchema } from '../params.js';
 
 export const reviewsRouter = Router({ mergeParams: true });
 

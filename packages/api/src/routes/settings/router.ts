@@ -4,7 +4,7 @@ import { actorOf, requireUser } from '../../auth/require-user.js';
 import { connect } from '../../db/connection.js';
 import { getSettings, updateSettings } from '../../services/settings.js';
 import { validate } from '../../validate.js';
-import { SettingsUpdateSchema } from './schema.js';
+import { SettingsUpdateSchema } from '../../contract/settings.js';
 
 export const settingsRouter = Router();
 settingsRouter.use(requireUser);

@@ -3,7 +3,7 @@ import { requireUser } from '../../auth/require-user.js';
 import { connect } from '../../db/connection.js';
 import { searchUsers } from '../../services/users.js';
 import { validate } from '../../validate.js';
-import { UserSearchQuerySchema } from './schema.js';
+import { UserSearchQuerySchema } from '../../contract/users.js';
 
 /** `GET /api/users?q=`: people a notebook can be shared with (login and name only). */
 export const usersRouter = Router();

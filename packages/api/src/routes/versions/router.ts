@@ -4,8 +4,8 @@ import { actorOf } from '../../auth/require-user.js';
 import { connect } from '../../db/connection.js';
 import { createVersion, getVersion, listVersions } from '../../services/versions.js';
 import { validate } from '../../validate.js';
-import { NotebookParamsSchema } from '../notebooks/schema.js';
-import { VersionCreateSchema, VersionParamsSchema } from './schema.js';
+import { VersionCreateSchema } from '../../contract/versions.js';
+import { NotebookParamsSchema, VersionParamsSchema } from '../params.js';
 
 export const versionsRouter = Router({ mergeParams: true });
 

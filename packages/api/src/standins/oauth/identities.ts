@@ -1,6 +1,6 @@
 /** The people the OAuth stand-in knows: the demo team, plus anyone typed in on its page. */
 import { createHash } from 'node:crypto';
-import { demoUsers } from '../../db/seed/demo-users.js';
+import { demoUsers } from '../../seed/demo-users.js';
 
 export interface Identity {
   /** GitHub's numeric user id: derived from the login, so it stays the same across restarts. */

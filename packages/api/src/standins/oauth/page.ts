@@ -1,8 +1,6 @@
 /** The stand-in's authorize page: pick a demo identity, or type a new login and e-mail. */
+import { escapeHtml } from '../../html.js';
 import type { Identity } from './identities.js';
-
-const escapeHtml = (text: string) =>
-  text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 export interface AuthorizeRequest {
   clientId: string;

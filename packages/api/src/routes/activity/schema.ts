@@ -1,1 +1,0 @@
-export { PageQuerySchema as ActivityQuerySchema } from '../../contract/common.js';

@@ -1,1 +1,0 @@
-export { ForkCreateSchema } from '../../contract/forks.js';

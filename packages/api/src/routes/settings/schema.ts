@@ -1,1 +1,0 @@
-export { SettingsUpdateSchema } from '../../contract/settings.js';

@@ -1,1 +1,0 @@
-export { UserSearchQuerySchema } from '../../contract/users.js';
