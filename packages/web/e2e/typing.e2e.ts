@@ -30,11 +30,8 @@ async function typeCell(session: Session, index: number, text: string): Promise<
   await editor.click();
   const lines = text.split('\n');
   for (const [n, line] of lines.entries()) {
-    // At a person's pace, so the completion list has time to open before Enter.
-    await page.keyboard.type(line, { delay: 25 });
-    if (n === lines.length - 1) break;
-    await page.waitForTimeout(300);
-    await page.keyboard.press('Enter');
+    await page.keyboard.type(line);
+    if (n < lines.length - 1) await page.keyboard.press('Enter');
   }
 }
 
