@@ -96,7 +96,7 @@ async function clickTraceNear(page: Page, frequency: number): Promise<void> {
   await page.mouse.click(point.x, point.y);
 }
 
-describe('a review: requested, pinned, changes asked, revised, signed off, and mailed', () => {
+describe('a review: requested, pinned, needs changes, revised, signed off, and mailed', () => {
   let designerSession: Session;
   let reviewerSession: Session;
   const title = `Regulator loop for review ${Date.now()}`;
@@ -175,16 +175,16 @@ describe('a review: requested, pinned, changes asked, revised, signed off, and m
     const decision = page.getByTestId('decision-controls');
     await decision.getByLabel(/Summary/).fill('Raise the crossover above 20 kHz: see P1.');
     await decision.getByRole('button', { name: 'Ask for changes' }).click();
-    await page.locator('header [data-testid="review-state"][data-state="changes_asked"]').waitFor({ timeout: 15_000 });
-    await page.getByTestId('review-history').locator('li[data-state="changes_asked"]').waitFor();
-    await reviewShot(page, 'review-changes-asked');
+    await page.locator('header [data-testid="review-state"][data-state="needs_changes"]').waitFor({ timeout: 15_000 });
+    await page.getByTestId('review-history').locator('li[data-state="needs_changes"]').waitFor();
+    await reviewShot(page, 'review-needs-changes');
   });
 
   it('the designer replies in the pin thread, makes a new version and asks again', async () => {
     const { page } = designerSession;
     await page.goto(`${baseUrl}/notebooks/${notebookId}`);
     const status = page.getByTestId('review-status');
-    await status.and(page.locator('[data-state="changes_asked"]')).waitFor({ timeout: 15_000 });
+    await status.and(page.locator('[data-state="needs_changes"]')).waitFor({ timeout: 15_000 });
     await status.click();
     await page.waitForURL(/\/reviews\/\d+$/);
     const thread = page.getByTestId('pins').getByTestId('pin').first();
@@ -209,7 +209,7 @@ describe('a review: requested, pinned, changes asked, revised, signed off, and m
     await dialog.getByRole('button', { name: 'Ask for review' }).click();
     await page.getByRole('heading', { level: 1, name: 'Review of version 2: Type II compensation' }).waitFor({ timeout: 15_000 });
     await page.getByTestId('rounds').waitFor();
-    expect(await page.getByTestId('rounds').textContent()).toContain('Round 1 · version 1 · changes asked');
+    expect(await page.getByTestId('rounds').textContent()).toContain('Round 1 · version 1 · needs changes');
   });
 
   it('the reviewer reads the new version, with the old pin on its revision, and signs off', async () => {
@@ -245,7 +245,7 @@ describe('a review: requested, pinned, changes asked, revised, signed off, and m
     const expected: [string, string][] = [
       [reviewer.email, `You were added to “${title}”`],
       [reviewer.email, `Review requested: “${title}”, version 1`],
-      [designer.email, `Changes asked: “${title}”, version 1`],
+      [designer.email, `Needs changes: “${title}”, version 1`],
       [reviewer.email, `New reply on a pin in “${title}”`],
       [reviewer.email, `Review requested: “${title}”, version 2`],
       [designer.email, `Signed off: “${title}”, version 2`],
@@ -257,6 +257,6 @@ describe('a review: requested, pinned, changes asked, revised, signed off, and m
     const all = await messagesAbout(title);
     expect(all).toHaveLength(expected.length);
     // Nobody mails the person who acted: Priya is not told of her own request or reply.
-    expect(all.filter((m) => m.to.some((to) => to.includes(designer.email))).map((m) => m.subject.split(':')[0])).toEqual(['Signed off', 'Changes asked']);
+    expect(all.filter((m) => m.to.some((to) => to.includes(designer.email))).map((m) => m.subject.split(':')[0])).toEqual(['Signed off', 'Needs changes']);
   });
 });

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { NotebookIdSchema, TimestampSchema, UserRefSchema } from './common.js';
 import { CellKindSchema } from './cells.js';
+import { DecisionStateSchema } from './reviews.js';
 import { VersionRefSchema } from './versions.js';
 
 const base = {
@@ -44,7 +45,7 @@ export const ActivityItemSchema = z.discriminatedUnion('kind', [
   z.object({ ...base, kind: z.literal('comment'), pin: PinRefSchema, excerpt }),
   z.object({ ...base, kind: z.literal('pin_resolved'), pin: PinRefSchema }),
   z.object({ ...base, kind: z.literal('review_requested'), review: ReviewRefSchema, reviewers: z.array(UserRefSchema), excerpt }),
-  z.object({ ...base, kind: z.literal('review_decision'), review: ReviewRefSchema, state: z.enum(['changes_asked', 'signed_off']), excerpt }),
+  z.object({ ...base, kind: z.literal('review_decision'), review: ReviewRefSchema, state: DecisionStateSchema, excerpt }),
 ]);
 export type ActivityItem = z.infer<typeof ActivityItemSchema>;
 export type ActivityKind = ActivityItem['kind'];

@@ -3,12 +3,16 @@ import { LIMITS, MarkdownSchema, TimestampSchema, UserRefSchema } from './common
 import { VersionRefSchema } from './versions.js';
 
 /**
- * A reviewer's state in a round (product.md: *requested*, *changes asked*, *signed off*).
- * `requested` → `changes_asked` or `signed_off`; `changes_asked` → `signed_off` within the
+ * A reviewer's state in a round (product.md: *requested*, *needs changes*, *signed off*).
+ * `requested` → `needs_changes` or `signed_off`; `needs_changes` → `signed_off` within the
  * same round; a sign-off is final for its round.
  */
-export const ReviewStateSchema = z.enum(['requested', 'changes_asked', 'signed_off']);
+export const ReviewStateSchema = z.enum(['requested', 'needs_changes', 'signed_off']);
 export type ReviewState = z.infer<typeof ReviewStateSchema>;
+
+/** What a reviewer decides: the states a decision can move them to. */
+export const DecisionStateSchema = ReviewStateSchema.exclude(['requested']);
+export type DecisionState = z.infer<typeof DecisionStateSchema>;
 
 /**
  * `POST /api/notebooks/:id/reviews` (editor or owner): ask members with the reviewer role
@@ -34,10 +38,10 @@ export type ReviewCreate = z.input<typeof ReviewCreateSchema>;
  */
 export const ReviewDecisionCreateSchema = z
   .strictObject({
-    state: z.enum(['changes_asked', 'signed_off']),
+    state: DecisionStateSchema,
     summary: MarkdownSchema.default(''),
   })
-  .refine((body) => body.state !== 'changes_asked' || body.summary.length > 0, {
+  .refine((body) => body.state !== 'needs_changes' || body.summary.length > 0, {
     message: 'Say what should change: a request for changes needs a summary.',
     path: ['summary'],
   });
@@ -56,7 +60,7 @@ export type Reviewer = z.infer<typeof ReviewerSchema>;
 /** A decision as it was made, for the round's history (a reviewer may decide twice). */
 export const ReviewDecisionSchema = z.object({
   reviewer: UserRefSchema.nullable(),
-  state: z.enum(['changes_asked', 'signed_off']),
+  state: DecisionStateSchema,
   summary: z.string(),
   createdAt: TimestampSchema,
 });
@@ -73,7 +77,7 @@ export const ReviewSchema = z.object({
   message: z.string(),
   createdAt: TimestampSchema,
   /**
-   * The round's state: `changes_asked` when any reviewer asked for changes, `signed_off`
+   * The round's state: `needs_changes` when any reviewer asked for changes, `signed_off`
    * when every reviewer signed off, else `requested`.
    */
   state: ReviewStateSchema,

@@ -14,8 +14,8 @@ describe('the e-mails', () => {
   });
 
   it('keep subjects on one line and say what happened', () => {
-    const decided = reviewDecidedMail(context, { reviewId: 7, round: 2, versionNumber: 3, reviewer: 'Kenji Arai', state: 'changes_asked', summary: 'Raise C1.\nThen check the phase margin.' });
-    expect(decided.subject).toBe('Changes asked: “Anti-alias filter for the converter”, version 3');
+    const decided = reviewDecidedMail(context, { reviewId: 7, round: 2, versionNumber: 3, reviewer: 'Kenji Arai', state: 'needs_changes', summary: 'Raise C1.\nThen check the phase margin.' });
+    expect(decided.subject).toBe('Needs changes: “Anti-alias filter for the converter”, version 3');
     expect(decided.text).toContain('> Raise C1.\n> Then check the phase margin.');
     expect(reviewDecidedMail(context, { reviewId: 7, round: 2, versionNumber: 3, reviewer: 'Kenji Arai', state: 'signed_off', summary: '' }).subject).toBe(
       'Signed off: “Anti-alias filter for the converter”, version 3',

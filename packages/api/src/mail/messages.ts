@@ -3,6 +3,7 @@
  * lines of plain text, a link back to the notebook, and where to turn such mail off.
  */
 import { formatSi } from '@rolloff/solver';
+import type { DecisionState } from '../contract/reviews.js';
 
 export interface ComposedMail {
   subject: string;
@@ -58,15 +59,16 @@ export function reviewRequestedMail(
 
 export function reviewDecidedMail(
   context: MailContext,
-  input: { reviewId: number; round: number; versionNumber: number; reviewer: string; state: 'changes_asked' | 'signed_off'; summary: string },
+  input: { reviewId: number; round: number; versionNumber: number; reviewer: string; state: DecisionState; summary: string },
 ): ComposedMail {
   const link = notebookLink(context, `?review=${input.reviewId}`);
-  const what = input.state === 'signed_off' ? 'signed off' : 'asked for changes to';
-  const lines = [`${input.reviewer} ${what} version ${input.versionNumber} of ${quoted(context.notebook.title)} (round ${input.round}).`];
+  const version = `version ${input.versionNumber} of ${quoted(context.notebook.title)}`;
+  const decided = input.state === 'signed_off' ? `signed off ${version}` : `says ${version} needs changes`;
+  const lines = [`${input.reviewer} ${decided} (round ${input.round}).`];
   if (input.summary) lines.push('', quote(input.summary));
   lines.push('', `Open the review: ${link}`);
   return {
-    subject: `${input.state === 'signed_off' ? 'Signed off' : 'Changes asked'}: ${quoted(context.notebook.title)}, version ${input.versionNumber}`,
+    subject: `${input.state === 'signed_off' ? 'Signed off' : 'Needs changes'}: ${quoted(context.notebook.title)}, version ${input.versionNumber}`,
     text: lines.join('\n') + footer(context, 'You get this because you asked for this review or edit this notebook.'),
   };
 }

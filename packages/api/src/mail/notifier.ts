@@ -7,7 +7,7 @@
 import type { Request } from 'express';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { Pin, PinComment } from '../contract/pins.js';
-import type { Review } from '../contract/reviews.js';
+import type { DecisionState, Review } from '../contract/reviews.js';
 import type { MailKind } from '../contract/settings.js';
 import { MailLogEntry } from '../db/entities/mail-log-entry.js';
 import { createMailer } from './mailer.js';
@@ -34,7 +34,7 @@ export interface Notifier {
   /** To each person newly asked to review. */
   reviewRequested(event: MailEvent & { review: Review; askedIds: number[] }): void;
   /** To the requester and the notebook's owner and editors. */
-  reviewDecided(event: MailEvent & { review: Review; state: 'changes_asked' | 'signed_off'; summary: string }): void;
+  reviewDecided(event: MailEvent & { review: Review; state: DecisionState; summary: string }): void;
   /** To everyone who wrote in the thread before this reply. */
   pinReplied(event: MailEvent & { pin: Pin; comment: PinComment }): void;
   /** To the person given a role. */

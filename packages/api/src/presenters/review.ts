@@ -8,7 +8,7 @@ import type { AssignmentRow, DecisionRow, ReviewRow } from '../services/reviews.
  * is signed off only when every reviewer signed off; otherwise it is still requested.
  */
 export function roundState(states: readonly ReviewState[]): ReviewState {
-  if (states.includes('changes_asked')) return 'changes_asked';
+  if (states.includes('needs_changes')) return 'needs_changes';
   if (states.length > 0 && states.every((state) => state === 'signed_off')) return 'signed_off';
   return 'requested';
 }

@@ -6,6 +6,7 @@
 import type { EntityManager } from 'typeorm';
 import type { ActivityItem, ActivityKind, ActivityPage } from '../contract/activity.js';
 import type { UserRef } from '../contract/common.js';
+import type { DecisionState } from '../contract/reviews.js';
 import { validation } from '../errors.js';
 import { can } from '../policy.js';
 import type { Actor } from '../policy.js';
@@ -158,7 +159,7 @@ async function details(manager: EntityManager, actor: Actor, page: PageRow[]): P
           `SELECT a.reviewId, u.id, u.login, u.name FROM review_assignments a JOIN users u ON u.id = a.reviewerId WHERE a.reviewId IN (?) ORDER BY a.createdAt, a.reviewerId`,
           [[...requests.keys()].map(Number)],
         );
-  const decisions = await rowsById<ActorColumns & { id: number; reviewId: number; round: number; versionNumber: number; state: 'changes_asked' | 'signed_off'; summary: string }>(
+  const decisions = await rowsById<ActorColumns & { id: number; reviewId: number; round: number; versionNumber: number; state: DecisionState; summary: string }>(
     manager,
     `SELECT d.id, ${reviewCols}, d.state, d.summary, ${actorCols}
        FROM review_decisions d JOIN reviews rv ON rv.id = d.reviewId JOIN notebook_versions v ON v.id = rv.versionId ${users} = d.reviewerId

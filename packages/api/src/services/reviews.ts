@@ -1,13 +1,13 @@
 /**
  * Review rounds. An editor asks members with the reviewer role or higher to review a version;
- * each reviewer moves from *requested* to *changes asked* or *signed off* (and from changes
- * asked to signed off), and a round for a later version supersedes the open one, which then
+ * each reviewer moves from *requested* to *needs changes* or *signed off* (and from needs
+ * changes to signed off), and a round for a later version supersedes the open one, which then
  * takes no more decisions. Every change locks the notebook row first, as cell saves do, so
  * two requests or decisions on one notebook queue up instead of racing.
  */
 import type { EntityManager } from 'typeorm';
 import type { ValidationIssue } from '../contract/common.js';
-import type { Review, ReviewList, ReviewStatus } from '../contract/reviews.js';
+import type { DecisionState, Review, ReviewList, ReviewState, ReviewStatus } from '../contract/reviews.js';
 import { Review as ReviewEntity, ReviewAssignment, ReviewDecision } from '../db/entities/review.js';
 import { conflict, forbidden, notFound, validation } from '../errors.js';
 import type { Actor } from '../policy.js';
@@ -40,7 +40,7 @@ export interface AssignmentRow {
   reviewerId: number;
   login: string;
   name: string;
-  state: 'requested' | 'changes_asked' | 'signed_off';
+  state: ReviewState;
   summary: string;
   decidedAt: Date | null;
 }
@@ -51,7 +51,7 @@ export interface DecisionRow {
   reviewerId: number | null;
   login: string | null;
   name: string | null;
-  state: 'changes_asked' | 'signed_off';
+  state: DecisionState;
   summary: string;
   createdAt: Date;
 }
@@ -256,7 +256,7 @@ export async function decideReview(
   actor: Actor,
   notebookId: string,
   reviewId: number,
-  input: { state: 'changes_asked' | 'signed_off'; summary: string },
+  input: { state: DecisionState; summary: string },
 ): Promise<Review> {
   return inTransaction(db, async (manager) => {
     await loadNotebookFor(manager, actor, notebookId, 'review', { lock: true });
@@ -273,7 +273,7 @@ export async function decideReview(
     if (mine[0].state === 'signed_off') {
       throw conflict(`You already signed off round ${review.round}; a sign-off is final for its round (changes need a new version and a new round).`);
     }
-    if (mine[0].state === 'changes_asked' && input.state === 'changes_asked') {
+    if (mine[0].state === 'needs_changes' && input.state === 'needs_changes') {
       throw conflict(`You already asked for changes in round ${review.round}; sign off once they are made, or reply on a pin.`);
     }
     const now = new Date();

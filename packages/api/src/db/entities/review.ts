@@ -1,6 +1,6 @@
 import { Column, Entity, PrimaryColumn, PrimaryGeneratedColumn } from 'typeorm';
 
-export type ReviewState = 'requested' | 'changes_asked' | 'signed_off';
+export type ReviewState = 'requested' | 'needs_changes' | 'signed_off';
 
 /** A review round: one version of a notebook, asked of one or more reviewers. */
 @Entity({ name: 'reviews' })

@@ -9,6 +9,7 @@ import { CreateReviewsAndPins1764633600007 } from './1764633600007-create-review
 import { CreateMail1764633600008 } from './1764633600008-create-mail.js';
 import { AddNotebookDescription1764633600009 } from './1764633600009-add-notebook-description.js';
 import { AddNotebookSortKeys1764633600010 } from './1764633600010-add-notebook-sort-keys.js';
+import { RenameChangesAsked1764633600011 } from './1764633600011-rename-changes-asked.js';
 
 /**
  * Every migration, oldest first. Listed by class rather than found by a file glob, so the
@@ -26,4 +27,5 @@ export const migrations = [
   CreateMail1764633600008,
   AddNotebookDescription1764633600009,
   AddNotebookSortKeys1764633600010,
+  RenameChangesAsked1764633600011,
 ];

@@ -116,40 +116,40 @@ describe('/api/notebooks/:id/reviews', () => {
     expect(named.body.details!.issues).toEqual([{ path: 'versionNumber', message: 'This notebook has no version 9.' }]);
   });
 
-  it('moves each reviewer from requested to changes asked or signed off, and refuses the illegal moves', async () => {
+  it('moves each reviewer from requested to needs changes or signed off, and refuses the illegal moves', async () => {
     const { notebook, people, clients, base } = await team();
     const review = ReviewSchema.parse((await clients.editor.post(base, { reviewerIds: [people.first.id, people.second.id] })).body);
     const decide = (client: Client, body: unknown) => client.post<Review | ErrorReply>(`${base}/${review.id}/decision`, body);
 
     // Asking for changes needs a summary.
-    const bare = (await decide(clients.first, { state: 'changes_asked' })) as Reply<ErrorReply>;
+    const bare = (await decide(clients.first, { state: 'needs_changes' })) as Reply<ErrorReply>;
     expect(bare.status).toBe(400);
     expect(bare.body.details!.issues[0]!.path).toBe('summary');
     expect((await decide(clients.first, { state: 'approved', summary: 'x' })).status).toBe(400);
 
-    const changes = await decide(clients.first, { state: 'changes_asked', summary: 'The corner sits at 1.6 kHz; the spec says 1.2 kHz.' });
+    const changes = await decide(clients.first, { state: 'needs_changes', summary: 'The corner sits at 1.6 kHz; the spec says 1.2 kHz.' });
     expect(changes.status).toBe(200);
-    expect(ReviewSchema.parse(changes.body)).toMatchObject({ state: 'changes_asked' });
+    expect(ReviewSchema.parse(changes.body)).toMatchObject({ state: 'needs_changes' });
 
-    const twice = (await decide(clients.first, { state: 'changes_asked', summary: 'Again.' })) as Reply<ErrorReply>;
+    const twice = (await decide(clients.first, { state: 'needs_changes', summary: 'Again.' })) as Reply<ErrorReply>;
     expect(twice.status).toBe(409);
     expect(twice.body.message).toMatch(/already asked for changes in round 1/);
 
     const signed = ReviewSchema.parse((await decide(clients.second, { state: 'signed_off', summary: '' })).body);
-    expect(signed.state).toBe('changes_asked');
+    expect(signed.state).toBe('needs_changes');
     expect(signed.reviewers.find((r) => r.user.id === people.second.id)).toMatchObject({ state: 'signed_off', summary: '' });
 
-    // From changes asked to signed off, within the round.
+    // From needs changes to signed off, within the round.
     const both = ReviewSchema.parse((await decide(clients.first, { state: 'signed_off', summary: 'Fine after all: the spec was old.' })).body);
     expect(both.state).toBe('signed_off');
     expect(both.history.map((h) => [h.reviewer?.id, h.state])).toEqual([
-      [people.first.id, 'changes_asked'],
+      [people.first.id, 'needs_changes'],
       [people.second.id, 'signed_off'],
       [people.first.id, 'signed_off'],
     ]);
     expect(both.reviewers.find((r) => r.user.id === people.first.id)).toMatchObject({ state: 'signed_off', summary: 'Fine after all: the spec was old.' });
 
-    for (const body of [{ state: 'changes_asked', summary: 'One more thing.' }, { state: 'signed_off' }]) {
+    for (const body of [{ state: 'needs_changes', summary: 'One more thing.' }, { state: 'signed_off' }]) {
       const after = (await decide(clients.first, body)) as Reply<ErrorReply>;
       expect(after.status).toBe(409);
       expect(after.body.message).toMatch(/already signed off round 1/);
@@ -175,7 +175,7 @@ describe('/api/notebooks/:id/reviews', () => {
   it('starts a new round for a later version, which supersedes the open one', async () => {
     const { notebook, people, clients, base } = await team();
     const round1 = ReviewSchema.parse((await clients.editor.post(base, { reviewerIds: [people.first.id] })).body);
-    await clients.first.post(`${base}/${round1.id}/decision`, { state: 'changes_asked', summary: 'Raise C1.' });
+    await clients.first.post(`${base}/${round1.id}/decision`, { state: 'needs_changes', summary: 'Raise C1.' });
 
     const cell = notebook.cells[1]!;
     await clients.editor.put(`/api/notebooks/${notebook.id}/cells/${cell.id}`, { text: rcLowPass.replace('100n', '120n'), baseRevision: 1 });
@@ -187,7 +187,7 @@ describe('/api/notebooks/:id/reviews', () => {
     const list = ReviewListSchema.parse((await clients.viewer.get(base)).body);
     expect(list.items.map((r) => [r.round, r.superseded, r.state])).toEqual([
       [2, false, 'requested'],
-      [1, true, 'changes_asked'],
+      [1, true, 'needs_changes'],
     ]);
 
     // A superseded round takes no decisions; the new one does.
@@ -253,14 +253,14 @@ describe('/api/notebooks/:id/reviews', () => {
   it('mails each decision to the requester and the notebook\'s editors and owner, but not to the reviewer', async () => {
     const { notebook, people, clients, base } = await team();
     const review = ReviewSchema.parse((await clients.editor.post(base, { reviewerIds: [people.first.id, people.second.id] })).body);
-    await clients.first.post(`${base}/${review.id}/decision`, { state: 'changes_asked', summary: 'Raise C1 to 120n.' });
+    await clients.first.post(`${base}/${review.id}/decision`, { state: 'needs_changes', summary: 'Raise C1 to 120n.' });
     const decided = ReviewSchema.parse((await clients.second.post(`${base}/${review.id}/decision`, { state: 'signed_off', summary: 'Good to go.' })).body);
     const firstName = decided.history[0]!.reviewer!.name;
 
     for (const person of [people.editor, people.owner]) {
       const mails = (await mailTo(person.email!)).sort((a, b) => a.id - b.id);
-      expect(mails.map((m) => m.subject)).toEqual([`Changes asked: “${notebook.title}”, version 1`, `Signed off: “${notebook.title}”, version 1`]);
-      expect(mails[0]!.text).toContain(`${firstName} asked for changes to version 1`);
+      expect(mails.map((m) => m.subject)).toEqual([`Needs changes: “${notebook.title}”, version 1`, `Signed off: “${notebook.title}”, version 1`]);
+      expect(mails[0]!.text).toContain(`${firstName} says version 1 of “${notebook.title}” needs changes`);
       expect(mails[0]!.text).toContain('> Raise C1 to 120n.');
       expect(mails[1]!.text).toContain(`${server.url}/notebooks/${notebook.id}?review=${review.id}`);
     }

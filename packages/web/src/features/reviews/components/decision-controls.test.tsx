@@ -64,15 +64,15 @@ describe('the decision controls', () => {
       {
         method: 'POST',
         url: `/api/notebooks/${reviewNotebookId}/reviews/${review.id}/decision`,
-        body: { state: 'changes_asked', summary: 'Raise Cz: the margin is thin at light load.' },
+        body: { state: 'needs_changes', summary: 'Raise Cz: the margin is thin at light load.' },
         csrf: 'token-from-the-server',
       },
     ]);
-    expect((onDecided.mock.calls[0][0] as Review).state).toBe('changes_asked');
+    expect((onDecided.mock.calls[0][0] as Review).state).toBe('needs_changes');
   });
 
   it('let a reviewer who asked for changes sign off later, but not ask twice', async () => {
-    const review = buildReview({ state: 'changes_asked', reviewers: [{ user: mara, state: 'changes_asked', summary: 'Raise Cz.', decidedAt: '2026-12-02T11:00:00.000Z' }] });
+    const review = buildReview({ state: 'needs_changes', reviewers: [{ user: mara, state: 'needs_changes', summary: 'Raise Cz.', decidedAt: '2026-12-02T11:00:00.000Z' }] });
     const calls = stubApi(review);
     renderControls(review, mara.id);
     expect(screen.queryByRole('button', { name: 'Ask for changes' })).toBeNull();

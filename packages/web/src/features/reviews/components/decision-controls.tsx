@@ -38,7 +38,7 @@ export function DecisionControls({ notebookId, review, meId, onDecided }: Decisi
     );
   }
 
-  const send = (state: 'changes_asked' | 'signed_off') => {
+  const send = (state: 'needs_changes' | 'signed_off') => {
     const parsed = ReviewDecisionCreateSchema.safeParse({ state, summary });
     if (!parsed.success) {
       setProblem(parsed.error.issues[0]?.message ?? 'The decision is not valid.');
@@ -51,7 +51,7 @@ export function DecisionControls({ notebookId, review, meId, onDecided }: Decisi
   return (
     <form className="space-y-2" data-testid="decision-controls" aria-label="Your decision" onSubmit={(event) => event.preventDefault()}>
       <p className="text-sm font-medium">Your decision on version {review.version.number}</p>
-      {where.state === 'changes_asked' ? (
+      {where.state === 'needs_changes' ? (
         <p className="text-sm text-ink-soft">You asked for changes in this round. Sign off once they are made, or wait for the next version.</p>
       ) : null}
       <label htmlFor={summaryId} className="block text-sm text-ink-soft">
@@ -68,7 +68,7 @@ export function DecisionControls({ notebookId, review, meId, onDecided }: Decisi
       {decide.error ? <ErrorMessage error={decide.error} /> : null}
       <div className="flex flex-wrap gap-2">
         {where.state === 'requested' ? (
-          <Button variant="danger" disabled={decide.isPending} onClick={() => send('changes_asked')}>
+          <Button variant="danger" disabled={decide.isPending} onClick={() => send('needs_changes')}>
             Ask for changes
           </Button>
         ) : null}

@@ -5,11 +5,11 @@ import { REVIEW_STATE_WORDS } from './review-state';
 
 const TONES: Record<ReviewState, string> = {
   requested: 'bg-accent-soft text-accent',
-  changes_asked: 'bg-warn-soft text-warn',
+  needs_changes: 'bg-warn-soft text-warn',
   signed_off: 'bg-pass-soft text-pass',
 };
 
-/** "requested", "changes asked" or "signed off", in its colour. */
+/** "requested", "needs changes" or "signed off", in its colour. */
 export function ReviewStateBadge({ state }: { state: ReviewState }) {
   return (
     <span className={`inline-flex rounded-full px-2 py-0.5 text-xs font-semibold ${TONES[state]}`} data-testid="review-state" data-state={state}>
@@ -18,7 +18,7 @@ export function ReviewStateBadge({ state }: { state: ReviewState }) {
   );
 }
 
-/** The latest round in brief, linked to its review view: "Review: changes asked · version 2". */
+/** The latest round in brief, linked to its review view: "Review: needs changes · version 2". */
 export function ReviewStatusLink({ status, href }: { status: ReviewStatus; href: string }) {
   return (
     <Link

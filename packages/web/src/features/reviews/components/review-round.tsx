@@ -60,7 +60,7 @@ export function ReviewHistory({ review }: { review: Review }) {
   );
 }
 
-/** One line per round, for moving between rounds: "Round 2 · version 3 · changes asked". */
+/** One line per round, for moving between rounds: "Round 2 · version 3 · needs changes". */
 export function roundLine(review: Review): string {
   return `Round ${review.round} · version ${review.version.number} · ${REVIEW_STATE_WORDS[review.state]}`;
 }

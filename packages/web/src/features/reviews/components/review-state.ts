@@ -1,12 +1,12 @@
 /**
- * Review states as screens name them (product.md: *requested*, *changes asked*, *signed
+ * Review states as screens name them (product.md: *requested*, *needs changes*, *signed
  * off*), and what the signed-in person may still decide in a round.
  */
 import type { Review, ReviewState } from '@rolloff/api/contract';
 
 export const REVIEW_STATE_WORDS: Record<ReviewState, string> = {
   requested: 'requested',
-  changes_asked: 'changes asked',
+  needs_changes: 'needs changes',
   signed_off: 'signed off',
 };
 
@@ -19,7 +19,7 @@ export type MyDecision =
   | { kind: 'not-asked' }
   | { kind: 'superseded' }
   | { kind: 'signed-off' }
-  | { kind: 'open'; state: 'requested' | 'changes_asked' };
+  | { kind: 'open'; state: 'requested' | 'needs_changes' };
 
 /** What `meId` may still decide in `review`. */
 export function myDecision(review: Review, meId: number): MyDecision {
