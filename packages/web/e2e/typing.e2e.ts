@@ -31,7 +31,10 @@ async function typeCell(session: Session, index: number, text: string): Promise<
   const lines = text.split('\n');
   for (const [n, line] of lines.entries()) {
     await page.keyboard.type(line);
-    if (n < lines.length - 1) await page.keyboard.press('Enter');
+    if (n === lines.length - 1) break;
+    // A person's pause before Enter: long enough for the completion list to open.
+    await page.waitForTimeout(300);
+    await page.keyboard.press('Enter');
   }
 }
 
@@ -67,6 +70,6 @@ describe('typing a cell key by key', () => {
         ((await fetchFromPage(page, `/api/notebooks/${notebookId}`, { method: 'GET' })).body as { cells: { text: string }[] }).cells[0].text;
       await expect.poll(savedText, { timeout: 20_000 }).toBe(text);
       expect(await cellAt(page, 0).locator('.cm-content .cm-line').count()).toBe(text.split('\n').length);
-    });
+    }, 120_000);
   }
 });
