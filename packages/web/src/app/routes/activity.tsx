@@ -9,7 +9,7 @@ import { notebookQueryOptions, useNotebook } from '../../features/notebooks/api/
 import { appPaths } from '../../lib/paths';
 import { orRouteError, requireMe } from '../loaders';
 import { queryClient } from '../query-client';
-import { cellNamer, notebookIdOf } from './notebook';
+import { cellNamer, notebookIdOf } from '../route-params';
 
 export async function loader({ request, params }: LoaderFunctionArgs) {
   await requireMe(request);

@@ -10,7 +10,8 @@ import { notebookQueryOptions, useNotebook } from '../../features/notebooks/api/
 import { appPaths } from '../../lib/paths';
 import { orRouteError, requireMe } from '../loaders';
 import { queryClient } from '../query-client';
-import { notebookIdOf, slugOf } from './notebook';
+import { notebookIdOf } from '../route-params';
+import { slugOf } from '../../lib/slug';
 
 function cellIdOf(params: { cellId?: string }): number {
   const id = Number(params.cellId);

@@ -5,11 +5,10 @@
  * sends a review e-mail's link (`?review=N`) on to that review.
  */
 import type { CellSaved, Notebook, Review, Visibility } from '@rolloff/api/contract';
-import { NotebookIdSchema } from '@rolloff/api/contract';
 import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useMemo, useState } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
-import { data, Link, redirect, useLocation, useNavigate, useParams } from 'react-router-dom';
+import { Link, redirect, useLocation, useNavigate, useParams } from 'react-router-dom';
 import { Button, buttonClass } from '../../components/ui/button';
 import { Dialog } from '../../components/ui/dialog';
 import { ErrorMessage, Loading } from '../../components/ui/status-message';
@@ -33,15 +32,10 @@ import type { ReviewCandidate } from '../../features/reviews/components/request-
 import { useMemberList } from '../../features/sharing/api/list-members';
 import { ShareDialog } from '../../features/sharing/components/share-dialog';
 import { appPaths } from '../../lib/paths';
+import { slugOf } from '../../lib/slug';
+import { cellNamer, notebookIdOf } from '../route-params';
 import { orRouteError, requireMe } from '../loaders';
 import { queryClient } from '../query-client';
-
-/** The notebook id of the address, or a 404 when it cannot be one. */
-export function notebookIdOf(params: { id?: string }): string {
-  const parsed = NotebookIdSchema.safeParse(params.id);
-  if (!parsed.success) throw data({ what: 'This notebook' }, { status: 404 });
-  return parsed.data;
-}
 
 export async function loader({ request, params }: LoaderFunctionArgs) {
   await requireMe(request);
@@ -50,15 +44,6 @@ export async function loader({ request, params }: LoaderFunctionArgs) {
   if (Number.isInteger(reviewId) && reviewId > 0) throw redirect(appPaths.review(id, reviewId));
   await orRouteError(queryClient.ensureQueryData(notebookQueryOptions(id)));
   return null;
-}
-
-/** "cell 2": where a cell stands among the notebook's live cells. */
-export function cellNamer(cells: readonly { id: number; position: number }[]): (cellId: number) => string {
-  const positions = new Map(cells.map((cell) => [cell.id, cell.position]));
-  return (cellId) => {
-    const position = positions.get(cellId);
-    return position === undefined ? 'a deleted cell' : `cell ${position + 1}`;
-  };
 }
 
 /** The pin threads under the cells; a link to `#pin-N` (a pin e-mail's) opens that one. */
@@ -121,17 +106,6 @@ function AskForReview({ notebook }: { notebook: Notebook }) {
         onRequested={onRequested}
       />
     </>
-  );
-}
-
-/** A file-name stem for downloads: the title in lower-case words. */
-export function slugOf(title: string): string {
-  return (
-    title
-      .toLowerCase()
-      .replace(/[^a-z0-9]+/g, '-')
-      .replace(/^-|-$/g, '')
-      .slice(0, 60) || 'notebook'
   );
 }
 

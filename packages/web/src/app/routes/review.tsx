@@ -32,7 +32,8 @@ import { exactTime, timeAgo } from '../../lib/format-time';
 import { appPaths } from '../../lib/paths';
 import { orRouteError, requireMe } from '../loaders';
 import { queryClient } from '../query-client';
-import { notebookIdOf, slugOf } from './notebook';
+import { notebookIdOf } from '../route-params';
+import { slugOf } from '../../lib/slug';
 
 function reviewIdOf(params: { reviewId?: string }): number {
   const id = Number(params.reviewId);

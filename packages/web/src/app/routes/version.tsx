@@ -12,7 +12,8 @@ import { exactTime } from '../../lib/format-time';
 import { appPaths } from '../../lib/paths';
 import { orRouteError, requireMe } from '../loaders';
 import { queryClient } from '../query-client';
-import { notebookIdOf, slugOf } from './notebook';
+import { notebookIdOf } from '../route-params';
+import { slugOf } from '../../lib/slug';
 
 function numberOf(params: { number?: string }): number {
   const n = Number(params.number);

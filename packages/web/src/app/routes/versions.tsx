@@ -8,7 +8,7 @@ import { VersionsPanel } from '../../features/notebooks/components/versions-pane
 import { appPaths } from '../../lib/paths';
 import { orRouteError, requireMe } from '../loaders';
 import { queryClient } from '../query-client';
-import { notebookIdOf } from './notebook';
+import { notebookIdOf } from '../route-params';
 
 export async function loader({ request, params }: LoaderFunctionArgs) {
   await requireMe(request);
