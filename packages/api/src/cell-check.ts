@@ -1,9 +1,10 @@
 /**
- * The one place the API asks the solver about a circuit cell's text. A save is never refused
- * for what the solver finds: the counts only travel with the answer and the revision.
+ * The one place the API asks the solver about a circuit cell's text, for saves and for the
+ * migration that rewrites old forms (so it sits below both services and db). A save is never
+ * refused for what the solver finds: the counts only travel with the answer and the revision.
  */
 import { compile } from '@rolloff/solver';
-import type { DiagnosticCounts } from '../contract/common.js';
+import type { DiagnosticCounts } from './contract/common.js';
 
 /** Caps a sweep the check elaborates, so a save never waits on a huge frequency list. */
 const maxPoints = 20_000;
@@ -16,7 +17,8 @@ export function checkCircuitText(text: string): DiagnosticCounts {
     let warnings = 0;
     for (const diagnostic of diagnostics) {
       if (diagnostic.severity === 'error') errors++;
-      else warnings++;
+      // An `info` diagnostic is a caution about the circuit, not a problem of the cell.
+      else if (diagnostic.severity === 'warning') warnings++;
     }
     return { errors, warnings };
   } catch (error) {

@@ -29,6 +29,17 @@ export const CellCreateSchema = z.strictObject({
 });
 export type CellCreate = z.input<typeof CellCreateSchema>;
 
+/**
+ * `POST /api/notebooks/:id/cells/:cellId/revisions/:number/restore`: saves that old revision's
+ * text as a new revision on `baseRevision` (409 like a save when it is stale). A circuit cell's
+ * text is first brought to today's language forms, as the language update did; the new
+ * revision's message says so.
+ */
+export const RevisionRestoreSchema = z.strictObject({
+  baseRevision: z.number().int().positive(),
+});
+export type RevisionRestore = z.infer<typeof RevisionRestoreSchema>;
+
 /** `PUT /api/notebooks/:id/cells/:cellId`: the new text and the revision it was based on. */
 export const CellSaveSchema = z.strictObject({
   text: CellTextSchema,
@@ -48,6 +59,8 @@ export const CellRevisionSchema = z.object({
   number: z.number().int().positive(),
   text: z.string(),
   author: UserRefSchema.nullable(),
+  /** Why the revision was made when its author did not type it: `language update` (by the system user, whose name is Rolloff), `restored from revision 3`; null for a save. */
+  message: z.string().nullable(),
   createdAt: TimestampSchema,
   diagnostics: DiagnosticCountsSchema.nullable(),
 });

@@ -11,7 +11,8 @@
  *   `GET|PATCH|DELETE /api/notebooks/:id`, `POST /api/notebooks/:id/restore`.
  * - `POST /api/notebooks/:id/cells`, `PUT|DELETE /api/notebooks/:id/cells/:cellId`,
  *   `POST …/cells/:cellId/move`, `POST …/cells/:cellId/restore`,
- *   `GET …/cells/:cellId/revisions`, `GET …/cells/:cellId/revisions/:number`.
+ *   `GET …/cells/:cellId/revisions`, `GET …/cells/:cellId/revisions/:number`,
+ *   `POST …/cells/:cellId/revisions/:number/restore`.
  * - `POST|GET /api/notebooks/:id/versions`, `GET /api/notebooks/:id/versions/:number`.
  * - `POST|GET /api/notebooks/:id/forks`.
  * - `GET /api/notebooks/:id/members`, `PUT|DELETE /api/notebooks/:id/members/:userId`.

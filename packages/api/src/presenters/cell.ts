@@ -22,6 +22,7 @@ export function presentRevision(row: RevisionRow & { text: string }): CellRevisi
     number: row.number,
     text: row.text,
     author: presentAuthor(row.authorId, row.authorLogin, row.authorName),
+    message: row.message,
     createdAt: iso(row.createdAt),
     diagnostics: presentDiagnostics(row.diagnosticErrors, row.diagnosticWarnings),
   };
@@ -32,6 +33,7 @@ export function presentRevisionSummary(row: RevisionRow): CellRevisionSummary {
     cellId: row.cellId,
     number: row.number,
     author: presentAuthor(row.authorId, row.authorLogin, row.authorName),
+    message: row.message,
     createdAt: iso(row.createdAt),
     diagnostics: presentDiagnostics(row.diagnosticErrors, row.diagnosticWarnings),
     size: Number(row.size ?? (row.text === undefined ? 0 : Buffer.byteLength(row.text, 'utf8'))),
@@ -44,6 +46,7 @@ export function presentCurrentRevision(row: CellRow): CellRevisionSummary {
     cellId: row.id,
     number: row.revision,
     author: presentAuthor(row.authorId, row.authorLogin, row.authorName),
+    message: row.revisionMessage,
     createdAt: iso(row.revisionCreatedAt),
     diagnostics: presentDiagnostics(row.diagnosticErrors, row.diagnosticWarnings),
     size: Buffer.byteLength(row.text, 'utf8'),

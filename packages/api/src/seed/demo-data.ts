@@ -1,10 +1,12 @@
 /**
  * The demo data, loaded once per database by `npm start` (through cli.ts). A marker row in app_state records
- * that it ran, so it never runs again, and it never touches a database that has users.
+ * that it ran, so it never runs again, and it never touches a database that has users (other
+ * than the system user the migrations make).
  * Everything loads in one transaction, through the same services the API uses.
  */
+import { Not } from 'typeorm';
 import type { DataSource, EntityManager } from 'typeorm';
-import { User } from '../db/entities/user.js';
+import { SYSTEM_USER, User } from '../db/entities/user.js';
 import { demoFork, demoNotebooks } from './demo-notebooks.js';
 import type { DemoNotebook } from './demo-notebooks.js';
 import { demoUsers } from './demo-users.js';
@@ -22,7 +24,7 @@ export async function seedDemoData(db: DataSource): Promise<'loaded' | 'already-
   return db.transaction(async (manager) => {
     const done = await manager.query('SELECT value FROM app_state WHERE name = ? FOR UPDATE', [marker]);
     if (done.length > 0) return 'already-loaded';
-    if ((await manager.count(User)) > 0) return 'has-user-data';
+    if ((await manager.count(User, { where: { login: Not(SYSTEM_USER.login) } })) > 0) return 'has-user-data';
     await manager.insert(User, demoUsers.map((user) => ({ ...user })));
     await loadNotebooks(manager);
     await manager.query('INSERT INTO app_state (name, value) VALUES (?, ?)', [marker, new Date().toISOString()]);

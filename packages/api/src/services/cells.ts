@@ -4,6 +4,7 @@
  * cells) and never deadlock; a save compares `baseRevision` under that lock, so of two saves on
  * the same revision exactly one wins and the other gets 409 with the winner's text.
  */
+import { modernizeCellText } from '@rolloff/solver';
 import type { EntityManager } from 'typeorm';
 import type { CellRevisionList, CellRevision as CellRevisionBody, CellSaved } from '../contract/cells.js';
 import { LIMITS } from '../contract/common.js';
@@ -15,7 +16,7 @@ import { ApiError, notFound, tooLarge, validation } from '../errors.js';
 import type { Actor } from '../policy.js';
 import { presentCell, presentCurrentRevision, presentRevision, presentRevisionSummary } from '../presenters/cell.js';
 import { presentDiagnostics } from '../presenters/common.js';
-import { checkCell } from './cell-check.js';
+import { checkCell } from '../cell-check.js';
 import { inTransaction, managerOf, toInt } from './db.js';
 import type { Database } from './db.js';
 import { loadNotebookFor } from './access.js';
@@ -36,6 +37,7 @@ export interface CellRow {
   authorId: number | null;
   authorLogin: string | null;
   authorName: string | null;
+  revisionMessage: string | null;
   revisionCreatedAt: Date;
 }
 
@@ -50,6 +52,7 @@ export interface RevisionRow {
   authorId: number | null;
   authorLogin: string | null;
   authorName: string | null;
+  message: string | null;
   createdAt: Date;
 }
 
@@ -57,14 +60,14 @@ export interface RevisionRow {
 export const cellSelect = `
   SELECT c.id, c.notebookId, c.kind, c.position, c.revision, c.updatedAt, c.deletedAt,
          r.id AS revisionId, r.text, r.diagnosticErrors, r.diagnosticWarnings, r.authorId,
-         u.login AS authorLogin, u.name AS authorName, r.createdAt AS revisionCreatedAt
+         u.login AS authorLogin, u.name AS authorName, r.message AS revisionMessage, r.createdAt AS revisionCreatedAt
     FROM cells c
     JOIN cell_revisions r ON r.cellId = c.id AND r.number = c.revision
     LEFT JOIN users u ON u.id = r.authorId`;
 
 const revisionColumns = `
   r.cellId, r.number, r.diagnosticErrors, r.diagnosticWarnings, r.authorId,
-  u.login AS authorLogin, u.name AS authorName, r.createdAt`;
+  u.login AS authorLogin, u.name AS authorName, r.message, r.createdAt`;
 
 /** Live and deleted cells of a notebook: live ones in order first, then deleted, newest first. */
 export async function cellsOf(manager: EntityManager, notebookId: string): Promise<CellRow[]> {
@@ -166,8 +169,16 @@ export interface SaveOutcome {
 /**
  * `PUT …/cells/:cellId`: stores `text` as a new revision if `baseRevision` is still current;
  * otherwise 409 with the current revision and the refused text, so nothing typed is lost.
+ * `message` says why a revision nobody typed was made (a restore).
  */
-export async function saveCell(db: Database, actor: Actor, notebookId: string, cellId: number, input: { text: string; baseRevision: number }): Promise<SaveOutcome> {
+export async function saveCell(
+  db: Database,
+  actor: Actor,
+  notebookId: string,
+  cellId: number,
+  input: { text: string; baseRevision: number },
+  message: string | null = null,
+): Promise<SaveOutcome> {
   const kindRows: { kind: 'circuit' | 'note' }[] = await db.query('SELECT kind FROM cells WHERE id = ? AND notebookId = ?', [cellId, notebookId]);
   // The kind never changes, so the solver can run before the transaction holds any lock.
   const diagnostics = kindRows[0] ? checkCell(kindRows[0].kind, input.text) : null;
@@ -193,6 +204,7 @@ export async function saveCell(db: Database, actor: Actor, notebookId: string, c
           authorId: current.authorId,
           authorLogin: current.authorLogin,
           authorName: current.authorName,
+          message: current.revisionMessage,
           createdAt: current.revisionCreatedAt,
         }),
         submitted: { text: input.text, baseRevision: input.baseRevision },
@@ -208,6 +220,7 @@ export async function saveCell(db: Database, actor: Actor, notebookId: string, c
       number,
       text: input.text,
       authorId: actor.id,
+      message,
       diagnosticErrors: diagnostics?.errors ?? null,
       diagnosticWarnings: diagnostics?.warnings ?? null,
       createdAt: now,
@@ -317,4 +330,25 @@ export async function getRevision(db: Database, actor: Actor, notebookId: string
   );
   if (!rows[0]) throw notFound('That revision');
   return presentRevision(rows[0]);
+}
+
+/**
+ * `POST …/cells/:cellId/revisions/:number/restore`: saves an old revision's text as a new
+ * revision on `baseRevision`, so history only grows. A circuit cell's old text is brought to
+ * today's language forms on the way, as the language update did for every current text.
+ */
+export async function restoreRevision(db: Database, actor: Actor, notebookId: string, cellId: number, number: number, input: { baseRevision: number }): Promise<SaveOutcome> {
+  const manager = managerOf(db);
+  await loadNotebookFor(manager, actor, notebookId, 'edit');
+  const old: { kind: 'circuit' | 'note'; text: string }[] = await manager.query(
+    'SELECT c.kind, r.text FROM cells c JOIN cell_revisions r ON r.cellId = c.id WHERE c.id = ? AND c.notebookId = ? AND r.number = ?',
+    [cellId, notebookId, number],
+  );
+  if (!old[0]) {
+    await mustFindCell(manager, notebookId, cellId);
+    throw notFound('That revision');
+  }
+  const modern = old[0].kind === 'circuit' ? modernizeCellText(old[0].text) : { text: old[0].text, changed: false };
+  const message = `restored from revision ${number}${modern.changed ? ', with the language update' : ''}`;
+  return saveCell(db, actor, notebookId, cellId, { text: modern.text, baseRevision: input.baseRevision }, message);
 }

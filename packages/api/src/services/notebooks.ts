@@ -13,7 +13,7 @@ import type { Actor } from '../policy.js';
 import { presentCell } from '../presenters/cell.js';
 import { accessOf, presentNotebook, presentNotebookSummary } from '../presenters/notebook.js';
 import { presentVersionRef } from '../presenters/version.js';
-import { checkCell } from './cell-check.js';
+import { checkCell } from '../cell-check.js';
 import { cellsOf, insertCell } from './cells.js';
 import { loadNotebookFor, notebookRow, notebookSelect } from './access.js';
 import { encodeCursor, listOrder } from './notebook-order.js';

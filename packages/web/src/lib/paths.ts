@@ -24,6 +24,7 @@ export const apiPaths = {
   restoreCell: (id: string, cellId: number) => `/api/notebooks/${enc(id)}/cells/${cellId}/restore`,
   revisions: (id: string, cellId: number, cursor?: string) => `/api/notebooks/${enc(id)}/cells/${cellId}/revisions${query({ cursor, limit: 100 })}`,
   revision: (id: string, cellId: number, number: number) => `/api/notebooks/${enc(id)}/cells/${cellId}/revisions/${number}`,
+  restoreRevision: (id: string, cellId: number, number: number) => `/api/notebooks/${enc(id)}/cells/${cellId}/revisions/${number}/restore`,
   versions: (id: string) => `/api/notebooks/${enc(id)}/versions`,
   version: (id: string, number: number) => `/api/notebooks/${enc(id)}/versions/${number}`,
   forks: (id: string) => `/api/notebooks/${enc(id)}/forks`,

@@ -22,7 +22,7 @@ export function buildCell(revision: number, text: string, overrides: Partial<Cel
 
 /** A revision of cell 7. */
 export function buildRevision(number: number, text: string, author: UserRef = tobias): CellRevision {
-  return { cellId: 7, number, text, author, createdAt: '2026-12-02T10:20:00.000Z', diagnostics: { errors: 0, warnings: 0 } };
+  return { cellId: 7, number, text, author, message: null, createdAt: '2026-12-02T10:20:00.000Z', diagnostics: { errors: 0, warnings: 0 } };
 }
 
 /** The API's answer to a stored save. */

@@ -18,6 +18,10 @@ export class CellRevision {
   @Column({ type: 'int', unsigned: true, nullable: true })
   authorId!: number | null;
 
+  /** Why the revision was made when its author did not type it (`language update`); null for a save. */
+  @Column({ type: 'varchar', length: 200, nullable: true })
+  message!: string | null;
+
   /** The solver's error and warning counts for a circuit cell's text; null for notes. */
   @Column({ type: 'int', unsigned: true, nullable: true })
   diagnosticErrors!: number | null;

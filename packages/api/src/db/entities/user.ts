@@ -2,6 +2,13 @@ import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateCol
 
 export type SiteRole = 'admin' | 'member';
 
+/**
+ * The user that stands for Rolloff itself as the author of the revisions it makes (the
+ * language update). Its login is one GitHub never gives out (logins start with a letter or
+ * digit), and it is disabled, so no one signs in as it; screens show its name.
+ */
+export const SYSTEM_USER = { login: '_rolloff', name: 'Rolloff' } as const;
+
 /** A person who signs in with GitHub (or the local stand-in). */
 @Entity({ name: 'users' })
 export class User {

@@ -10,6 +10,8 @@ import { CreateMail1764633600008 } from './1764633600008-create-mail.js';
 import { AddNotebookDescription1764633600009 } from './1764633600009-add-notebook-description.js';
 import { AddNotebookSortKeys1764633600010 } from './1764633600010-add-notebook-sort-keys.js';
 import { RenameChangesAsked1764633600011 } from './1764633600011-rename-changes-asked.js';
+import { AddRevisionMessage1764633600012 } from './1764633600012-add-revision-message.js';
+import { LanguageUpdate1764633600013 } from './1764633600013-language-update.js';
 
 /**
  * Every migration, oldest first. Listed by class rather than found by a file glob, so the
@@ -28,4 +30,6 @@ export const migrations = [
   AddNotebookDescription1764633600009,
   AddNotebookSortKeys1764633600010,
   RenameChangesAsked1764633600011,
+  AddRevisionMessage1764633600012,
+  LanguageUpdate1764633600013,
 ];

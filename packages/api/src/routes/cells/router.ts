@@ -2,9 +2,9 @@
 import { Router } from 'express';
 import { actorOf } from '../../auth/require-user.js';
 import { connect } from '../../db/connection.js';
-import { createCell, deleteCell, getRevision, listRevisions, moveCell, restoreCell, saveCell } from '../../services/cells.js';
+import { createCell, deleteCell, getRevision, listRevisions, moveCell, restoreCell, restoreRevision, saveCell } from '../../services/cells.js';
 import { validate } from '../../validate.js';
-import { CellCreateSchema, CellMoveSchema, CellSaveSchema } from '../../contract/cells.js';
+import { CellCreateSchema, CellMoveSchema, CellSaveSchema, RevisionRestoreSchema } from '../../contract/cells.js';
 import { PageQuerySchema } from '../../contract/common.js';
 import { CellParamsSchema, NotebookParamsSchema, RevisionParamsSchema } from '../params.js';
 
@@ -50,4 +50,11 @@ const revision = validate({ params: RevisionParamsSchema });
 cellsRouter.get('/:cellId/revisions/:number', revision, async (req, res) => {
   const { params } = revision.input(req);
   res.json(await getRevision(await connect(), actorOf(req), params.id, params.cellId, params.number));
+});
+
+const restoreOne = validate({ params: RevisionParamsSchema, body: RevisionRestoreSchema });
+cellsRouter.post('/:cellId/revisions/:number/restore', restoreOne, async (req, res) => {
+  const { params, body } = restoreOne.input(req);
+  const outcome = await restoreRevision(await connect(), actorOf(req), params.id, params.cellId, params.number, body);
+  res.status(outcome.created ? 201 : 200).json(outcome.body);
 });

@@ -1,16 +1,17 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CellSaved } from '@rolloff/api/contract';
-import { getRevision } from './get-revision';
+import { CellSavedSchema } from '@rolloff/api/contract';
+import type { CellSaved, RevisionRestore } from '@rolloff/api/contract';
+import { apiRequest } from '../../../lib/api-client';
+import { apiPaths } from '../../../lib/paths';
 import { revisionListQueryOptions } from './list-revisions';
-import { saveCell } from './save-cell';
 
 /**
- * Restores an old revision by saving its text as a new revision on top of the current one,
- * so history only ever grows.
+ * Restores an old revision: the API saves its text (a circuit's in today's language forms) as
+ * a new revision on top of the current one, so history only ever grows.
  */
 export async function restoreRevision(notebookId: string, cellId: number, number: number, currentRevision: number): Promise<CellSaved> {
-  const old = await getRevision(notebookId, cellId, number);
-  return saveCell(notebookId, cellId, { text: old.text, baseRevision: currentRevision });
+  const body: RevisionRestore = { baseRevision: currentRevision };
+  return apiRequest(apiPaths.restoreRevision(notebookId, cellId, number), CellSavedSchema, { method: 'POST', body });
 }
 
 export const useRestoreRevision = (notebookId: string, cellId: number, onDone?: (saved: CellSaved) => void) => {

@@ -95,7 +95,8 @@ export function CellHistory({ notebookId, cellId, kind, editable, renderOverlay,
                   <span className="font-medium">revision {revision.number}</span>
                   {revision.number === current ? <span className="ml-1 text-xs text-accent">current</span> : null}
                   <div className="text-xs text-ink-faint" title={exactTime(revision.createdAt)}>
-                    {revision.author ? revision.author.name || revision.author.login : 'unknown'} · {timeAgo(revision.createdAt)}
+                    {revision.author ? revision.author.name || revision.author.login : 'unknown'}
+                    {revision.message ? ` · ${revision.message}` : ''} · {timeAgo(revision.createdAt)}
                     {revision.diagnostics && revision.diagnostics.errors > 0 ? ` · ${revision.diagnostics.errors} error${revision.diagnostics.errors === 1 ? '' : 's'}` : ''}
                   </div>
                 </td>
