@@ -18,7 +18,7 @@ import { useRestoreCell } from '../api/restore-cell';
 import { ConflictDialog } from './conflict-dialog';
 import { NoteCell } from './note-cell';
 import { SaveStatus } from './save-status';
-import { useCellAutosave } from './use-cell-autosave';
+import { useCellAutosave } from '../hooks/use-cell-autosave';
 
 /** What the page needs to draw a circuit cell's body. */
 export interface CircuitBodyProps {

@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'react';
-import type { SaveState } from './use-cell-autosave';
+import type { SaveState } from '../hooks/autosave-state';
 
 function secondsUntil(at: number): number {
   return Math.max(0, Math.ceil((at - Date.now()) / 1000));
