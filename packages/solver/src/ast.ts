@@ -3,9 +3,11 @@
  * resolved yet (names are names, values are unevaluated); `elaborate` does that.
  * A statement whose parse failed part-way keeps what was read, with `null` for the rest.
  */
-import type { Measure, SourceRange } from './circuit.js';
+import type { SourceRange } from './circuit.js';
 import type { Token } from './lexer.js';
-import type { Unit } from './units.js';
+import type { ControlledMode, Measure, OpAmpOptionName, PassiveKind, Unit } from './vocabulary.js';
+
+export type { ControlledMode, OpAmpOptionName, PassiveKind };
 
 /** A name as written, with where it stands. */
 export interface Ident {
@@ -45,12 +47,10 @@ export interface LetStatement {
   range: SourceRange;
 }
 
-export type PassiveKind = 'resistor' | 'capacitor' | 'inductor';
-
 export type PartOption =
   | { kind: 'tolerance'; value: Value; range: SourceRange }
   | { kind: 'esr' | 'esl' | 'dcr'; value: Value; range: SourceRange }
-  | { kind: 'noiseless'; range: SourceRange };
+  | { kind: 'noise-off'; range: SourceRange };
 
 export interface PassiveStatement {
   kind: 'passive';
@@ -62,8 +62,6 @@ export interface PassiveStatement {
   range: SourceRange;
 }
 
-export type OpAmpOptionName = 'gain' | 'gbw' | 'zout' | 'en' | 'in';
-
 export interface OpAmpStatement {
   kind: 'opamp';
   designator: Ident;
@@ -71,8 +69,6 @@ export interface OpAmpStatement {
   options: { name: OpAmpOptionName; value: Value; range: SourceRange }[];
   range: SourceRange;
 }
-
-export type ControlledMode = 'vgain' | 'gm' | 'igain' | 'rm';
 
 export interface ControlledStatement {
   kind: 'controlled';
@@ -170,9 +166,10 @@ export interface TemperatureStatement {
   range: SourceRange;
 }
 
-export interface ToleranceStatement {
-  kind: 'tolerance';
-  mode: 'montecarlo' | 'worstcase';
+/** `spread N draws [seed S]` or `spread extremes`. */
+export interface SpreadStatement {
+  kind: 'spread';
+  mode: 'draws' | 'extremes';
   draws: Value | null;
   seed: Value | null;
   range: SourceRange;
@@ -216,7 +213,7 @@ export type Statement =
   | SweepStatement
   | TimeStatement
   | TemperatureStatement
-  | ToleranceStatement
+  | SpreadStatement
   | RequireStatement;
 
 export interface Program {

@@ -3,6 +3,7 @@
  * Blocks are flattened, parameters resolved to numbers, nodes numbered (0 is ground),
  * and every `show` and `require` mapped to what it reads. Plain data, no methods.
  */
+import type { Measure } from './vocabulary.js';
 
 /** A place in the cell's text. Lines and columns are 1-based; `endColumn` is exclusive. */
 export interface SourceRange {
@@ -183,18 +184,8 @@ export type SweepSpec =
   | { kind: 'linear'; from: number; to: number; points: number }
   | { kind: 'list'; frequencies: number[] };
 
-export type Measure =
-  | 'gain'
-  | 'phase'
-  | 'delay'
-  | 'magnitude'
-  | 'corner'
-  | 'peak'
-  | 'crossover'
-  | 'phase-margin'
-  | 'gain-margin'
-  | 'settling'
-  | 'overshoot';
+/** What a requirement measures: the words of the language's vocabulary. */
+export type { Measure } from './vocabulary.js';
 
 export interface RequirementSpec {
   range: SourceRange;

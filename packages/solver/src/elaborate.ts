@@ -35,21 +35,23 @@ import type {
   Program,
   RequireStatement,
   ShowStatement,
+  SpreadStatement,
   Statement,
   SweepStatement,
   TemperatureStatement,
   TimeStatement,
-  ToleranceStatement,
   UseStatement,
   Value,
 } from './ast.js';
-import { CONSTANTS, FUNCTIONS, evaluateTokens } from './expr.js';
+import { evaluateTokens } from './expr.js';
 import type { ExprUnit, Quantity } from './expr.js';
 import { diagnostic } from './diagnostic.js';
 import type { FixSpec } from './diagnostic.js';
-import { didYouMean, suggest } from './suggest.js';
+import { didYouMean, suggestionHint } from './suggest.js';
+import type { Suggestion } from './suggest.js';
 import { formatSi } from './units.js';
-import type { Unit } from './units.js';
+import { CONSTANTS, DEFAULT_TEMPERATURE, GROUND, PART_CLASSES, PASSIVES, isFunctionName } from './vocabulary.js';
+import type { Unit } from './vocabulary.js';
 import { internalError } from './parser.js';
 
 export interface ElaborateOptions {
@@ -68,7 +70,6 @@ const MAX_DANGLING = 100;
 const GROUND_LOOKALIKE = /^(gnd|ground|agnd|0v)$/i;
 /** A problem that only echoes an error on a line that could not be read; never shown. */
 const CASCADE = 'cascade';
-const HAZARDOUS_VOLTS = 50;
 
 /** Turns a parsed cell into a circuit. The circuit is null when any error was found. */
 export function elaborate(program: Program, options: ElaborateOptions = {}): { circuit: Circuit | null; diagnostics: Diagnostic[] } {
@@ -121,10 +122,7 @@ interface NodeInfo {
   touches: Set<string>;
 }
 
-const PART_NAME: Record<PassiveKind, string> = { resistor: 'resistor', capacitor: 'capacitor', inductor: 'inductor' };
-const PART_ARTICLE: Record<PassiveKind, string> = { resistor: 'a resistor', capacitor: 'a capacitor', inductor: 'an inductor' };
-const PART_UNIT: Record<PassiveKind, Unit> = { resistor: 'Ω', capacitor: 'F', inductor: 'H' };
-const PART_EXAMPLE: Record<PassiveKind, string> = { resistor: '10k', capacitor: '10n', inductor: '1m' };
+const articleOfPassive = (part: PassiveKind) => PART_CLASSES[PASSIVES[part].letter].article;
 const QUANTITY_OF: Partial<Record<Unit, string>> = {
   'Ω': 'a resistance',
   F: 'a capacitance',
@@ -195,13 +193,13 @@ class Elaborator {
   }
 
   /**
-   * Did-you-mean candidates, within a budget: a cell with thousands of misspellings still
+   * "Did you mean", within a budget: a cell with thousands of misspellings still
    * elaborates quickly, and the first problems keep their suggestions.
    */
-  private near(name: string, candidates: string[]): string[] {
-    if (this.suggestBudget <= 0) return [];
+  private near(name: string, candidates: string[]): Suggestion {
+    if (this.suggestBudget <= 0) return didYouMean(name, []);
     this.suggestBudget -= candidates.length;
-    return suggest(name, candidates);
+    return didYouMean(name, candidates);
   }
 
   private scope(prefix: string, instance: string, block: BlockStatement | null, parent: Scope | null, body: Statement[]): Scope {
@@ -260,7 +258,7 @@ class Elaborator {
     let sweepLine = 0;
     let time: Circuit['time'] = null;
     let timeLine = 0;
-    let temperature = 300;
+    let temperature = DEFAULT_TEMPERATURE;
     let temperatureLine = 0;
     let tolerance: ToleranceSpec | null = null;
     const requirements: RequirementSpec[] = [];
@@ -288,15 +286,15 @@ class Elaborator {
             break;
           }
           temperatureLine = st.range.line;
-          temperature = this.temperatureStatement(st) ?? 300;
+          temperature = this.temperatureStatement(st) ?? DEFAULT_TEMPERATURE;
           break;
         }
-        case 'tolerance':
+        case 'spread':
           if (tolerance !== null) {
-            this.error(st.range, 'duplicate-tolerance', `a cell has one tolerance analysis; there is one on line ${tolerance.range.line} already`, 'keep one tolerance line');
+            this.error(st.range, 'duplicate-spread', `a cell has one spread; there is one on line ${tolerance.range.line} already`, 'keep one spread line');
             break;
           }
-          tolerance = this.toleranceStatement(st);
+          tolerance = this.spreadStatement(st);
           break;
         case 'require': {
           const r = this.requireStatement(st, shows, traces);
@@ -380,8 +378,8 @@ class Elaborator {
   /** True (with an error) when a parameter would hide a constant, a function or ground. */
   private reservedName(name: Ident): boolean {
     const n = name.name;
-    if (CONSTANTS[n] !== undefined || FUNCTIONS[n] !== undefined || n === 'gnd') {
-      const what = CONSTANTS[n] !== undefined ? 'a built-in constant' : FUNCTIONS[n] !== undefined ? 'a built-in function' : 'the ground node';
+    if (CONSTANTS[n] !== undefined || isFunctionName(n) || n === GROUND) {
+      const what = CONSTANTS[n] !== undefined ? 'a built-in constant' : isFunctionName(n) ? 'a built-in function' : 'the ground node';
       this.error(name.range, 'reserved-name', `${n} is ${what}; a parameter needs another name`, 'choose another name');
       return true;
     }
@@ -391,7 +389,7 @@ class Elaborator {
   private letStatement(scope: Scope, st: LetStatement): void {
     const name = st.name.name;
     if (scope.params.has(name) || scope.lets.get(name) !== st.range.line) return;
-    if (CONSTANTS[name] !== undefined || FUNCTIONS[name] !== undefined || name === 'gnd' || scope.designators.has(name)) return;
+    if (CONSTANTS[name] !== undefined || isFunctionName(name) || name === GROUND || scope.designators.has(name)) return;
     if (scope.block?.params.some((p) => p.name.name === name)) return;
     if (st.value === null) return;
     const q = this.evaluate(scope, st.value, st.range.line, name);
@@ -429,9 +427,8 @@ class Elaborator {
     if (this.program.brokenWords.has(name)) return diagnostic(range, CASCADE, name);
     const visible = this.suggestBudget > 0 ? this.visibleParams(scope, line) : [];
     const near = this.near(name, visible);
-    const fix = near.length === 1 ? { title: `Replace with ${near[0]}`, replacement: near[0] } : undefined;
-    const hint = near.length > 0 ? didYouMean(near) : visible.length > 0 ? `the parameters here are ${visible.slice(0, 8).join(', ')}${visible.length > 8 ? ', …' : ''}` : this.suggestBudget > 0 ? 'define it first with let NAME = VALUE' : undefined;
-    return diagnostic(range, 'undefined-name', `there is no parameter named ${name}`, { hint, fix });
+    const otherwise = visible.length > 0 ? `the parameters here are ${visible.slice(0, 8).join(', ')}${visible.length > 8 ? ', …' : ''}` : this.suggestBudget > 0 ? 'define it first with let NAME = VALUE' : undefined;
+    return diagnostic(range, 'undefined-name', `there is no parameter named ${name}`, { hint: suggestionHint(near, undefined, otherwise), fix: near.fix });
   }
 
   private visibleParams(scope: Scope, line: number): string[] {
@@ -516,7 +513,7 @@ class Elaborator {
   /** The index of a node written in `scope`, created on first use. */
   private node(scope: Scope, id: Ident, toucher: string | null, privateCheck = false): NodeIndex {
     const name = id.name;
-    if (name === 'gnd' || name === '0') {
+    if (name === GROUND) {
       if (toucher !== null) this.nodes[0].touches.add(toucher);
       return 0;
     }
@@ -537,7 +534,7 @@ class Elaborator {
     let index = this.nodeIndex.get(full);
     if (index === undefined) {
       if (GROUND_LOOKALIKE.test(name)) {
-        this.warn(id.range, 'ground-name', `${name} is a node of its own, not ground`, 'ground is written gnd or 0, and names are case-sensitive', { title: 'Replace with gnd', replacement: 'gnd' });
+        this.warn(id.range, 'ground-name', `${name} is a node of its own, not ground`, `ground is written ${GROUND}, and names are case-sensitive`, { title: `Replace with ${GROUND}`, replacement: GROUND });
       }
       index = this.nodes.length;
       this.nodes.push({ name: full, range: id.range, local: name, block: scope.block?.name.name ?? null, touches: new Set() });
@@ -549,14 +546,14 @@ class Elaborator {
 
   /** A node named by a trace or requirement: it must exist already. */
   private existingNode(id: Ident): NodeIndex | null {
-    if (id.name === 'gnd' || id.name === '0') return 0;
+    if (id.name === GROUND) return 0;
     const index = this.nodeIndex.get(id.name);
     if (index !== undefined) return index;
     if (this.program.brokenWords.has(id.name)) return null;
     const names = this.suggestBudget > 0 ? this.nodes.slice(1).map((n) => n.name) : [];
     const near = this.near(id.name, names);
-    const fix = near.length === 1 ? { title: `Replace with ${near[0]}`, replacement: near[0] } : undefined;
-    this.error(id.range, 'unknown-node', `there is no node named ${id.name} in this network`, near.length > 0 ? didYouMean(near) : names.length > 0 ? `the nodes are ${names.slice(0, 10).join(', ')}${names.length > 10 ? ', …' : ''}` : this.nodes.length > 1 ? undefined : 'no part connects to any node yet', fix);
+    const otherwise = names.length > 0 ? `the nodes are ${names.slice(0, 10).join(', ')}${names.length > 10 ? ', …' : ''}` : this.nodes.length > 1 ? undefined : 'no part connects to any node yet';
+    this.error(id.range, 'unknown-node', `there is no node named ${id.name} in this network`, suggestionHint(near, undefined, otherwise), near.fix);
     return null;
   }
 
@@ -617,11 +614,12 @@ class Elaborator {
     const a = this.node(scope, st.nodes.nodes[0], name, scope.prefix === '');
     const b = this.node(scope, st.nodes.nodes[1], name, scope.prefix === '');
     if (st.value === null) return;
-    const unit = PART_UNIT[st.part];
+    const { unit, example } = PASSIVES[st.part];
+    const article = articleOfPassive(st.part);
     const where = this.where(scope);
-    const value = this.read(scope, st.value, line, { says: `${PART_ARTICLE[st.part]}’s value is in ${unit}`, units: [unit], example: PART_EXAMPLE[st.part] }, where);
+    const value = this.read(scope, st.value, line, { says: `${article}’s value is in ${unit}`, units: [unit], example }, where);
     if (value === null) return;
-    if (!this.bound(st.value, value > 0, `${st.designator.name}’s value must be more than 0 ${unit}; it is ${formatSi(value, unit)}${where}`, `${PART_ARTICLE[st.part]}’s value is positive, like ${PART_EXAMPLE[st.part]}`)) return;
+    if (!this.bound(st.value, value > 0, `${st.designator.name}’s value must be more than 0 ${unit}; it is ${formatSi(value, unit)}${where}`, `${article}’s value is positive, like ${example}`)) return;
     let tolerance: number | undefined;
     let esr = 0;
     let esl = 0;
@@ -629,7 +627,7 @@ class Elaborator {
     let noiseless = false;
     let ok = true;
     for (const o of st.options) {
-      if (o.kind === 'noiseless') {
+      if (o.kind === 'noise-off') {
         noiseless = true;
         continue;
       }
@@ -663,7 +661,7 @@ class Elaborator {
   private tolerance(scope: Scope, v: Value, line: number, part: PassiveKind, partValue: number, where: string): number | null {
     const q = this.evaluate(scope, v, line);
     if (q === null) return null;
-    const unit = PART_UNIT[part];
+    const unit = PASSIVES[part].unit;
     let fraction: number;
     // A prefixed number without a unit (±0.25p) is in the part's unit; a plain one (±5) is ambiguous.
     const prefixedNumber = v.kind === 'number' && v.prefixed === true && q.unit === null;
@@ -676,7 +674,7 @@ class Elaborator {
         const fix = v.kind === 'number' ? { title: `Read as ${v.text}%`, replacement: '%', range: { line: v.range.line, column: v.range.endColumn, endColumn: v.range.endColumn } } : undefined;
         this.error(v.range, 'tolerance-unit', 'a tolerance needs % or the part’s unit', `write ±${v.kind === 'number' ? v.text : 'N'}% for a percentage, or an amount in ${unit}, like ${example}`, fix);
       } else {
-        this.error(range, 'unit-mismatch', `${PART_ARTICLE[part]}’s tolerance is in % or ${unit}`, `write it like ±1%`);
+        this.error(range, 'unit-mismatch', `${articleOfPassive(part)}’s tolerance is in % or ${unit}`, `write it like ±1%`);
       }
       return null;
     }
@@ -703,8 +701,8 @@ class Elaborator {
       gain: { says: 'an op-amp’s gain is in V/V or dB', units: ['dB'], convert: fromDb, min: 'positive', example: '100dB' },
       gbw: { says: 'gbw is a frequency, in Hz', units: ['Hz'], min: 'positive', example: '1M' },
       zout: { says: 'zout is in Ω', units: ['Ω'], min: 'nonnegative', example: '50' },
-      en: { says: 'en is a noise density in V/√Hz', units: ['V'], min: 'nonnegative', example: '10n' },
-      in: { says: 'in is a noise density in A/√Hz', units: ['A'], min: 'nonnegative', example: '1p' },
+      vnoise: { says: 'vnoise is a noise density in V/√Hz', units: ['V'], min: 'nonnegative', example: '10n' },
+      inoise: { says: 'inoise is a noise density in A/√Hz', units: ['A'], min: 'nonnegative', example: '1p' },
     };
     const values: Partial<Record<string, number>> = {};
     let ok = true;
@@ -726,8 +724,8 @@ class Elaborator {
     const element: Element = { kind: 'opamp', name, range: st.range, p, n, o, zout: values.zout ?? 0 };
     if (values.gain !== undefined) element.gain = values.gain;
     if (values.gbw !== undefined) element.gbw = values.gbw;
-    if (values.en !== undefined) element.en = values.en;
-    if (values.in !== undefined) element.inoise = values.in;
+    if (values.vnoise !== undefined) element.en = values.vnoise;
+    if (values.inoise !== undefined) element.inoise = values.inoise;
     this.add(element, st.designator);
   }
 
@@ -771,8 +769,8 @@ class Elaborator {
         .filter(([n, x]) => n.startsWith(scope.prefix) && (only === undefined ? ['resistor', 'capacitor', 'inductor'].includes(x.kind) : x.kind === only))
         .map(([n]) => n.slice(scope.prefix.length));
       const near = this.near(id.name, names);
-      const fix = near.length === 1 ? { title: `Replace with ${near[0]}`, replacement: near[0] } : undefined;
-      this.error(id.range, 'unknown-part', `there is no part named ${id.name}${scope.block !== null ? ` in block ${scope.block.name.name}` : ''}`, near.length > 0 ? didYouMean(near) : `${what} names ${only === 'inductor' ? 'an inductor' : 'a resistor, capacitor or inductor'} of this network`, fix);
+      const otherwise = `${what} names ${only === 'inductor' ? 'an inductor' : 'a resistor, capacitor or inductor'} of this network`;
+      this.error(id.range, 'unknown-part', `there is no part named ${id.name}${scope.block !== null ? ` in block ${scope.block.name.name}` : ''}`, suggestionHint(near, undefined, otherwise), near.fix);
       return false;
     }
     const fits = only === undefined ? e.kind === 'resistor' || e.kind === 'capacitor' || e.kind === 'inductor' : e.kind === only;
@@ -816,8 +814,8 @@ class Elaborator {
       if (this.program.brokenWords.has(st.block.name)) return;
       const names = [...this.blocks.keys()];
       const near = this.near(st.block.name, names);
-      const fix = near.length === 1 ? { title: `Replace with ${near[0]}`, replacement: near[0] } : undefined;
-      this.error(st.block.range, 'unknown-block', `there is no block named ${st.block.name}`, near.length > 0 ? didYouMean(near) : names.length > 0 ? `the blocks are ${names.join(', ')}` : 'define it with block NAME [pins] … end', fix);
+      const otherwise = names.length > 0 ? `the blocks are ${names.join(', ')}` : 'define it with block NAME [pins] … end';
+      this.error(st.block.range, 'unknown-block', `there is no block named ${st.block.name}`, suggestionHint(near, undefined, otherwise), near.fix);
       return;
     }
     this.usedBlocks.add(block.name.name);
@@ -838,8 +836,8 @@ class Elaborator {
       if (!block.params.some((p) => p.name.name === arg.name.name)) {
         const names = block.params.map((p) => p.name.name);
         const near = this.near(arg.name.name, names);
-        const fix = near.length === 1 ? { title: `Replace with ${near[0]}`, replacement: near[0] } : undefined;
-        this.error(arg.name.range, 'unknown-parameter', `block ${block.name.name} has no parameter named ${arg.name.name}`, near.length > 0 ? didYouMean(near) : names.length > 0 ? `its parameters are ${names.join(', ')}` : 'it takes no parameters', fix);
+        const otherwise = names.length > 0 ? `its parameters are ${names.join(', ')}` : 'it takes no parameters';
+        this.error(arg.name.range, 'unknown-parameter', `block ${block.name.name} has no parameter named ${arg.name.name}`, suggestionHint(near, undefined, otherwise), near.fix);
         continue;
       }
       if (given.has(arg.name.name)) {
@@ -874,7 +872,7 @@ class Elaborator {
     }
     if (!ok) return;
     block.pins.nodes.forEach((pin, i) => {
-      if (pin.name === 'gnd' || pin.name === '0' || inner.pins.has(pin.name)) return;
+      if (pin.name === GROUND || inner.pins.has(pin.name)) return;
       inner.pins.set(pin.name, this.node(scope, st.nodes.nodes[i], null, scope.prefix === ''));
     });
     for (const node of st.nodes.nodes) this.node(scope, node, null);
@@ -886,7 +884,7 @@ class Elaborator {
   private checkPins(block: BlockStatement): void {
     const seen = new Set<string>();
     for (const pin of block.pins.nodes) {
-      if (pin.name === 'gnd' || pin.name === '0') {
+      if (pin.name === GROUND) {
         this.error(pin.range, 'bad-pin', `a block’s pin cannot be gnd`, 'inside a block, gnd is the ground of the whole network already');
       } else if (seen.has(pin.name)) {
         this.error(pin.range, 'bad-pin', `pin ${pin.name} is listed twice`, 'give each pin once');
@@ -928,14 +926,6 @@ class Elaborator {
       phaseDeg = ph;
     }
     this.drive = { kind: st.source, p, n, amplitude, phaseDeg, range: st.range };
-    if (voltage && Math.abs(amplitude) > HAZARDOUS_VOLTS) {
-      this.warn(
-        st.amplitude?.range ?? st.range,
-        'hazardous-voltage',
-        `a ${formatSi(Math.abs(amplitude), 'V')} drive is in the range of mains and hazardous voltages`,
-        'the results are for a small-signal linear model only. A real circuit at this voltage can give a dangerous shock and store energy after power is removed: use safety-rated capacitors and discharge paths, and follow local codes and licensed practice',
-      );
-    }
   }
 
   private showStatement(st: ShowStatement): TraceSpec | null {
@@ -1056,8 +1046,8 @@ class Elaborator {
       for (const v of st.frequencies) {
         const f = this.read(this.top, v, line, hz);
         if (f === null) return null;
-        if (f <= 0) {
-          this.error(v.range, 'sweep-non-positive', `a frequency in a sweep is above 0 Hz; this is ${formatSi(f, 'Hz')}`, 'the frequency axis is logarithmic');
+        if (f < 0) {
+          this.error(v.range, 'sweep-non-positive', `a sweep’s frequencies cannot be negative; this is ${formatSi(f, 'Hz')}`, 'list frequencies of 0 Hz (the DC point) or above');
           return null;
         }
         if (fs.length > 0 && f <= fs[fs.length - 1]) {
@@ -1154,19 +1144,19 @@ class Elaborator {
       says: 'a temperature is in K or °C',
       units: ['K', '°C'],
       convert: (v, u) => (u === '°C' ? v + 273.15 : v),
-      example: '300 K or 27°C',
+      example: '25°C or 290 K',
     });
     if (t === null) return null;
-    if (!this.bound(st.value, t > 0, `a temperature is above absolute zero; this is ${formatSi(t, 'K')}`, 'write it in K (300 K) or °C (27°C)')) return null;
+    if (!this.bound(st.value, t > 0, `a temperature is above absolute zero; this is ${formatSi(t, 'K')}`, 'write it in K (290 K) or °C (25°C)')) return null;
     this.warn(st.range, 'not-available', 'the temperature is not available yet: it is for noise results, which a later version adds', 'the line is checked but has no effect');
     return t;
   }
 
-  private toleranceStatement(st: ToleranceStatement): ToleranceSpec | null {
-    const spec: ToleranceSpec = { kind: st.mode, range: st.range };
-    if (st.mode === 'montecarlo') {
+  private spreadStatement(st: SpreadStatement): ToleranceSpec | null {
+    const spec: ToleranceSpec = { kind: st.mode === 'draws' ? 'montecarlo' : 'worstcase', range: st.range };
+    if (st.mode === 'draws') {
       if (st.draws === null) return null;
-      const draws = this.integer(this.top, st.draws, st.range.line, 'the count of Monte Carlo draws', 1, MAX_DRAWS);
+      const draws = this.integer(this.top, st.draws, st.range.line, 'the count of draws', 1, MAX_DRAWS);
       if (draws === null) return null;
       spec.draws = draws;
       if (st.seed !== null) {
@@ -1175,7 +1165,7 @@ class Elaborator {
         spec.seed = seed;
       }
     }
-    this.warn(st.range, 'not-available', 'tolerance spreads are not available yet: this line is checked but does not change the results', 'a later version adds Monte Carlo and worst-case envelopes');
+    this.warn(st.range, 'not-available', 'spreads are not available yet: this line is checked but does not change the results', 'a later version adds random draws and the extremes of the tolerance box');
     return spec;
   }
 
@@ -1287,13 +1277,12 @@ class Elaborator {
     if (shows.some((s, i) => traces[i] === null && (labelOf(s) === text || s.exprText === text)) || this.program.brokenWords.has(text)) return null;
     const names = traces.filter((t): t is TraceSpec => t !== null).map((t) => t.label);
     const near = this.near(text, names);
-    const fix = near.length === 1 && !st.target.quoted ? { title: `Replace with ${near[0]}`, replacement: near[0] } : undefined;
     this.error(
       st.target.range,
       'unknown-target',
       shows.length === 0 ? `there is no trace called ${text}: this cell shows nothing` : `there is no trace called ${text}`,
-      near.length > 0 ? didYouMean(near) : shows.length === 0 ? `add show ${text}` : `the traces are ${names.join(', ')}; a requirement names a trace’s label or what its show line shows`,
-      fix,
+      suggestionHint(near, undefined, shows.length === 0 ? `add show ${text}` : `the traces are ${names.join(', ')}; a requirement names a trace’s label or what its show line shows`),
+      st.target.quoted ? undefined : near.fix,
     );
     return null;
   }
@@ -1388,15 +1377,14 @@ class Elaborator {
       reported.add(key);
       if (++dangling > MAX_DANGLING) continue;
       const [only] = [...node.touches];
-      const near = this.near(node.name, names.filter((n) => n !== node.name && n !== 'gnd'));
+      const near = this.near(node.name, names.filter((n) => n !== node.name && n !== GROUND));
       const onlyLocal = node.block !== null && only.includes('.') ? only.slice(only.lastIndexOf('.') + 1) : only;
-      const fix = near.length === 1 && node.block === null ? { title: `Replace with ${near[0]}`, replacement: near[0] } : undefined;
       this.warn(
         node.range,
         'dangling-node',
         node.block === null ? `node ${node.name} connects only to ${only}` : `node ${node.local} of block ${node.block} connects only to ${onlyLocal}`,
-        near.length > 0 ? `a misspelt node name? ${didYouMean(near)}` : 'a node usually joins two or more parts; check the spelling',
-        fix,
+        near.question !== undefined ? `a misspelt node name? ${near.question}` : 'a node usually joins two or more parts; check the spelling',
+        node.block === null ? near.fix : undefined,
       );
     }
     if (dangling > MAX_DANGLING) {

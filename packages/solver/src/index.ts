@@ -5,12 +5,16 @@
  */
 export type * from './circuit.js';
 export type * from './result.js';
+export { READOUT_NAMES, STATUS_WORDS } from './result.js';
 export type { Program } from './ast.js';
-export type { Token, TokenKind } from './lexer.js';
-export { MEASURES, STATEMENT_KEYWORDS, parse } from './parser.js';
+export type { Line, Token, TokenKind } from './lexer.js';
+export { parse } from './parser.js';
 export { lex } from './lexer.js';
+export * from './vocabulary.js';
+export { modernizeCellText } from './modernize.js';
 export { compile } from './compile.js';
 export { analyze } from './analyze.js';
+export { HAZARDOUS_VOLTAGE } from './cautions.js';
 export { FIRST_EXAMPLE } from './examples.js';
 export { toCsv, toJson } from './output.js';
-export { SI_PREFIXES, UNIT_SPELLINGS, formatSi, parseSi } from './units.js';
+export { formatSi, parseSi } from './units.js';

@@ -5,8 +5,10 @@
  */
 import type { SourceRange } from './circuit.js';
 import type { Diagnostic } from './result.js';
-import { readSuffix, SI_PREFIXES, UNIT_SPELLINGS } from './units.js';
-import type { SuffixProblem, Unit } from './units.js';
+import { readSuffix } from './units.js';
+import { LINE_STARTS, PREFIX_LIST, SI_PREFIXES, UNIT_LIST, UNIT_SPELLINGS } from './vocabulary.js';
+import type { SuffixProblem } from './units.js';
+import type { Unit } from './vocabulary.js';
 
 export type TokenKind = 'name' | 'number' | 'string' | 'punct' | 'unit' | 'error';
 
@@ -65,8 +67,6 @@ export interface LexResult {
   diagnostics: Diagnostic[];
 }
 
-const PREFIX_LIST = 'f p n u µ m k M G T';
-const UNIT_LIST = 'Ω (or ohm), F, H, Hz, V, A, s, S, dB, deg (or °), %, K, °C';
 
 function isDigit(c: string | undefined): boolean {
   return c !== undefined && c >= '0' && c <= '9';
@@ -213,7 +213,7 @@ function lexLine(text: string, line: number, diagnostics: Diagnostic[]): Line {
       punct(p, 1);
       continue;
     }
-    // A unit standing on its own after a number: `27 °C`, `45 °`, `10 Ω`, `5 %`.
+    // A unit standing on its own after a number: `25 °C`, `45 °`, `10 Ω`, `5 %`.
     if (c === '°' || c === 'Ω' || c === '%') {
       const end = c === '°' && text[i + 1] === 'C' && !isNameChar(text[i + 2]) ? i + 2 : i + 1;
       const spelling = text.slice(i, end);
@@ -226,7 +226,7 @@ function lexLine(text: string, line: number, diagnostics: Diagnostic[]): Line {
     const ch = text.slice(i, i + width);
     const hint = badCharacterHint(ch, text, i);
     if (ch === '.' && tokens.length === 0) {
-      report(start, wordEnd(text, i + 1), 'dot-command', 'a line cannot start with a dot: this language has no dot commands', 'write statements such as sweep, show or let; see the language reference');
+      report(start, wordEnd(text, i + 1), 'dot-command', 'a line cannot start with a dot', LINE_STARTS);
       i = n;
       continue;
     }

@@ -4,14 +4,35 @@
  * diagnostic, and a statement that fails part-way is skipped (or kept with what was read).
  */
 import type { SourceRange } from './circuit.js';
-import type { Diagnostic, QuickFix } from './result.js';
+import type { Diagnostic } from './result.js';
 import { describeSuffixProblem, lex, separateUnit } from './lexer.js';
-import { readSuffix, SI_PREFIXES } from './units.js';
+import { readSuffix } from './units.js';
+import {
+  CONTROLLED_MODE_WORDS,
+  DEFAULT_TEMPERATURE,
+  INSTANCE_LETTER,
+  LINE_STARTS,
+  MEASURE_WORDS,
+  NOISE_OFF,
+  OPAMP_OPTIONS,
+  OPAMP_OPTION_WORDS,
+  OPAMP_WORD,
+  PART_CLASSES,
+  PART_LETTERS,
+  PASSIVES,
+  PASSIVE_OPTIONS,
+  RETIRED,
+  SI_PREFIXES,
+  STATEMENT_WORDS,
+  TOP_LEVEL_ONLY,
+  isDesignator,
+  isDigitsOnly,
+} from './vocabulary.js';
+import type { ControlledMode, OpAmpOptionName, PartClassLetter } from './vocabulary.js';
 import type { Line, Punct, Token } from './lexer.js';
 import type {
   BlockParam,
   BlockStatement,
-  ControlledMode,
   ControlledStatement,
   CoupleStatement,
   DriveStatement,
@@ -19,7 +40,6 @@ import type {
   LetStatement,
   MeasureName,
   NodeList,
-  OpAmpOptionName,
   OpAmpStatement,
   PartOption,
   PassiveKind,
@@ -29,75 +49,30 @@ import type {
   RequireTarget,
   ShowMode,
   ShowStatement,
+  SpreadStatement,
   Statement,
   SweepStatement,
   TemperatureStatement,
   TimeStatement,
-  ToleranceStatement,
   TraceExpr,
   UseStatement,
   Value,
 } from './ast.js';
-import { didYouMean, suggest } from './suggest.js';
-import { tidyDiagnostics } from './diagnostic.js';
+import { didYouMean, suggest, suggestionHint } from './suggest.js';
+import { diagnostic, tidyDiagnostics } from './diagnostic.js';
+import type { FixSpec } from './diagnostic.js';
+import { planRenames } from './modernize.js';
+import type { RenamePlan } from './modernize.js';
 
-/** Words that start a statement. */
-export const STATEMENT_KEYWORDS = [
-  'let',
-  'block',
-  'end',
-  'use',
-  'drive',
-  'show',
-  'sweep',
-  'time',
-  'temperature',
-  'tolerance',
-  'require',
-  'couple',
-] as const;
-
-/** Part kinds by the designator's first letter. */
-export const PART_LETTERS: Readonly<Record<string, string>> = {
-  R: 'resistor',
-  C: 'capacitor',
-  L: 'inductor',
-  U: 'op-amp',
-  A: 'controlled source',
-};
-
-export const MEASURES: readonly MeasureName[] = [
-  'gain',
-  'phase',
-  'delay',
-  'magnitude',
-  'corner',
-  'peak',
-  'crossover',
-  'phase-margin',
-  'gain-margin',
-  'settling',
-  'overshoot',
-];
-
-const STATEMENT_LIST = 'let, block, use, drive, show, sweep, time, temperature, tolerance, require, couple';
-const PART_LIST = 'R (resistor), C (capacitor), L (inductor), U (op-amp) or A (controlled source)';
-const TOP_LEVEL_ONLY = new Set(['drive', 'show', 'sweep', 'time', 'temperature', 'tolerance', 'require']);
-
-const PASSIVE_OPTIONS: Record<PassiveKind, string[]> = {
-  resistor: ['tol', 'noiseless'],
-  capacitor: ['tol', 'esr', 'esl'],
-  inductor: ['tol', 'dcr'],
-};
-const PASSIVE_OPTION_TEXT: Record<PassiveKind, string> = {
-  resistor: '±1%, tol 1%, noiseless',
-  capacitor: '±5%, tol 5%, esr Ω, esl H',
-  inductor: '±10%, tol 10%, dcr Ω',
-};
-const PART_ARTICLE: Record<PassiveKind, string> = { resistor: 'a resistor', capacitor: 'a capacitor', inductor: 'an inductor' };
-const PART_UNIT: Record<PassiveKind, string> = { resistor: 'Ω, like 10k', capacitor: 'F, like 10n', inductor: 'H, like 1m' };
-const OPAMP_OPTIONS: OpAmpOptionName[] = ['gain', 'gbw', 'zout', 'en', 'in'];
-const CONTROLLED_MODES: ControlledMode[] = ['vgain', 'gm', 'igain', 'rm'];
+const STATEMENT_LIST = STATEMENT_WORDS.filter((w) => w !== 'end').join(', ');
+/** `a, b or c`. */
+function orList(words: readonly string[]): string {
+  return words.length <= 1 ? words.join('') : `${words.slice(0, -1).join(', ')} or ${words[words.length - 1]}`;
+}
+const PART_LIST = orList(PART_LETTERS.map((l) => `${l} (${PART_CLASSES[l].kind})`));
+const MEASURE_LIST = MEASURE_WORDS.join(', ');
+const TEMPERATURE_HINT = `write temperature 25°C or temperature 290 K; without this line it is ${DEFAULT_TEMPERATURE} K`;
+const SPREAD_HINT = 'write spread 200 draws, spread 200 draws seed 7, or spread extremes';
 
 /** Stops a statement's parse after its diagnostic has been made; never leaves this module. */
 class StatementError extends Error {}
@@ -116,6 +91,10 @@ class Cursor {
   constructor(
     readonly line: Line,
     readonly diagnostics: Diagnostic[],
+    /** The cell's new names, for the quick fixes of its earlier forms (worked out on first need). */
+    readonly plan: () => RenamePlan,
+    /** '' at the top level, else the name of the block this line stands in. */
+    readonly scope: string,
   ) {}
 
   get tokens(): Token[] {
@@ -172,15 +151,12 @@ class Cursor {
     return merge(this.tokens[0].range, this.tokens[this.tokens.length - 1].range);
   }
 
-  report(range: SourceRange, code: string, message: string, hint?: string, fix?: Omit<QuickFix, 'line'>, severity: 'error' | 'warning' = 'error'): void {
-    const d: Diagnostic = { severity, line: range.line, column: range.column, endColumn: range.endColumn, message, code };
-    if (hint !== undefined) d.hint = hint;
-    if (fix !== undefined) d.fix = { ...fix, line: range.line };
-    this.diagnostics.push(d);
+  report(range: SourceRange, code: string, message: string, hint?: string, fix?: FixSpec): void {
+    this.diagnostics.push(diagnostic(range, code, message, { hint, fix }));
   }
 
   /** Reports an error and stops the statement. */
-  error(range: SourceRange, code: string, message: string, hint?: string, fix?: Omit<QuickFix, 'line'>): never {
+  error(range: SourceRange, code: string, message: string, hint?: string, fix?: FixSpec): never {
     this.report(range, code, message, hint, fix);
     throw new StatementError(message);
   }
@@ -208,7 +184,8 @@ export function parse(text: string): { program: Program; diagnostics: Diagnostic
     diagnostics.push(...lexed.diagnostics);
     const badLines = new Set(lexed.diagnostics.filter((d) => d.code === 'dot-command').map((d) => d.line));
     const lines = lexed.lines.filter((l) => l.tokens.length > 0 && !badLines.has(l.line));
-    const reader = new LineReader(lines, diagnostics);
+    let plan: RenamePlan | undefined;
+    const reader = new LineReader(lines, diagnostics, () => (plan ??= planRenames(lines)));
     const statements = reader.statements(null);
     // After a lexical error on a line, what the parser says further along it is an echo.
     const firstLexError = new Map<number, number>();
@@ -254,13 +231,14 @@ class LineReader {
   constructor(
     private readonly lines: Line[],
     private readonly diagnostics: Diagnostic[],
+    private readonly plan: () => RenamePlan,
   ) {}
 
   statements(block: BlockStatement | null): Statement[] {
     const out: Statement[] = [];
     while (this.index < this.lines.length) {
       const line = this.lines[this.index++];
-      const cur = new Cursor(line, this.diagnostics);
+      const cur = new Cursor(line, this.diagnostics, this.plan, block?.name.name ?? '');
       const first = line.tokens[0];
       if (first.kind === 'name' && first.text === 'end') {
         if (block !== null) {
@@ -300,7 +278,7 @@ class LineReader {
         if (block === null) out.push(header);
         continue;
       }
-      if (block !== null && first.kind === 'name' && TOP_LEVEL_ONLY.has(first.text)) {
+      if (block !== null && first.kind === 'name' && (TOP_LEVEL_ONLY.has(first.text) || first.text === 'tolerance')) {
         if (!this.endAhead()) {
           // The block was never closed: end it here and read the rest as the top level.
           this.index--;
@@ -356,64 +334,46 @@ function statementOf(cur: Cursor): Statement | null {
         return timeStatement(cur);
       case 'temperature':
         return temperatureStatement(cur);
+      case 'spread':
+        return spreadStatement(cur);
       case 'tolerance':
-        return toleranceStatement(cur);
+        return retiredToleranceStatement(cur);
       case 'require':
         return requireStatement(cur);
     }
-    const letter = first.text[0];
-    if (PART_LETTERS[letter] !== undefined && cur.isPunct('[', 1)) return partStatement(cur);
-    if (PART_LETTERS[letter] !== undefined && !isStatementLike(first.text)) {
+    const letter = partLetter(first.text);
+    if (letter !== null && cur.isPunct('[', 1)) return partStatement(cur, letter);
+    if (letter !== null && suggest(first.text, STATEMENT_WORDS).length === 0) {
       return cur.error(
         cur.peek(1)?.range ?? first.range,
         'missing-nodes',
         `${first.text} needs its nodes in brackets after the designator`,
-        `write it like ${first.text} ${exampleNodes(letter)}`,
+        `write it like ${first.text} ${PART_CLASSES[letter].template}`,
       );
     }
   }
   return unknownStatement(cur, first);
 }
 
-function isStatementLike(word: string): boolean {
-  return suggest(word, STATEMENT_KEYWORDS).length > 0;
-}
-
-function exampleNodes(letter: string): string {
-  switch (letter) {
-    case 'U':
-      return '[p n out] opamp';
-    case 'A':
-      return '[o+ o- c+ c-] vgain 10';
-    case 'C':
-      return '[a b] 10n';
-    case 'L':
-      return '[a b] 1m';
-    default:
-      return '[a b] 10k';
-  }
+/** The part class of a word's first letter, or null. */
+function partLetter(word: string): PartClassLetter | null {
+  return (PART_LETTERS as string[]).includes(word[0]) ? (word[0] as PartClassLetter) : null;
 }
 
 function unknownStatement(cur: Cursor, first: Token): never {
   if (first.kind !== 'name') {
-    return cur.error(first.range, 'unknown-statement', `a line cannot start with \`${show(first)}\``, `a line starts with a statement (${STATEMENT_LIST}) or a part designator such as R1`);
+    return cur.error(first.range, 'unknown-statement', `a line cannot start with \`${show(first)}\``, LINE_STARTS);
   }
   const word = first.text;
   const bracket = cur.isPunct('[', 1);
-  const near = suggest(word, STATEMENT_KEYWORDS);
-  if (!bracket && near.length > 0) {
-    const fix = near.length === 1 ? { title: `Replace with ${near[0]}`, column: first.range.column, endColumn: first.range.endColumn, replacement: near[0] } : undefined;
-    return cur.error(first.range, 'unknown-statement', `\`${word}\` is not a statement`, `${didYouMean(near)} The statements are ${STATEMENT_LIST}.`, fix);
+  const near = didYouMean(word, STATEMENT_WORDS);
+  if (!bracket && near.question !== undefined) {
+    return cur.error(first.range, 'unknown-statement', `\`${word}\` is not a statement`, suggestionHint(near, `the statements are ${STATEMENT_LIST}`), near.fix);
   }
   const upper = word[0].toUpperCase();
-  if (bracket && word[0] !== upper && PART_LETTERS[upper] !== undefined) {
+  if (bracket && word[0] !== upper && partLetter(upper) !== null) {
     const fixed = upper + word.slice(1);
-    return cur.error(first.range, 'unknown-statement', `\`${word}\` is not a statement or a part`, `designators start with a capital letter: ${fixed}`, {
-      title: `Replace with ${fixed}`,
-      column: first.range.column,
-      endColumn: first.range.endColumn,
-      replacement: fixed,
-    });
+    return cur.error(first.range, 'unknown-statement', `\`${word}\` is not a statement or a part`, `designators start with a capital letter: ${fixed}`, { title: `Replace with ${fixed}`, replacement: fixed });
   }
   if (bracket || /^[A-Z]/.test(word)) {
     const transistor = 'the language describes linear networks: model a transistor’s small signal with A (controlled source), R and C parts';
@@ -435,7 +395,7 @@ function unknownStatement(cur: Cursor, first: Token): never {
     const hint = word.includes('.') ? 'a name with a dot is a part inside a block instance; give this part a designator of its own, like R7' : (hints[upper] ?? 'an impedance is built from R, C and L parts; a sub-network is a block placed with use');
     return cur.error(first.range, 'unknown-part-kind', `\`${word}\` is not a kind of part: a designator starts with ${PART_LIST}`, hint);
   }
-  return cur.error(first.range, 'unknown-statement', `\`${word}\` is not a statement`, `the statements are ${STATEMENT_LIST}; parts start with R, C, L, U or A`);
+  return cur.error(first.range, 'unknown-statement', `\`${word}\` is not a statement`, `the statements are ${STATEMENT_LIST}; parts start with ${orList(PART_LETTERS)}`);
 }
 
 // ---------------------------------------------------------------------------------------
@@ -494,9 +454,8 @@ function value(cur: Cursor, what: string, stopWords: readonly string[] = [], hin
       // A prefix standing apart from its digits: `10 k`.
       cur.report(u.range, 'spaced-prefix', `the prefix ${u.text} goes straight after the digits`, `write ${t.text}${u.text}`, {
         title: `Write ${t.text}${u.text}`,
-        column: t.range.endColumn,
-        endColumn: u.range.column,
         replacement: '',
+        range: { line: t.range.line, column: t.range.endColumn, endColumn: u.range.column },
       });
       v.bad = true;
       cur.next();
@@ -507,7 +466,7 @@ function value(cur: Cursor, what: string, stopWords: readonly string[] = [], hin
         const col = u.range.column - 1;
         describeSuffixProblem(reading.reason, '', col, col + u.text.length, (start, end, code, message, hint, fix) => {
           const range = { line: u.range.line, column: start + 1, endColumn: end + 1 };
-          const qf = fix === undefined ? undefined : { title: `Replace with ${fix.replacement}`, column: (fix.start ?? start) + 1, endColumn: (fix.end ?? end) + 1, replacement: fix.replacement };
+          const qf = fix === undefined ? undefined : { title: `Replace with ${fix.replacement}`, replacement: fix.replacement, range: { line: u.range.line, column: (fix.start ?? start) + 1, endColumn: (fix.end ?? end) + 1 } };
           cur.report(range, code, message, hint, qf);
         });
         v.bad = true;
@@ -563,21 +522,35 @@ function ident(cur: Cursor, what: string, example: string): Ident {
   return { name: t.text, range: t.range };
 }
 
-/** A node: a name, or digits only (`0` is ground). */
+const NODE_NAME_HINT = 'a node name starts with a letter or _, such as out, n2 or _x; ground is gnd';
+
+/**
+ * A node: a name. Digits only are the earlier forms, an error with the quick fix to the
+ * new name (`0` → gnd, `12` → n12); `0` is then read as gnd and other digits as written.
+ */
 function nodeName(cur: Cursor, what: string): Ident {
   const t = cur.peek();
   if (t !== undefined && t.kind === 'name') {
     cur.next();
     return { name: t.text, range: t.range };
   }
-  if (t !== undefined && t.kind === 'number' && /^\d+$/.test(t.text)) {
+  if (t !== undefined && t.kind === 'number' && isDigitsOnly(t.text)) {
     cur.next();
+    const renamed = cur.plan().node(t.text);
+    if (t.text === '0') {
+      cur.report(t.range, 'ground-is-gnd', 'ground is written gnd, not 0', 'the ground node has one name, gnd', { title: 'Replace with gnd', replacement: renamed });
+      return { name: renamed, range: t.range };
+    }
+    cur.report(t.range, 'digit-node', `\`${t.text}\` cannot be a node name: a node name starts with a letter or _`, `write ${renamed}, or a name that says what the node is, like out`, {
+      title: `Replace with ${renamed}`,
+      replacement: renamed,
+    });
     return { name: t.text, range: t.range };
   }
   if (t !== undefined && t.kind === 'number') {
-    return cur.error(t.range, 'bad-node-name', `\`${t.text}\` cannot be a node name`, 'a node name is a word such as out, or digits only such as 2');
+    return cur.error(t.range, 'bad-node-name', `\`${t.text}\` cannot be a node name`, NODE_NAME_HINT);
   }
-  return cur.error(cur.here(), 'missing-node', `${what} is missing`, 'a node name is a word such as out, or digits only such as 2');
+  return cur.error(cur.here(), 'missing-node', `${what} is missing`, NODE_NAME_HINT);
 }
 
 function nodeList(cur: Cursor): NodeList {
@@ -592,12 +565,11 @@ function nodeList(cur: Cursor): NodeList {
       cur.next();
       continue;
     }
-    if (t.kind === 'name' || (t.kind === 'number' && /^\d+$/.test(t.text))) {
+    if (t.kind === 'name' || t.kind === 'number') {
       nodes.push(nodeName(cur, 'a node'));
       continue;
     }
-    if (t.kind === 'number') nodeName(cur, 'a node');
-    cur.error(t.range, 'bad-node-name', `\`${show(t)}\` cannot be a node name`, 'a node name is a word such as out, or digits only such as 2');
+    cur.error(t.range, 'bad-node-name', `\`${show(t)}\` cannot be a node name`, NODE_NAME_HINT);
   }
   const close = cur.peek();
   if (close === undefined) {
@@ -615,7 +587,7 @@ function letStatement(cur: Cursor): LetStatement | null {
   const name = ident(cur, 'the parameter’s name', 'let R = 10k');
   if (cur.isPunct('==')) {
     const t = cur.next() as Token;
-    cur.report(t.range, 'bad-operator', '`==` is not how a parameter is set', 'write let NAME = VALUE', { title: 'Replace with =', column: t.range.column, endColumn: t.range.endColumn, replacement: '=' });
+    cur.report(t.range, 'bad-operator', '`==` is not how a parameter is set', 'write let NAME = VALUE', { title: 'Replace with =', replacement: '=' });
   } else {
     cur.expect('=', 'missing-equals', `\`=\` is missing after ${name.name}`, `write let ${name.name} = VALUE`);
   }
@@ -642,11 +614,12 @@ function letStatement(cur: Cursor): LetStatement | null {
   return { kind: 'let', name, value: v, range: merge(keyword.range, cur.whole()) };
 }
 
-function partStatement(cur: Cursor): Statement | null {
+function partStatement(cur: Cursor, letter: PartClassLetter): Statement | null {
   const d = cur.next() as Token;
   const designator: Ident = { name: d.text, range: d.range };
+  checkDesignator(cur, d, letter);
   const nodes = nodeList(cur);
-  switch (d.text[0]) {
+  switch (letter) {
     case 'R':
       return passive(cur, 'resistor', designator, nodes);
     case 'C':
@@ -655,9 +628,32 @@ function partStatement(cur: Cursor): Statement | null {
       return passive(cur, 'inductor', designator, nodes);
     case 'U':
       return opamp(cur, designator, nodes);
-    default:
+    case 'A':
       return controlled(cur, designator, nodes);
   }
+}
+
+/**
+ * A designator is a reference designator (`R1`, `R4b`, `B2`). A free-form one is the earlier
+ * forms: an error whose quick fix writes the next free number of its class. The line is
+ * still read under the name as written, so that references to it resolve.
+ */
+function checkDesignator(cur: Cursor, d: Token, letter: string): void {
+  if (isDesignator(d.text, letter)) return;
+  const renamed = cur.plan().designator(cur.scope, d.text);
+  const what = letter === INSTANCE_LETTER ? 'a block instance’s designator' : 'a designator';
+  cur.report(
+    d.range,
+    'bad-designator',
+    `\`${d.text}\` is not a reference designator: ${what} is ${letter}, a number and an optional lower-case suffix, like ${letter}1 or ${letter}4b`,
+    `number the part, and say what it does in a comment, like  # ${d.text}`,
+    renamed === undefined ? undefined : { title: `Replace with ${renamed}`, replacement: renamed },
+  );
+}
+
+/** Reports a word of the language's earlier forms, with the quick fix to its new form. */
+function retired(cur: Cursor, range: SourceRange, written: string, replacement: string): void {
+  cur.report(range, 'retired-word', `\`${written}\` is an earlier form of the language`, `write ${replacement}`, { title: `Replace with ${replacement}`, replacement });
 }
 
 function checkCount(cur: Cursor, nodes: NodeList, want: number, what: string, example: string): void {
@@ -666,11 +662,14 @@ function checkCount(cur: Cursor, nodes: NodeList, want: number, what: string, ex
   cur.report(nodes.range, 'node-count', `${what} connects ${want} nodes; this has ${has === 0 ? 'none' : has}`, `write it like ${example}`);
 }
 
-const ALL_PASSIVE_OPTIONS = ['tol', 'esr', 'esl', 'dcr', 'noiseless'];
+/** Words after which a passive's value has ended. */
+const PASSIVE_STOP_WORDS = [...PASSIVE_OPTIONS, 'noiseless'];
 
 function passive(cur: Cursor, part: PassiveKind, designator: Ident, nodes: NodeList): PassiveStatement {
-  checkCount(cur, nodes, 2, PART_ARTICLE[part], `${designator.name} [a b] ${exampleNodes(designator.name[0]).split('] ')[1]}`);
-  const v = value(cur, `${designator.name}’s value`, ALL_PASSIVE_OPTIONS, `${PART_ARTICLE[part]}’s value is in ${PART_UNIT[part]}`);
+  const { letter, unit, example, options: words, optionText } = PASSIVES[part];
+  const article = PART_CLASSES[letter].article;
+  checkCount(cur, nodes, 2, article, `${designator.name} [a b] ${example}`);
+  const v = value(cur, `${designator.name}’s value`, PASSIVE_STOP_WORDS, `${article}’s value is in ${unit}, like ${example}`);
   const options: PartOption[] = [];
   const seen = new Map<string, SourceRange>();
   const note = (kind: string, range: SourceRange) => {
@@ -679,6 +678,12 @@ function passive(cur: Cursor, part: PassiveKind, designator: Ident, nodes: NodeL
       cur.report(range, 'duplicate-option', kind === 'tolerance' ? `${designator.name} has a tolerance already` : `${designator.name} has ${kind} already`, 'give each option once');
     }
     seen.set(kind, range);
+  };
+  const allowed = (t: Token, option: string): boolean => {
+    if (words.includes(option)) return true;
+    const owner = (Object.keys(PASSIVES) as PassiveKind[]).find((k) => PASSIVES[k].options.includes(option)) ?? 'resistor';
+    cur.report(t.range, 'wrong-option', `${option} is an option of ${PART_CLASSES[PASSIVES[owner].letter].article}, not of ${article}`, `${article} takes ${optionText}`);
+    return false;
   };
   while (!cur.atEnd()) {
     const t = cur.peek() as Token;
@@ -706,29 +711,39 @@ function passive(cur: Cursor, part: PassiveKind, designator: Ident, nodes: NodeL
       options.push({ kind: 'tolerance', value: tol, range });
       continue;
     }
-    if (t.kind === 'name' && (t.text === 'esr' || t.text === 'esl' || t.text === 'dcr' || t.text === 'noiseless')) {
+    if (t.kind === 'name' && (t.text === 'noise' || t.text === 'noiseless')) {
       cur.next();
-      const allowed = PASSIVE_OPTIONS[part].includes(t.text);
-      if (!allowed) {
-        const owner = t.text === 'dcr' ? 'an inductor' : t.text === 'noiseless' ? 'a resistor' : 'a capacitor';
-        cur.report(t.range, 'wrong-option', `${t.text} is an option of ${owner}, not of ${PART_ARTICLE[part]}`, `${PART_ARTICLE[part]} takes ${PASSIVE_OPTION_TEXT[part]}`);
-      }
+      let range = t.range;
       if (t.text === 'noiseless') {
-        if (allowed) {
-          note('noiseless', t.range);
-          options.push({ kind: 'noiseless', range: t.range });
+        retired(cur, t.range, t.text, RETIRED.noiseless);
+      } else {
+        const off = cur.peek();
+        if (off === undefined || off.kind !== 'name' || off.text !== NOISE_OFF) {
+          cur.report(off?.range ?? t.range, 'bad-option', 'noise takes the word off', `a resistor without thermal noise is written noise ${NOISE_OFF}`);
+          if (off !== undefined && off.kind === 'name') cur.next();
+          continue;
         }
-        continue;
+        cur.next();
+        range = merge(t.range, off.range);
       }
-      const amount = value(cur, `the value after ${t.text}`, ALL_PASSIVE_OPTIONS, t.text === 'esl' ? 'esl is in H, like esl 1n' : `${t.text} is in Ω, like ${t.text} 20m`);
-      if (amount === null || !allowed) continue;
-      const kind = t.text as 'esr' | 'esl' | 'dcr';
+      if (allowed(t, 'noise')) {
+        note('noise off', range);
+        options.push({ kind: 'noise-off', range });
+      }
+      continue;
+    }
+    if (t.kind === 'name' && (t.text === 'esr' || t.text === 'esl' || t.text === 'dcr')) {
+      cur.next();
+      const ok = allowed(t, t.text);
+      const amount = value(cur, `the value after ${t.text}`, PASSIVE_STOP_WORDS, t.text === 'esl' ? 'esl is in H, like esl 1n' : `${t.text} is in Ω, like ${t.text} 20m`);
+      if (amount === null || !ok) continue;
+      const kind = t.text;
       const range = merge(t.range, amount.range);
       note(kind, range);
       options.push({ kind, value: amount, range });
       continue;
     }
-    unknownOption(cur, t, designator.name, PASSIVE_OPTIONS[part], PASSIVE_OPTION_TEXT[part], part === 'resistor' ? 'a resistor' : PART_ARTICLE[part]);
+    unknownOption(cur, t, designator.name, words, optionText, article);
   }
   return { kind: 'passive', part, designator, nodes, value: v, options, range: cur.whole() };
 }
@@ -738,47 +753,43 @@ function unknownOption(cur: Cursor, t: Token, designator: string, words: readonl
     cur.error(t.range, 'unexpected-token', `\`${show(t)}\` is one value too many: ${designator} has its value already`, `a tolerance is written ±5% or 5%; ${article} takes ${list}`);
   }
   if (t.kind === 'name') {
-    const near = suggest(t.text, words);
-    const fix = near.length === 1 ? { title: `Replace with ${near[0]}`, column: t.range.column, endColumn: t.range.endColumn, replacement: near[0] } : undefined;
-    const hint = near.length > 0 ? `${didYouMean(near)} ${capitalise(article)} takes ${list}.` : `${article} takes ${list}`;
-    cur.error(t.range, 'unknown-option', `\`${t.text}\` is not an option of ${designator}`, hint, fix);
+    const near = didYouMean(t.text, words);
+    cur.error(t.range, 'unknown-option', `\`${t.text}\` is not an option of ${designator}`, suggestionHint(near, `${article} takes ${list}`), near.fix);
   }
   return cur.error(t.range, 'unexpected-token', `unexpected \`${show(t)}\` in ${designator}`, `${article} takes ${list}`);
 }
 
-function capitalise(s: string): string {
-  return s.charAt(0).toUpperCase() + s.slice(1);
-}
+const OPAMP_OPTION_LIST = OPAMP_OPTION_WORDS.join(', ');
+const RETIRED_OPAMP_OPTIONS: Readonly<Record<string, OpAmpOptionName>> = { en: RETIRED.en, in: RETIRED.in };
 
 function opamp(cur: Cursor, designator: Ident, nodes: NodeList): OpAmpStatement {
   checkCount(cur, nodes, 3, 'an op-amp', `${designator.name} [p n out] opamp (non-inverting, inverting, output)`);
   const word = cur.peek();
-  if (word === undefined || word.kind !== 'name' || word.text !== 'opamp') {
-    const hint = `write ${designator.name} [p n out] opamp, then any of gain, gbw, zout, en, in`;
-    if (word !== undefined && word.kind === 'name' && suggest(word.text, ['opamp']).length > 0) {
-      cur.error(word.range, 'missing-opamp', `\`${word.text}\` should be opamp`, hint, { title: 'Replace with opamp', column: word.range.column, endColumn: word.range.endColumn, replacement: 'opamp' });
-    }
+  if (word === undefined || word.kind !== 'name' || word.text !== OPAMP_WORD) {
+    const hint = `write ${designator.name} [p n out] opamp, then any of ${OPAMP_OPTION_LIST}`;
     if (word !== undefined && word.kind === 'name') {
+      const near = didYouMean(word.text, [OPAMP_WORD]);
+      if (near.fix !== undefined) cur.error(word.range, 'missing-opamp', `\`${word.text}\` should be opamp`, hint, near.fix);
       cur.error(word.range, 'missing-opamp', `\`${word.text}\` is not a kind of U part: a U part is an opamp, described by its options`, hint);
     }
     cur.error(word?.range ?? nodes.range, 'missing-opamp', `${designator.name} needs the word opamp after its nodes`, hint);
   }
   cur.next();
   const options: OpAmpStatement['options'] = [];
-  const units: Record<OpAmpOptionName, string> = { gain: 'V/V or dB', gbw: 'Hz', zout: 'Ω', en: 'V/√Hz', in: 'A/√Hz' };
   while (!cur.atEnd()) {
     const t = cur.peek() as Token;
-    if (t.kind === 'name' && (OPAMP_OPTIONS as string[]).includes(t.text)) {
+    const name = t.kind === 'name' ? ((OPAMP_OPTION_WORDS as string[]).includes(t.text) ? (t.text as OpAmpOptionName) : RETIRED_OPAMP_OPTIONS[t.text]) : undefined;
+    if (name !== undefined) {
       cur.next();
-      const name = t.text as OpAmpOptionName;
-      const amount = value(cur, `the value after ${name}`, OPAMP_OPTIONS, `${name} is in ${units[name]}`);
+      if (name !== t.text) retired(cur, t.range, t.text, name);
+      const amount = value(cur, `the value after ${t.text}`, OPAMP_OPTION_WORDS, `${name} is in ${OPAMP_OPTIONS[name]}`);
       if (amount === null) continue;
       const range = merge(t.range, amount.range);
       if (options.some((o) => o.name === name)) cur.report(range, 'duplicate-option', `${designator.name} has ${name} already`, 'give each option once');
       else options.push({ name, value: amount, range });
       continue;
     }
-    unknownOption(cur, t, designator.name, OPAMP_OPTIONS, 'gain, gbw, zout, en, in', 'an op-amp');
+    unknownOption(cur, t, designator.name, OPAMP_OPTION_WORDS, OPAMP_OPTION_LIST, 'an op-amp');
   }
   return { kind: 'opamp', designator, nodes, options, range: cur.whole() };
 }
@@ -786,11 +797,10 @@ function opamp(cur: Cursor, designator: Ident, nodes: NodeList): OpAmpStatement 
 function controlled(cur: Cursor, designator: Ident, nodes: NodeList): ControlledStatement | null {
   const word = cur.peek();
   const hint = 'an A part is one of: A1 [o+ o- c+ c-] vgain K, A1 [o+ o- c+ c-] gm S, A1 [o+ o-] igain K of R1, A1 [o+ o-] rm Ω of R1';
-  if (word === undefined || word.kind !== 'name' || !(CONTROLLED_MODES as string[]).includes(word.text)) {
+  if (word === undefined || word.kind !== 'name' || !(CONTROLLED_MODE_WORDS as string[]).includes(word.text)) {
     if (word !== undefined && word.kind === 'name') {
-      const near = suggest(word.text, CONTROLLED_MODES);
-      const fix = near.length === 1 ? { title: `Replace with ${near[0]}`, column: word.range.column, endColumn: word.range.endColumn, replacement: near[0] } : undefined;
-      cur.error(word.range, 'missing-mode', `\`${word.text}\` is not a kind of controlled source`, near.length > 0 ? `${didYouMean(near)} ${hint}` : hint, fix);
+      const near = didYouMean(word.text, CONTROLLED_MODE_WORDS);
+      cur.error(word.range, 'missing-mode', `\`${word.text}\` is not a kind of controlled source`, suggestionHint(near, hint), near.fix);
     }
     cur.error(word?.range ?? nodes.range, 'missing-mode', `${designator.name} needs vgain, gm, igain or rm after its nodes`, hint);
   }
@@ -855,10 +865,9 @@ function useStatement(cur: Cursor): UseStatement {
   const keyword = cur.next() as Token;
   const block = ident(cur, 'the block’s name', 'use lowpass as B1 [in out]');
   cur.expect('as', 'missing-as', `\`as\` is missing after use ${block.name}`, `write use ${block.name} as B1 [nodes]`);
-  const instance = ident(cur, 'the instance’s name', `use ${block.name} as B1 [in out]`);
-  if (!instance.name.startsWith('B')) {
-    cur.report(instance.range, 'bad-instance-name', `a block instance’s name starts with B, like B1; \`${instance.name}\` does not`, undefined);
-  }
+  const instanceToken = cur.peek();
+  const instance = ident(cur, 'the instance’s designator', `use ${block.name} as B1 [in out]`);
+  checkDesignator(cur, instanceToken as Token, INSTANCE_LETTER);
   if (!cur.isPunct('[')) cur.error(cur.here(), 'missing-nodes', `${instance.name} needs its nodes in brackets`, `write use ${block.name} as ${instance.name} [in out]`);
   const nodes = nodeList(cur);
   const args: UseStatement['args'] = [];
@@ -1038,7 +1047,7 @@ function sweepStatement(cur: Cursor): SweepStatement {
     if (unit !== undefined && unit.kind === 'name' && unit.text === 'decade') {
       cur.next();
     } else if (unit !== undefined && unit.kind === 'name' && ['dec', 'decades', 'dekade', 'decad', 'decde'].includes(unit.text)) {
-      cur.report(unit.range, 'bad-sweep', `\`${unit.text}\` should be decade`, 'write N/decade', { title: 'Replace with decade', column: unit.range.column, endColumn: unit.range.endColumn, replacement: 'decade' });
+      cur.report(unit.range, 'bad-sweep', `\`${unit.text}\` should be decade`, 'write N/decade', { title: 'Replace with decade', replacement: 'decade' });
       cur.next();
     } else {
       cur.error(cur.here(), 'bad-sweep', 'a log sweep’s density is written N/decade', hint);
@@ -1067,39 +1076,71 @@ function timeStatement(cur: Cursor): TimeStatement {
 
 function temperatureStatement(cur: Cursor): TemperatureStatement {
   const keyword = cur.next() as Token;
-  const v = value(cur, 'the temperature', [], 'write temperature 300 K or temperature 27°C');
+  const v = value(cur, 'the temperature', [], TEMPERATURE_HINT);
   if (v === null) throw new StatementError('temperature');
-  cur.finish('the temperature', 'write temperature 300 K or temperature 27°C');
+  cur.finish('the temperature', TEMPERATURE_HINT);
   return { kind: 'temperature', value: v, range: merge(keyword.range, cur.whole()) };
 }
 
-function toleranceStatement(cur: Cursor): ToleranceStatement {
+/** `spread N draws [seed S]` or `spread extremes`. */
+function spreadStatement(cur: Cursor): SpreadStatement {
   const keyword = cur.next() as Token;
-  const hint = 'write tolerance montecarlo 200, tolerance montecarlo 200 seed 7, or tolerance worstcase';
-  const word = cur.peek();
-  if (word === undefined || word.kind !== 'name' || (word.text !== 'montecarlo' && word.text !== 'worstcase')) {
-    if (word !== undefined && word.kind === 'name') {
-      // `monte-carlo` and `worst-case` are read as three tokens; offer the one word.
-      let range = word.range;
-      if (cur.isPunct('-', 1) && cur.peek(2)?.kind === 'name') range = merge(word.range, (cur.peek(2) as Token).range);
-      const written = cur.line.text.slice(range.column - 1, range.endColumn - 1);
-      const joined = written.replace(/[-_ ]/g, '').toLowerCase();
-      const near = joined === 'montecarlo' || joined === 'worstcase' ? [joined] : suggest(joined, ['montecarlo', 'worstcase']);
-      const fix = near.length === 1 ? { title: `Replace with ${near[0]}`, column: range.column, endColumn: range.endColumn, replacement: near[0] } : undefined;
-      cur.error(range, 'bad-tolerance', `\`${written}\` is not a kind of tolerance analysis`, near.length > 0 ? `${didYouMean(near)} ${capitalise(hint)}.` : hint, fix);
-    }
-    cur.error(cur.here(), 'bad-tolerance', 'tolerance needs montecarlo or worstcase', hint);
+  const first = cur.peek();
+  if (first !== undefined && first.kind === 'name' && cur.peek(1) === undefined && !cur.isWord('extremes')) {
+    const near = didYouMean(first.text, ['extremes']);
+    if (near.fix !== undefined) cur.error(first.range, 'bad-spread', `\`${first.text}\` is not a kind of spread`, suggestionHint(near, SPREAD_HINT), near.fix);
   }
-  cur.next();
-  if (word.text === 'worstcase') {
-    cur.finish('worstcase', hint);
-    return { kind: 'tolerance', mode: 'worstcase', draws: null, seed: null, range: merge(keyword.range, cur.whole()) };
+  if (cur.eat('extremes') !== undefined) {
+    cur.finish('extremes', SPREAD_HINT);
+    return { kind: 'spread', mode: 'extremes', draws: null, seed: null, range: merge(keyword.range, cur.whole()) };
   }
-  const draws = value(cur, 'the count of draws', ['seed']);
+  const draws = value(cur, 'the count of draws', ['draws', 'seed', 'extremes'], SPREAD_HINT);
+  if (draws === null) throw new StatementError('spread');
+  if (cur.eat('draws') === undefined) {
+    const t = cur.peek();
+    const near = t !== undefined && t.kind === 'name' ? didYouMean(t.text, ['draws']) : undefined;
+    if (t !== undefined && near?.fix !== undefined) cur.error(t.range, 'bad-spread', `\`${t.text}\` should be draws`, SPREAD_HINT, near.fix);
+    const end = draws.range.endColumn;
+    cur.error(t?.range ?? draws.range, 'bad-spread', 'the count of draws is followed by the word draws', SPREAD_HINT, {
+      title: 'Add draws',
+      replacement: ' draws',
+      range: { line: draws.range.line, column: end, endColumn: end },
+    });
+  }
   let seed: Value | null = null;
-  if (cur.eat('seed') !== undefined) seed = value(cur, 'the seed');
-  cur.finish('the tolerance analysis', hint);
-  return { kind: 'tolerance', mode: 'montecarlo', draws, seed, range: merge(keyword.range, cur.whole()) };
+  if (cur.eat('seed') !== undefined) seed = value(cur, 'the seed', [], SPREAD_HINT);
+  cur.finish('the spread', SPREAD_HINT);
+  return { kind: 'spread', mode: 'draws', draws, seed, range: merge(keyword.range, cur.whole()) };
+}
+
+/**
+ * `tolerance montecarlo N [seed S]` and `tolerance worstcase`, the earlier forms of
+ * `spread`: an error whose quick fix rewrites the line; read as the spread it stands for.
+ */
+function retiredToleranceStatement(cur: Cursor): SpreadStatement {
+  const keyword = cur.next() as Token;
+  const word = cur.next();
+  const range = cur.whole();
+  const source = (v: Value) => cur.line.text.slice(v.range.column - 1, v.range.endColumn - 1);
+  const report = (replacement?: string) =>
+    cur.report(range, 'retired-word', '`tolerance` is an earlier form of the language', replacement === undefined ? SPREAD_HINT : `write ${replacement}`, replacement === undefined ? undefined : { title: `Replace with ${replacement}`, replacement });
+  if (word !== undefined && word.kind === 'name' && word.text === 'worstcase') {
+    report(`${RETIRED.tolerance} ${RETIRED.worstcase}`);
+    return { kind: 'spread', mode: 'extremes', draws: null, seed: null, range };
+  }
+  if (word === undefined || word.kind !== 'name' || word.text !== 'montecarlo') {
+    report();
+    throw new StatementError('tolerance');
+  }
+  const diagnosticCount = cur.diagnostics.length;
+  const draws = value(cur, 'the count of draws', ['seed']);
+  const seed = cur.eat('seed') !== undefined ? value(cur, 'the seed') : null;
+  if (draws === null || !cur.atEnd() || cur.diagnostics.length > diagnosticCount) {
+    report();
+    throw new StatementError('tolerance');
+  }
+  report(`${RETIRED.tolerance} ${source(draws)} ${RETIRED.montecarlo}${seed === null ? '' : ` seed ${source(seed)}`}`);
+  return { kind: 'spread', mode: 'draws', draws, seed, range };
 }
 
 const OPS: Partial<Record<Punct, { op: '>=' | '<=' | '='; fix?: string }>> = {
@@ -1122,7 +1163,7 @@ function requireStatement(cur: Cursor): RequireStatement {
   // The measure is the first measure word after the target that is followed by an operator.
   let m = -1;
   for (let i = cur.pos; i < tokens.length; i++) {
-    if (tokens[i].kind === 'name' && (MEASURES as string[]).includes(tokens[i].text) && isOp(tokens[i + 1])) {
+    if (tokens[i].kind === 'name' && (MEASURE_WORDS as string[]).includes(tokens[i].text) && isOp(tokens[i + 1])) {
       m = i;
       break;
     }
@@ -1131,13 +1172,12 @@ function requireStatement(cur: Cursor): RequireStatement {
     for (let i = cur.pos + 1; i < tokens.length; i++) {
       const t = tokens[i];
       if (isOp(tokens[i + 1]) && t.kind === 'name') {
-        const near = suggest(t.text, MEASURES);
-        const fix = near.length === 1 ? { title: `Replace with ${near[0]}`, column: t.range.column, endColumn: t.range.endColumn, replacement: near[0] } : undefined;
-        cur.error(t.range, 'unknown-measure', `\`${t.text}\` is not a measure`, `${near.length > 0 ? didYouMean(near) + ' ' : ''}The measures are ${MEASURES.join(', ')}.`, fix);
+        const near = didYouMean(t.text, MEASURE_WORDS);
+        cur.error(t.range, 'unknown-measure', `\`${t.text}\` is not a measure`, suggestionHint(near, `the measures are ${MEASURE_LIST}.`, `The measures are ${MEASURE_LIST}.`), near.fix);
       }
     }
     if (cur.atEnd()) cur.error(keyword.range, 'missing-target', 'what to require is missing', hint);
-    cur.error(cur.whole(), 'missing-measure', 'this requirement has no measure and comparison', `${hint}; the measures are ${MEASURES.join(', ')}`);
+    cur.error(cur.whole(), 'missing-measure', 'this requirement has no measure and comparison', `${hint}; the measures are ${MEASURE_LIST}`);
   }
   const targetTokens = tokens.slice(cur.pos, m);
   if (targetTokens.length === 0) cur.error(tokens[m].range, 'missing-target', 'the trace this requirement is about is missing', hint);
@@ -1150,8 +1190,6 @@ function requireStatement(cur: Cursor): RequireStatement {
   if (opInfo.fix !== undefined) {
     cur.report(opToken.range, 'bad-operator', `\`${opToken.text}\` is not a comparison here`, `the comparisons are >=, <= and = VALUE ± TOL`, {
       title: `Replace with ${opInfo.fix}`,
-      column: opToken.range.column,
-      endColumn: opToken.range.endColumn,
       replacement: opInfo.fix,
     });
   }

@@ -1,4 +1,5 @@
-/** "Did you mean …": the nearest known names to a misspelt one. */
+/** "Did you mean …": the nearest known names to a misspelt one, as a hint and a quick fix. */
+import type { FixSpec } from './diagnostic.js';
 
 /** Optimal string alignment distance: edits, with a swap of two neighbours counting as one. */
 export function editDistance(a: string, b: string): number {
@@ -44,10 +45,31 @@ export function suggest(name: string, candidates: Iterable<string>): string[] {
   return scored.filter((s) => s.d === best).map((s) => s.c);
 }
 
-/** "did you mean `a`?" or "did you mean `a` or `b`?"; undefined when there is nothing to offer. */
-export function didYouMean(suggestions: readonly string[]): string | undefined {
-  if (suggestions.length === 0) return undefined;
-  const shown = suggestions.slice(0, 3).map((s) => `\`${s}\``);
+/** What to say about a misspelt name. */
+export interface Suggestion {
+  /** The nearest candidates, best first; empty when none is close. */
+  names: string[];
+  /** "did you mean `a`?" or "did you mean `a` or `b`?"; undefined when nothing is close. */
+  question: string | undefined;
+  /** Replaces the name with the one nearest candidate; undefined unless exactly one is nearest. */
+  fix: FixSpec | undefined;
+}
+
+/** The "did you mean" of `name` among `candidates`: the question for the hint and the quick fix. */
+export function didYouMean(name: string, candidates: Iterable<string>): Suggestion {
+  const names = suggest(name, candidates);
+  if (names.length === 0) return { names, question: undefined, fix: undefined };
+  const shown = names.slice(0, 3).map((s) => `\`${s}\``);
   const list = shown.length === 1 ? shown[0] : `${shown.slice(0, -1).join(', ')} or ${shown[shown.length - 1]}`;
-  return `did you mean ${list}?`;
+  const fix = names.length === 1 ? { title: `Replace with ${names[0]}`, replacement: names[0] } : undefined;
+  return { names, question: `did you mean ${list}?`, fix };
+}
+
+/**
+ * A hint for a misspelt name: the question followed by `more` as a sentence of its own, or
+ * `otherwise` (by default `more`) when nothing is close.
+ */
+export function suggestionHint(s: Suggestion, more?: string, otherwise: string | undefined = more): string | undefined {
+  if (s.question === undefined) return otherwise;
+  return more === undefined ? s.question : `${s.question} ${more.charAt(0).toUpperCase()}${more.slice(1)}${/[.?!]$/.test(more) ? '' : '.'}`;
 }

@@ -3,45 +3,11 @@
  * `2n2`, `4R7`, `10nF`, `1 kHz`) and writing them back for readouts (`4.7 kΩ`).
  */
 
-/** A unit the cell language knows, in its canonical spelling. */
-export type Unit = 'Ω' | 'F' | 'H' | 'Hz' | 'V' | 'A' | 's' | 'S' | 'dB' | 'deg' | '%' | 'K' | '°C';
-
-/** SI prefixes the language accepts; `u`, `µ` (micro sign) and `μ` (Greek mu) are all micro. */
-export const SI_PREFIXES: Readonly<Record<string, number>> = {
-  f: 1e-15,
-  p: 1e-12,
-  n: 1e-9,
-  u: 1e-6,
-  µ: 1e-6,
-  μ: 1e-6,
-  m: 1e-3,
-  k: 1e3,
-  M: 1e6,
-  G: 1e9,
-  T: 1e12,
-};
-
-/** Every spelling of a unit, mapped to its canonical form. */
-export const UNIT_SPELLINGS: Readonly<Record<string, Unit>> = {
-  Ω: 'Ω',
-  ohm: 'Ω',
-  F: 'F',
-  H: 'H',
-  Hz: 'Hz',
-  V: 'V',
-  A: 'A',
-  s: 's',
-  S: 'S',
-  dB: 'dB',
-  deg: 'deg',
-  '°': 'deg',
-  '%': '%',
-  K: 'K',
-  '°C': '°C',
-};
+import { SI_PREFIXES, UNIT_SPELLINGS, UNPREFIXED_UNITS } from './vocabulary.js';
+import type { Unit } from './vocabulary.js';
 
 /** Units that never take an SI prefix. */
-const UNPREFIXED: ReadonlySet<Unit> = new Set<Unit>(['dB', 'deg', '%', 'K', '°C']);
+const UNPREFIXED: ReadonlySet<Unit> = new Set<Unit>(UNPREFIXED_UNITS);
 
 /** What the text after a number's digits turned out to be. */
 export type SuffixReading =

@@ -39,7 +39,7 @@ describe('compile', () => {
   });
 
   it('returns a circuit with warnings, and none with an error', () => {
-    const warned = compile(RC + 'tolerance worstcase\n');
+    const warned = compile(RC + 'spread extremes\n');
     expect(warned.circuit).not.toBeNull();
     expect(warned.diagnostics.map((d) => `${d.severity} ${d.code}`)).toEqual(['warning not-available']);
     const failed = compile(RC + 'R2 [out gnd] -1k\n');

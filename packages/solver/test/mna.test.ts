@@ -34,18 +34,18 @@ describe('parts', () => {
 drive in
 R1 [in gnd] 1k
 A1 [v gnd in gnd] vgain 2
-Rv [v gnd] 1k
+R2 [v gnd] 1k
 A2 [g gnd in gnd] gm 1m
-Rg [g gnd] 1k
+R3 [g gnd] 1k
 A3 [i gnd] igain 3 of R1
-Ri [i gnd] 1k
+R4 [i gnd] 1k
 C1 [in gnd] 1u
 A4 [rc gnd] rm 10 of C1
-Rrc [rc gnd] 1k
+R5 [rc gnd] 1k
 L1 [in m] 1m
-Rm [m gnd] 1
+R6 [m gnd] 1
 A5 [rl gnd] rm 10 of L1
-Rrl [rl gnd] 1k
+R7 [rl gnd] 1k
 show v
 show g
 show i
@@ -92,7 +92,7 @@ sweep at 1k
   });
 
   it('op-amp: flat gain with zout in a loaded follower gives G/(G + 1 + zout/R_L) [DER]', () => {
-    const r = run('drive in\nU1 [in out out] opamp gain 1000 zout 100\nRL [out gnd] 100\nshow out\nsweep at 1k');
+    const r = run('drive in\nU1 [in out out] opamp gain 1000 zout 100\nR1 [out gnd] 100\nshow out\nsweep at 1k');
     expect(rel(point(r, 'out', 1e3).re, 1000 / 1002)).toBeLessThan(1e-13);
   });
 

@@ -24,9 +24,9 @@ const fragments = [
   '[', ']', '(', ')', ',', '=', '>=', '<=', '±', '..', '+', '-', '*', '/', '^', '%', '°', 'Ω', '°C', '"', '"lbl"',
   '10k', '4k7', '2n2', '4R7', '1e-9', '0.47', '100dB', '10meg', '1MEG', '10K', '1khz', '-3', '1µF', '.5',
   'let', 'block', 'end', 'use', 'as', 'drive', 'current', 'phase', 'show', 'loop', 'step', 'noise', 'impedance',
-  'sweep', 'at', 'decade', 'linear', 'time', 'points', 'temperature', 'tolerance', 'montecarlo', 'worstcase', 'seed',
+  'sweep', 'at', 'decade', 'linear', 'time', 'points', 'temperature', 'spread', 'draws', 'extremes', 'seed', 'tolerance', 'montecarlo',
   'require', 'gain', 'corner', 'phase-margin', 'over', 'opamp', 'gbw', 'zout', 'en', 'vgain', 'gm', 'igain', 'rm', 'of',
-  'couple', 'esr', 'esl', 'dcr', 'tol', 'noiseless', 'sqrt', 'pi', 'e', 'min', '#', ' ', ' ', ' ', '\n', '\n', '\t', '\r\n',
+  'couple', 'esr', 'esl', 'dcr', 'tol', 'noise', 'off', 'noiseless', 'vnoise', 'inoise', 'sqrt', 'pi', 'e', 'min', '#', ' ', ' ', ' ', '\n', '\n', '\t', '\r\n',
 ];
 const languageLike = fc.array(fc.constantFrom(...fragments), { maxLength: 60 }).map((xs) => xs.join(' '));
 const denseLanguageLike = fc.array(fc.constantFrom(...fragments), { maxLength: 60 }).map((xs) => xs.join(''));

@@ -42,7 +42,7 @@ describe('passive networks', { timeout: 30_000 }, () => {
       fc.property(fc.array(part, { minLength: 2, maxLength: 14 }), fc.double({ min: 0.1, max: 0.95, noNaN: true }), value(0, 6), (parts, k, f) => {
         const lines: string[] = [];
         // A resistor tree ties nodes 1..6 to ground, so every node has a path.
-        for (let n = 1; n <= 6; n++) lines.push(`Rt${n} [n${n} ${n === 1 ? 'gnd' : `n${n - 1}`}] ${100 * n}`);
+        for (let n = 1; n <= 6; n++) lines.push(`R${n}t [n${n} ${n === 1 ? 'gnd' : `n${n - 1}`}] ${100 * n}`);
         const node = (i: number): string => (i === 0 ? 'gnd' : `n${i}`);
         const inductors: string[] = [];
         parts.forEach((p, i) => {

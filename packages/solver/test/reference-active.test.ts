@@ -42,10 +42,10 @@ describe('Butterworth orders 2–5 as cascaded unity-gain Sallen–Key sections 
       s++;
       const a = `(2*sin((2*${k}-1)*pi/(2*${n})))`;
       lines.push(
-        `Ra${s} [${node} a${s}] R`,
-        `Rb${s} [a${s} b${s}] R`,
-        `Cf${s} [a${s} o${s}] (2/(${a}*R*wc))`,
-        `Cg${s} [b${s} gnd] (${a}/(2*R*wc))`,
+        `R${s}a [${node} a${s}] R`,
+        `R${s}b [a${s} b${s}] R`,
+        `C${s}a [a${s} o${s}] (2/(${a}*R*wc))  # feedback`,
+        `C${s}b [b${s} gnd] (${a}/(2*R*wc))`,
         `U${s} [b${s} o${s} o${s}] opamp`,
       );
       node = `o${s}`;
@@ -88,8 +88,8 @@ describe('unity-gain Sallen–Key low-pass (§6, SK rows)', () => {
 drive in
 R1 [in a] 10k
 R2 [a b] 10k
-Cfb [a out] ${cfb}
-Cgnd [b gnd] ${cgnd}
+C1 [a out] ${cfb}  # feedback
+C2 [b gnd] ${cgnd}  # to ground
 U1 [b out out] opamp
 show out
 `;
@@ -150,10 +150,10 @@ show out
     const text = `
 drive in
 R1 [in a] 10k
-Cg [a gnd] 45n
+C1 [a gnd] 45n
 R2 [a out] 10k
 R3 [a b] 10k
-Cf [b out] 10n
+C2 [b out] 10n
 U1 [gnd b out] opamp
 show out
 `;
@@ -174,8 +174,8 @@ describe('op-amps (§9, OA rows)', () => {
     const text = `
 drive in
 U1 [in n out] opamp gain 100k gbw 1M
-Rf [out n] 9k
-Rg [n gnd] 1k
+R1 [out n] 9k
+R2 [n gnd] 1k
 show out
 `;
     const r = run(text);
@@ -269,8 +269,8 @@ let wc = 2*pi*${fc}
 drive in
 R1 [in x] R
 R2 [x y] R
-Cf [x out] (${2 * b}/(${a}*R*wc))
-Cg [y gnd] (${a}/(2*R*wc))
+C1 [x out] (${2 * b}/(${a}*R*wc))
+C2 [y gnd] (${a}/(2*R*wc))
 U1 [y out out] opamp
 show out
 `;

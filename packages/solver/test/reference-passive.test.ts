@@ -252,7 +252,7 @@ describe('doubly terminated Butterworth LC ladders (§13 LAD rows, §5 Butterwor
     return { db: 20 * Math.log10(0.5 / Math.hypot(re, im)), deg: (-Math.atan2(im, re) * 180) / Math.PI };
   };
   const ladder = (n: number): string => {
-    const lines = ['let R0 = 1k', 'let fc = 1k', 'drive in', 'Rs [in n1] R0'];
+    const lines = ['let R0 = 1k', 'let fc = 1k', 'drive in', 'R1 [in n1] R0'];
     let node = 1;
     for (let k = 1; k <= n; k++) {
       const g = `(2*sin((2*${k}-1)*pi/(2*${n})))`;
@@ -262,7 +262,7 @@ describe('doubly terminated Butterworth LC ladders (§13 LAD rows, §5 Butterwor
         node++;
       }
     }
-    lines.push(`RL [n${node} gnd] R0`, `show "out" n${node}`);
+    lines.push(`R2 [n${node} gnd] R0`, `show "out" n${node}`);
     return lines.join('\n') + '\n';
   };
 
@@ -284,7 +284,7 @@ describe('doubly terminated Butterworth LC ladders (§13 LAD rows, §5 Butterwor
 
   it('LAD-1: n = 3 ladder at 1 Ω, 1 rad/s: −6.020600 / −9.030900 / −66.020604 dB, −135° at ω = 1 [MYJ; MNA]', () => {
     const w = (x: number): number => x / TWO_PI;
-    const r = run(`drive in\nRs [in a] 1\nC1 [a gnd] 1\nL2 [a b] 2\nC3 [b gnd] 1\nRL [b gnd] 1\nshow b\n${sweepAt(w(1e-6), w(1), w(10))}`);
+    const r = run(`drive in\nR1 [in a] 1\nC1 [a gnd] 1\nL2 [a b] 2\nC3 [b gnd] 1\nR2 [b gnd] 1\nshow b\n${sweepAt(w(1e-6), w(1), w(10))}`);
     expect(Math.abs(point(r, 'b', w(1e-6)).db - -6.0206)).toBeLessThan(1e-6);
     expect(Math.abs(point(r, 'b', w(1)).db - -9.0309)).toBeLessThan(1e-6);
     expect(Math.abs(point(r, 'b', w(10)).db - -66.020604)).toBeLessThan(1e-6);
@@ -292,7 +292,7 @@ describe('doubly terminated Butterworth LC ladders (§13 LAD rows, §5 Butterwor
   });
 
   it('LAD-1d/e: 50 Ω, 1 MHz version: C = 3.183099 nF, L = 15.915494 µH, −9.030900 dB at 1 MHz [DER; MNA]', () => {
-    const r = run('drive in\nRs [in a] 50\nC1 [a gnd] 3.183099n\nL2 [a b] 15.915494u\nC3 [b gnd] 3.183099n\nRL [b gnd] 50\nshow b\nsweep at 1M');
+    const r = run('drive in\nR1 [in a] 50\nC1 [a gnd] 3.183099n\nL2 [a b] 15.915494u\nC3 [b gnd] 3.183099n\nR2 [b gnd] 50\nshow b\nsweep at 1M');
     expect(Math.abs(point(r, 'b', 1e6).db - -9.0309)).toBeLessThan(1e-4);
   });
 
@@ -316,11 +316,11 @@ describe('doubly terminated Butterworth LC ladders (§13 LAD rows, §5 Butterwor
 
   it('BT-a/b/c: bridged-T notch: −34.151404 dB at f₀ = 1591.549 Hz; −1.503790 / −5.763531 dB at 100 Hz / 10 kHz [DER; MNA]', () => {
     const f0 = 1 / (TWO_PI * 10e-9 * Math.sqrt(100e3 * 1e3));
-    const r = run(`drive in\nC1 [in m] 10n\nC2 [m out] 10n\nRs [m gnd] 1k\nRb [in out] 100k\nshow out\n${sweepAt(100, f0, 10e3)}`);
+    const r = run(`drive in\nC1 [in m] 10n\nC2 [m out] 10n\nR1 [m gnd] 1k\nR2 [in out] 100k\nshow out\n${sweepAt(100, f0, 10e3)}`);
     expect(Math.abs(point(r, 'out', f0).db - -34.151404)).toBeLessThan(1e-6);
     expect(Math.abs(point(r, 'out', 100).db - -1.50379)).toBeLessThan(1e-6);
     expect(Math.abs(point(r, 'out', 10e3).db - -5.763531)).toBeLessThan(1e-6);
-    const w = run(`drive in\nC1 [in m] 10n\nC2 [m out] 10n\nRs [m gnd] 1k\nRb [in out] 100k\nshow out\nsweep 10 .. 1M`);
+    const w = run(`drive in\nC1 [in m] 10n\nC2 [m out] 10n\nR1 [m gnd] 1k\nR2 [in out] 100k\nshow out\nsweep 10 .. 1M`);
     expect(rel(readout(w, 'out', 'center').value, 1591.549)).toBeLessThan(1e-6);
   });
 });

@@ -67,7 +67,7 @@ function renderElement(e: Element, nodes: (...xs: number[]) => string): string {
   const tol = 'tolerance' in e && e.tolerance !== undefined ? ` tol ${num(e.tolerance * 100)}%` : '';
   switch (e.kind) {
     case 'resistor':
-      return `${e.name} resistor ${nodes(e.a, e.b)} ${num(e.value)}${tol}${e.noiseless ? ' noiseless' : ''}`;
+      return `${e.name} resistor ${nodes(e.a, e.b)} ${num(e.value)}${tol}${e.noiseless ? ' noise off' : ''}`;
     case 'capacitor':
       return `${e.name} capacitor ${nodes(e.a, e.b)} ${num(e.value)}${tol}${e.esr !== 0 ? ` esr ${num(e.esr)}` : ''}${e.esl !== 0 ? ` esl ${num(e.esl)}` : ''}`;
     case 'inductor':

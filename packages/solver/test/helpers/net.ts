@@ -8,7 +8,7 @@ const R0 = { line: 1, column: 1, endColumn: 2 };
 
 export class Net {
   private readonly names: string[] = ['gnd'];
-  private readonly index = new Map<string, number>([['gnd', 0], ['0', 0]]);
+  private readonly index = new Map<string, number>([['gnd', 0]]);
   readonly elements: Element[] = [];
   readonly traces: TraceSpec[] = [];
   readonly requirements: RequirementSpec[] = [];

@@ -1,0 +1,230 @@
+/**
+ * The cell language's words, each written once: statement words, part classes with their
+ * units and articles, options, measures with their units, functions, constants, SI prefixes
+ * and unit spellings. The lexer, parser, elaborator, expression reader, command line and the
+ * web editor all read them from here. This module imports nothing of the solver.
+ */
+
+/** A unit the cell language knows, in its canonical spelling. */
+export type Unit = 'Ω' | 'F' | 'H' | 'Hz' | 'V' | 'A' | 's' | 'S' | 'dB' | 'deg' | '%' | 'K' | '°C';
+
+/** SI prefixes the language accepts; `u`, `µ` (micro sign) and `μ` (Greek mu) are all micro. */
+export const SI_PREFIXES: Readonly<Record<string, number>> = {
+  f: 1e-15,
+  p: 1e-12,
+  n: 1e-9,
+  u: 1e-6,
+  µ: 1e-6,
+  μ: 1e-6,
+  m: 1e-3,
+  k: 1e3,
+  M: 1e6,
+  G: 1e9,
+  T: 1e12,
+};
+
+/** Every spelling of a unit, mapped to its canonical form. */
+export const UNIT_SPELLINGS: Readonly<Record<string, Unit>> = {
+  Ω: 'Ω',
+  ohm: 'Ω',
+  F: 'F',
+  H: 'H',
+  Hz: 'Hz',
+  V: 'V',
+  A: 'A',
+  s: 's',
+  S: 'S',
+  dB: 'dB',
+  deg: 'deg',
+  '°': 'deg',
+  '%': '%',
+  K: 'K',
+  '°C': '°C',
+};
+
+/** Units that never take an SI prefix. */
+export const UNPREFIXED_UNITS: readonly Unit[] = ['dB', 'deg', '%', 'K', '°C'];
+
+/** The prefixes and units as a hint lists them. */
+export const PREFIX_LIST = 'f p n u µ m k M G T';
+export const UNIT_LIST = 'Ω (or ohm), F, H, Hz, V, A, s, S, dB, deg (or °), %, K, °C';
+
+/** Words that start a statement, each with what it is for. */
+export const STATEMENTS = {
+  let: 'a parameter: let NAME = value',
+  block: 'a reusable sub-network, closed by end',
+  end: 'closes a block',
+  use: 'an instance of a block: use NAME as B1 [nodes]',
+  drive: 'the AC stimulus: drive NODE [amplitude]',
+  show: 'a trace: show NODE, show loop …, show impedance NODE',
+  sweep: 'the frequency sweep: sweep 10 .. 100k, 100/decade',
+  time: 'the window of step traces: time 0 .. 1m',
+  temperature: 'for noise: temperature 25°C or 290 K (default 300 K)',
+  spread: 'tolerance spread: spread 200 draws, or spread extremes',
+  require: 'a requirement: require out gain >= -3 dB over 10 .. 1k',
+  couple: 'magnetic coupling: couple L1 L2 0.98',
+} as const;
+
+export type StatementWord = keyof typeof STATEMENTS;
+
+export const STATEMENT_WORDS = Object.keys(STATEMENTS) as StatementWord[];
+
+/** What a line may start with, as hints say it. */
+export const LINE_STARTS = `a line starts with a statement word (${STATEMENT_WORDS.filter((w) => w !== 'end').join(', ')}) or a part designator such as R1`;
+
+/** Statements that belong to the whole cell, never inside a block. */
+export const TOP_LEVEL_ONLY: ReadonlySet<string> = new Set<StatementWord>(['drive', 'show', 'sweep', 'time', 'temperature', 'spread', 'require']);
+
+export type PassiveKind = 'resistor' | 'capacitor' | 'inductor';
+
+export type PartClassLetter = 'R' | 'C' | 'L' | 'U' | 'A';
+
+/** A part class: the designator's letter, what it is, and how its line is written. */
+export interface PartClass {
+  kind: string;
+  article: string;
+  /** The nodes and value of an example line, after the designator. */
+  template: string;
+}
+
+export const PART_CLASSES: Readonly<Record<PartClassLetter, PartClass>> = {
+  R: { kind: 'resistor', article: 'a resistor', template: '[a b] 10k' },
+  C: { kind: 'capacitor', article: 'a capacitor', template: '[a b] 10n' },
+  L: { kind: 'inductor', article: 'an inductor', template: '[a b] 1m' },
+  U: { kind: 'op-amp', article: 'an op-amp', template: '[p n out] opamp' },
+  A: { kind: 'controlled source', article: 'a controlled source', template: '[o+ o- c+ c-] vgain 10' },
+};
+
+export const PART_LETTERS = Object.keys(PART_CLASSES) as PartClassLetter[];
+
+/** The letter of a block instance's designator (`use lowpass as B1 [in out]`). */
+export const INSTANCE_LETTER = 'B';
+
+/** A two-terminal part's value: its unit and an example. */
+export const PASSIVES: Readonly<Record<PassiveKind, { letter: PartClassLetter; unit: Unit; example: string; options: readonly string[]; optionText: string }>> = {
+  resistor: { letter: 'R', unit: 'Ω', example: '10k', options: ['tol', 'noise'], optionText: '±1%, tol 1%, noise off' },
+  capacitor: { letter: 'C', unit: 'F', example: '10n', options: ['tol', 'esr', 'esl'], optionText: '±5%, tol 5%, esr Ω, esl H' },
+  inductor: { letter: 'L', unit: 'H', example: '1m', options: ['tol', 'dcr'], optionText: '±10%, tol 10%, dcr Ω' },
+};
+
+/** Every option word of a resistor, capacitor or inductor. */
+export const PASSIVE_OPTIONS = ['tol', 'esr', 'esl', 'dcr', 'noise'] as const;
+
+/** The one value `noise` takes on a resistor. */
+export const NOISE_OFF = 'off';
+
+/** The op-amp's word and its options, each with its unit. */
+export const OPAMP_WORD = 'opamp';
+export const OPAMP_OPTIONS = { gain: 'V/V or dB', gbw: 'Hz', zout: 'Ω', vnoise: 'V/√Hz', inoise: 'A/√Hz' } as const;
+export type OpAmpOptionName = keyof typeof OPAMP_OPTIONS;
+export const OPAMP_OPTION_WORDS = Object.keys(OPAMP_OPTIONS) as OpAmpOptionName[];
+
+/** What an A part is, by the word after its nodes. */
+export const CONTROLLED_MODES = {
+  vgain: 'voltage gain, V(o+,o-) = K·V(c+,c-)',
+  gm: 'transconductance, current gm·V(c+,c-)',
+  igain: 'current gain, K times the current of a part',
+  rm: 'transresistance, rm times the current of a part',
+} as const;
+export type ControlledMode = keyof typeof CONTROLLED_MODES;
+export const CONTROLLED_MODE_WORDS = Object.keys(CONTROLLED_MODES) as ControlledMode[];
+
+/** Words of `show`: what a trace is of and how it is read. */
+export const SHOW_MODES = ['loop', 'step', 'noise'] as const;
+export const TRACE_WORDS = ['current', 'impedance'] as const;
+
+/** The smaller words inside statements. */
+export const CONNECTIVES = {
+  drive: ['current', 'phase'],
+  sweep: ['at', 'linear', 'decade'],
+  time: ['points'],
+  spread: ['draws', 'seed', 'extremes'],
+  require: ['over', 'at'],
+  use: ['as'],
+  part: ['of'],
+} as const;
+
+/** What a requirement measures, with the unit of its value ('' for the trace's own unit). */
+export const MEASURES = {
+  gain: 'dB',
+  phase: 'deg',
+  delay: 's',
+  magnitude: '',
+  corner: 'Hz',
+  peak: 'dB',
+  crossover: 'Hz',
+  'phase-margin': 'deg',
+  'gain-margin': 'dB',
+  settling: 's',
+  overshoot: '%',
+} as const;
+export type Measure = keyof typeof MEASURES;
+export const MEASURE_WORDS = Object.keys(MEASURES) as Measure[];
+
+/** Functions of value expressions, with how many arguments each takes. */
+export const FUNCTIONS = {
+  sqrt: 1,
+  exp: 1,
+  ln: 1,
+  log10: 1,
+  sin: 1,
+  cos: 1,
+  tan: 1,
+  atan: 1,
+  abs: 1,
+  min: 'many',
+  max: 'many',
+} as const;
+export type FunctionName = keyof typeof FUNCTIONS;
+export const FUNCTION_WORDS = Object.keys(FUNCTIONS) as FunctionName[];
+
+export function isFunctionName(word: string): word is FunctionName {
+  return Object.prototype.hasOwnProperty.call(FUNCTIONS, word);
+}
+
+/** Constants of value expressions. */
+export const CONSTANTS: Readonly<Record<string, number>> = { pi: Math.PI, e: Math.E };
+
+/** The ground node's one name. */
+export const GROUND = 'gnd';
+
+/** The default temperature for noise, in K. */
+export const DEFAULT_TEMPERATURE = 300;
+
+/**
+ * Words of the language's earlier forms, with what replaced them. The parser reports each
+ * with a quick fix to the new form; `modernizeCellText` rewrites them.
+ */
+export const RETIRED = {
+  noiseless: 'noise off',
+  en: 'vnoise',
+  in: 'inoise',
+  tolerance: 'spread',
+  montecarlo: 'draws',
+  worstcase: 'extremes',
+} as const;
+
+/** A reference designator: its class letter, a number, optionally a lower-case suffix. */
+const DESIGNATOR = /^([A-Z])(\d+)([a-z]*)$/;
+
+/** Whether `name` is a well-formed reference designator of class `letter` (`R1`, `R4b`). */
+export function isDesignator(name: string, letter: string): boolean {
+  const m = DESIGNATOR.exec(name);
+  return m !== null && m[1] === letter;
+}
+
+/** The number of a well-formed designator (`R12b` → 12), or null. */
+export function designatorNumber(name: string): number | null {
+  const m = DESIGNATOR.exec(name);
+  return m === null ? null : Number(m[2]);
+}
+
+/** Whether `name` is written with digits only (a node name of the earlier forms). */
+export function isDigitsOnly(name: string): boolean {
+  return /^\d+$/.test(name);
+}
+
+/** The node name that replaces a digits-only one: `0` is ground, `12` becomes `n12`. */
+export function nodeNameFor(digits: string): string {
+  return digits === '0' ? GROUND : `n${digits}`;
+}
