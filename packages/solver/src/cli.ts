@@ -60,7 +60,7 @@ function parseArgs(argv: string[]): Args {
 
 function exitCode(result: Result): number {
   if (result.diagnostics.some((d) => d.severity === 'error')) return 2;
-  if (result.requirements.some((r) => !r.pass)) return 1;
+  if (result.requirements.some((r) => r.status !== 'pass')) return 1;
   return 0;
 }
 

@@ -1,12 +1,13 @@
 /**
- * From a cell's text to the network the numerical core solves: parse, then elaborate.
- * This is what `analyze()` calls. Never throws.
+ * From a cell's text to the network the numerical core solves: parse, elaborate, and add
+ * the cell's cautions. This is what `analyze()` calls. Never throws.
  */
 import type { Circuit } from './circuit.js';
 import type { Diagnostic } from './result.js';
 import { parse, internalError } from './parser.js';
 import { elaborate } from './elaborate.js';
 import { tidyDiagnostics } from './diagnostic.js';
+import { cautions } from './cautions.js';
 
 export interface CompileOptions {
   /** Most frequency points a sweep may have (default 20 000). */
@@ -22,7 +23,7 @@ export function compile(text: string, options: CompileOptions = {}): { circuit: 
   try {
     const parsed = parse(source);
     const elaborated = elaborate(parsed.program, { maxPoints: options.maxPoints });
-    const diagnostics = tidyDiagnostics([...parsed.diagnostics, ...elaborated.diagnostics], source);
+    const diagnostics = tidyDiagnostics([...parsed.diagnostics, ...elaborated.diagnostics, ...cautions(source, elaborated.circuit)], source);
     const failed = diagnostics.some((d) => d.severity === 'error');
     return { circuit: failed ? null : elaborated.circuit, diagnostics };
   } catch (e) {

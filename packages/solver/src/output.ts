@@ -1,9 +1,10 @@
 /**
- * Printing a Result: the contract's JSON (plain arrays, non-finite numbers as null), CSV
- * (one row per frequency) and a short text report. Pure functions, usable by the command
- * line and by the API's exports alike.
+ * Printing a Result: the contract's JSON (plain arrays, non-finite numbers as null, stable
+ * ids), CSV (one row per frequency) and a short text report in the screens' words. Pure
+ * functions, usable by the command line and by the API's exports alike.
  */
 import type { Readout, RequirementResult, Result } from './result.js';
+import { READOUT_NAMES, STATUS_WORDS } from './result.js';
 import { formatNumber, formatQuantity } from './format.js';
 
 export interface OutputOptions {
@@ -28,16 +29,21 @@ export function toJson(result: Result, options: OutputOptions = {}): string {
   return JSON.stringify(r, (_key, value: unknown) => (ArrayBuffer.isView(value) ? Array.from(value as Float64Array) : value));
 }
 
-/** One row per frequency: frequency_hz, then LABEL_mag_db, LABEL_phase_deg (and LABEL_mag for impedances). */
+/**
+ * One row per frequency: `frequency (Hz)`, then for each trace `LABEL · gain (dB)` and
+ * `LABEL · phase (°)`; an impedance trace has `LABEL · magnitude (dBΩ)`, its phase and
+ * `LABEL · magnitude (Ω)` instead.
+ */
 export function toCsv(result: Result, options: OutputOptions = {}): string {
   const r = selectTrace(result, options.trace);
-  const header = ['frequency_hz'];
+  const header = ['frequency (Hz)'];
   const columns: ArrayLike<number>[] = [r.frequencies];
   for (const t of r.traces) {
-    header.push(`${t.label}_mag_db`, `${t.label}_phase_deg`);
+    const impedance = t.kind === 'impedance';
+    header.push(`${t.label} · ${impedance ? 'magnitude (dBΩ)' : 'gain (dB)'}`, `${t.label} · phase (°)`);
     columns.push(t.magnitudeDb, t.phaseDeg);
-    if (t.kind === 'impedance') {
-      header.push(`${t.label}_mag`);
+    if (impedance) {
+      header.push(`${t.label} · magnitude (${t.unit})`);
       columns.push(t.magnitude);
     }
   }
@@ -52,24 +58,28 @@ function csvField(s: string): string {
   return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 
-function readoutText(r: Readout): string {
-  const value = r.unit === 'Hz' || r.unit === 'Ω' ? formatQuantity(r.value, r.unit) : `${formatNumber(r.value)}${r.unit ? ' ' + r.unit : ''}`;
-  return r.at !== null && r.name !== 'phase-margin' && r.name !== 'gain-margin' ? `${value} at ${formatQuantity(r.at, 'Hz')}` : value;
+/** A value in its unit: frequencies, times and impedances with SI prefixes. */
+function valueText(value: number, unit: string): string {
+  return unit === 'Hz' || unit === 's' || unit === 'Ω' ? formatQuantity(value, unit) : `${formatNumber(value)}${unit ? ' ' + unit : ''}`;
 }
 
-/** "PASS  line 17  require … — measured 1.0002 kHz" */
+function readoutText(r: Readout): string {
+  const value = valueText(r.value, r.unit);
+  return r.at !== null ? `${value} at ${formatQuantity(r.at, 'Hz')}` : value;
+}
+
+/** "pass  line 17: require … (measured 1.0002 kHz)"; the status reads as on every screen. */
 export function requirementText(q: RequirementResult): string {
-  const status = q.status === 'not-available' ? 'N/A ' : q.pass ? 'PASS' : 'FAIL';
-  const unit = q.unit ?? '';
+  const status = STATUS_WORDS[q.status].padEnd(4);
   let measured = '';
-  if (q.status !== 'not-available') {
-    const v = unit === 'Hz' || unit === 's' || unit === 'Ω' ? formatQuantity(q.measured, unit) : `${formatNumber(q.measured)}${unit ? ' ' + unit : ''}`;
-    measured = `  (${q.worstAt !== null ? 'worst ' : 'measured '}${v}${q.worstAt !== null ? ` at ${formatQuantity(q.worstAt, 'Hz')}` : ''})`;
+  if (q.status !== 'not-applicable') {
+    const v = valueText(q.measured, q.unit);
+    measured = `  (${q.worstAt !== null ? `worst ${v} at ${formatQuantity(q.worstAt, 'Hz')}` : `measured ${v}`})`;
   }
   return `${status}  line ${q.line}: ${q.text}${measured}`;
 }
 
-/** The text report: readouts per trace, then requirement results. */
+/** The text report: readouts per trace by their screen names, then requirement results. */
 export function toText(result: Result, options: OutputOptions & { readouts?: boolean } = {}): string {
   const r = selectTrace(result, options.trace);
   const lines: string[] = [];
@@ -80,8 +90,8 @@ export function toText(result: Result, options: OutputOptions & { readouts?: boo
       lines.push(`${t.label}  (${t.kind}, ${t.unit})`);
       const rs = r.readouts.filter((x) => x.trace === t.label);
       if (rs.length === 0) lines.push('  no readouts');
-      const width = Math.max(0, ...rs.map((x) => x.name.length));
-      for (const x of rs) lines.push(`  ${x.name.padEnd(width)}  ${readoutText(x)}`);
+      const width = Math.max(0, ...rs.map((x) => READOUT_NAMES[x.name].length));
+      for (const x of rs) lines.push(`  ${READOUT_NAMES[x.name].padEnd(width)}  ${readoutText(x)}`);
     }
   }
   if (r.requirements.length > 0) {

@@ -15,8 +15,11 @@
  *   `center` (√(low·high) for band-pass, the deepest point for band-stop) and
  *   `q` = center / bandwidth.
  * - `low-frequency-gain` is the passband level of the low end in dB.
- * - `peak` is the highest point in dB above the passband level (0 without peaking); for a
- *   band-pass response, the peak gain itself. `peak-frequency` only where there is a peak.
+ * - `peak` is the highest point of the sweep (refined exactly) in dB above a level that
+ *   depends on the shape: above the low-frequency level for low-pass, band-stop and flat
+ *   responses, above the high-frequency level for high-pass ones, 0 when nothing rises above
+ *   it; for a band-pass response it is the peak gain itself. Where there is an interior
+ *   peak it carries its frequency as `at`, and `peak-frequency` gives that frequency too.
  * - `rolloff` is the change in dB over the last decade of the sweep (an exact solve a
  *   decade below its end).
  * - Loops get the readouts above and `crossover` where |T| falls through 1, `phase-margin` = 180° + ∠T there (in
@@ -24,7 +27,7 @@
  *   `gain-margin` = −|T| in dB there, +∞ when the phase never gets there in the sweep.
  * - Impedance traces: `min-impedance` with `at`, and the shape readouts above.
  */
-import type { Readout } from './result.js';
+import type { Readout, ReadoutId } from './result.js';
 import type { AcAnalysis, PointValues, TraceData } from './analysis.js';
 import { phaseNear } from './analysis.js';
 import { brent } from './roots.js';
@@ -161,7 +164,7 @@ function finiteIndices(db: Float64Array): number[] {
   return out;
 }
 
-const readout = (trace: string, name: string, value: number, unit: string, at: number | null = null): Readout => ({ trace, name, value, unit, at });
+const readout = (trace: string, name: ReadoutId, value: number, unit: string, at: number | null = null): Readout => ({ trace, name, value, unit, at });
 
 /** Every readout of a trace, by its kind. */
 export function computeReadouts(analysis: AcAnalysis, trace: TraceData): TraceReadouts {
@@ -321,10 +324,14 @@ function shapeReadouts(view: TraceView, idx: number[], info: ShapeInfo, label: s
     default:
       break;
   }
+  const peakAt = interiorMax && Number.isFinite(peakF) ? peakF : null;
   if (withPeak) {
     const level = info.shape === 'high-pass' ? info.highDb : info.lowDb;
-    if (info.shape === 'band-pass') out.push(readout(label, 'peak', peakDb, 'dB'));
-    else if (info.shape !== 'unknown') out.push(readout(label, 'peak', Math.max(0, peakDb - level), 'dB'));
+    if (info.shape === 'band-pass') out.push(readout(label, 'peak', peakDb, 'dB', peakAt));
+    else if (info.shape !== 'unknown') {
+      const above = peakDb - level;
+      out.push(above > 0 ? readout(label, 'peak', above, 'dB', peakAt) : readout(label, 'peak', 0, 'dB'));
+    }
   }
   if (interiorMax && Number.isFinite(peakF)) out.push(readout(label, 'peak-frequency', peakF, 'Hz'));
   return out;

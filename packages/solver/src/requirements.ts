@@ -4,7 +4,8 @@
  * the one `at` frequency); single-number measures compare the trace's readout.
  */
 import type { Circuit, Measure, RequirementSpec } from './circuit.js';
-import type { Diagnostic, Readout, RequirementResult } from './result.js';
+import type { Diagnostic, Readout, ReadoutId, RequirementResult } from './result.js';
+import { MEASURES } from './vocabulary.js';
 import type { AcAnalysis, TraceData } from './analysis.js';
 import { groupDelayOf } from './analysis.js';
 import { TraceView, stabilityReadouts } from './readouts.js';
@@ -14,25 +15,12 @@ import type { TraceReadouts } from './readouts.js';
 const DEFAULT_RELATIVE_TOLERANCE = 1e-6;
 
 const POINTWISE = new Set<Measure>(['gain', 'phase', 'delay', 'magnitude']);
-const READOUT_OF: Partial<Record<Measure, string>> = {
+const READOUT_OF: Partial<Record<Measure, ReadoutId>> = {
   corner: 'corner',
   peak: 'peak',
   crossover: 'crossover',
   'phase-margin': 'phase-margin',
   'gain-margin': 'gain-margin',
-};
-const UNIT_OF: Record<Measure, string> = {
-  gain: 'dB',
-  phase: 'deg',
-  delay: 's',
-  magnitude: '',
-  corner: 'Hz',
-  peak: 'dB',
-  crossover: 'Hz',
-  'phase-margin': 'deg',
-  'gain-margin': 'dB',
-  settling: 's',
-  overshoot: '%',
 };
 
 /** Every requirement's result, in the order written, and warnings for what cannot be checked. */
@@ -62,26 +50,70 @@ export function checkRequirements(
 
 type Outcome = { result: RequirementResult; warning?: string };
 
+/** What was measured: the worst value (and where), or why nothing could be. */
+type Measured = { value: number; worstAt: number | null } | { notApplicable: string };
+
 function checkOne(circuit: Circuit, req: RequirementSpec, analysis: AcAnalysis | null, readouts: TraceReadouts[]): Outcome {
-  const outcome = checkMeasure(circuit, req, analysis, readouts);
-  const traceUnit = circuit.traces[req.trace]?.unit ?? '';
-  outcome.result.unit = req.measure === 'magnitude' ? traceUnit : UNIT_OF[req.measure];
-  return outcome;
+  const base = structure(circuit, req, analysis);
+  const measured = measure(circuit, req, base.band, analysis, readouts);
+  if ('notApplicable' in measured) {
+    return { result: { ...base, status: 'not-applicable', measured: NaN, worstAt: null }, warning: measured.notApplicable };
+  }
+  const status = passes(base.band, measured.value) ? 'pass' : 'fail';
+  return { result: { ...base, status, measured: measured.value, worstAt: measured.worstAt } };
 }
 
-function checkMeasure(circuit: Circuit, req: RequirementSpec, analysis: AcAnalysis | null, readouts: TraceReadouts[]): Outcome {
-  const unavailable = (why: string): Outcome => ({
-    result: { line: req.range.line, text: req.text, pass: false, measured: NaN, worstAt: null, status: 'not-available' },
-    warning: why,
-  });
+/** The requirement as read: its trace, measure, limit, band, range and unit. */
+function structure(circuit: Circuit, req: RequirementSpec, analysis: AcAnalysis | null): Omit<RequirementResult, 'status' | 'measured' | 'worstAt'> {
+  const trace = circuit.traces[req.trace];
+  const grid = analysis?.frequencies;
+  const sweepEnd = (k: number): number => (grid && grid.length > 0 ? grid[k < 0 ? grid.length - 1 : k] : NaN);
+  const pointwise = POINTWISE.has(req.measure) && req.at === undefined;
+  return {
+    line: req.range.line,
+    text: req.text,
+    trace: trace?.label ?? '',
+    measure: req.measure,
+    op: req.op,
+    limit: req.value,
+    tolerance: req.tolerance ? (req.tolerance.relative ? { relative: req.tolerance.amount } : { absolute: req.tolerance.amount }) : null,
+    band: bandOf(req),
+    over: pointwise ? { from: req.over?.from ?? sweepEnd(0), to: req.over?.to ?? sweepEnd(-1) } : null,
+    at: req.at ?? null,
+    unit: req.measure === 'magnitude' ? (trace?.unit ?? '') : MEASURES[req.measure],
+  };
+}
+
+/** The values that pass; the check compares with exactly these bounds. */
+function bandOf(req: RequirementSpec): RequirementResult['band'] {
+  switch (req.op) {
+    case '>=':
+      return { low: req.value, high: null };
+    case '<=':
+      return { low: null, high: req.value };
+    case '=': {
+      const relative = req.tolerance ? (req.tolerance.relative ? req.tolerance.amount : null) : DEFAULT_RELATIVE_TOLERANCE;
+      const half = relative === null ? req.tolerance!.amount : relative * Math.abs(req.value);
+      return { low: req.value - half, high: req.value + half };
+    }
+  }
+}
+
+function passes(band: RequirementResult['band'], m: number): boolean {
+  if (Number.isNaN(m)) return false;
+  return (band.low === null || m >= band.low) && (band.high === null || m <= band.high);
+}
+
+function measure(circuit: Circuit, req: RequirementSpec, band: RequirementResult['band'], analysis: AcAnalysis | null, readouts: TraceReadouts[]): Measured {
+  const notApplicable = (why: string): Measured => ({ notApplicable: `${why}; this requirement is not checked` });
   if (req.measure === 'settling' || req.measure === 'overshoot') {
-    return unavailable(`${req.measure} needs the step response, which is not computed yet; this requirement is not checked`);
+    return notApplicable(`${req.measure} needs the step response, which is not computed yet`);
   }
   const spec = circuit.traces[req.trace];
-  if (!spec) return unavailable('this requirement names a trace that does not exist');
+  if (!spec) return notApplicable('this requirement names a trace that does not exist');
   const trace = analysis?.traces.find((t) => t.plan.specIndex === req.trace);
-  if (!analysis || !trace) return unavailable(`the trace ${spec.label} has no AC result, so this requirement is not checked`);
-  if (POINTWISE.has(req.measure)) return pointwise(req, analysis, trace);
+  if (!analysis || !trace) return notApplicable(`the trace ${spec.label} has no AC result`);
+  if (POINTWISE.has(req.measure)) return pointwise(req, band, analysis, trace);
 
   const name = READOUT_OF[req.measure]!;
   let found: Readout | undefined = readouts.find((r) => r.trace === trace)?.readouts.find((r) => r.name === name);
@@ -90,32 +122,13 @@ function checkMeasure(circuit: Circuit, req: RequirementSpec, analysis: AcAnalys
   }
   if (!found) {
     const shape = readouts.find((r) => r.trace === trace)?.shape;
-    const why =
+    return notApplicable(
       req.measure === 'corner' && (shape === 'band-pass' || shape === 'band-stop')
-        ? `${spec.label} is ${shape}: it has corner-low and corner-high, not one corner`
-        : `${spec.label} has no ${name} in the sweep`;
-    return unavailable(`${why}; this requirement is not checked`);
+        ? `${spec.label} is ${shape}: it has a lower and an upper corner, not one corner`
+        : `${spec.label} has no ${req.measure} in the sweep`,
+    );
   }
-  const pass = compare(req, found.value);
-  return { result: { line: req.range.line, text: req.text, pass, measured: found.value, worstAt: null, status: pass ? 'pass' : 'fail' } };
-}
-
-function compare(req: RequirementSpec, m: number): boolean {
-  if (Number.isNaN(m)) return false;
-  switch (req.op) {
-    case '>=':
-      return m >= req.value;
-    case '<=':
-      return m <= req.value;
-    case '=': {
-      const tol = req.tolerance
-        ? req.tolerance.relative
-          ? req.tolerance.amount * Math.abs(req.value)
-          : req.tolerance.amount
-        : DEFAULT_RELATIVE_TOLERANCE * Math.abs(req.value);
-      return Math.abs(m - req.value) <= tol;
-    }
-  }
+  return { value: found.value, worstAt: null };
 }
 
 /** How bad a measured value is for this requirement: larger is worse. */
@@ -131,7 +144,7 @@ function badness(req: RequirementSpec, m: number): number {
   }
 }
 
-function pointwise(req: RequirementSpec, analysis: AcAnalysis, trace: TraceData): Outcome {
+function pointwise(req: RequirementSpec, band: RequirementResult['band'], analysis: AcAnalysis, trace: TraceData): Measured {
   const view = new TraceView(analysis, trace);
   const grid = analysis.frequencies;
   const points: { f: number; m: number }[] = [];
@@ -167,23 +180,19 @@ function pointwise(req: RequirementSpec, analysis: AcAnalysis, trace: TraceData)
   } else {
     const from = req.over?.from ?? grid[0];
     const to = req.over?.to ?? grid[grid.length - 1];
-    if (!(from <= to)) {
-      return {
-        result: { line: req.range.line, text: req.text, pass: false, measured: NaN, worstAt: null, status: 'not-available' },
-        warning: 'the range of this requirement is empty; it is not checked',
-      };
-    }
+    if (!(from <= to)) return { notApplicable: 'the range of this requirement is empty; it is not checked' };
     points.push({ f: from, m: measureExact(from) });
     for (let k = 0; k < grid.length; k++) {
       if (grid[k] > from && grid[k] < to) points.push({ f: grid[k], m: measureGrid(k) });
     }
     if (to !== from) points.push({ f: to, m: measureExact(to) });
   }
+  // The worst point decides the status, so a failing point always comes before a passing one.
+  const worse = (a: { m: number }, b: { m: number }): boolean => {
+    const fa = !passes(band, a.m);
+    return fa !== !passes(band, b.m) ? fa : badness(req, a.m) > badness(req, b.m);
+  };
   let worst = points[0];
-  let pass = true;
-  for (const p of points) {
-    if (!compare(req, p.m)) pass = false;
-    if (badness(req, p.m) > badness(req, worst.m)) worst = p;
-  }
-  return { result: { line: req.range.line, text: req.text, pass, measured: worst.m, worstAt: worst.f, status: pass ? 'pass' : 'fail' } };
+  for (const p of points) if (worse(p, worst)) worst = p;
+  return { value: worst.m, worstAt: worst.f };
 }

@@ -1,10 +1,14 @@
 /**
  * What `analyze()` returns: plain data that every screen draws from. The shape follows
  * the solver contract; arrays of numbers may be typed arrays inside the library, and the
- * command line turns them into plain JSON (non-finite values become null).
+ * command line turns them into plain JSON (non-finite values become null). Readouts and
+ * requirement results carry everything a screen needs to draw them (ids, units, limits,
+ * frequencies), so no screen reads the cell's text again.
  */
+import type { Measure } from './circuit.js';
 
-export type Severity = 'error' | 'warning';
+/** `info`: nothing is wrong with the cell, but a person should know (a caution, code `hazardous-voltage`). */
+export type Severity = 'error' | 'warning' | 'info';
 
 /** A quick fix: replace the text in `range` (same line) with `replacement`. */
 export interface QuickFix {
@@ -45,30 +49,99 @@ export interface TraceResult {
   groupDelay: NumberArray;
 }
 
+/** The stable ids of readouts (kept in JSON); `READOUT_NAMES` says how each reads on screen. */
+export type ReadoutId =
+  | 'low-frequency-gain'
+  | 'corner'
+  | 'corner-low'
+  | 'corner-high'
+  | 'bandwidth'
+  | 'center'
+  | 'q'
+  | 'peak'
+  | 'peak-frequency'
+  | 'rolloff'
+  | 'crossover'
+  | 'phase-margin'
+  | 'phase-crossover'
+  | 'gain-margin'
+  | 'min-impedance';
+
+/**
+ * The one name of each readout wherever a person reads it: the readouts panel, the plot's
+ * markers, the command line's text output.
+ */
+export const READOUT_NAMES: Readonly<Record<ReadoutId, string>> = {
+  'low-frequency-gain': 'low-frequency gain',
+  corner: 'corner',
+  'corner-low': 'lower corner',
+  'corner-high': 'upper corner',
+  bandwidth: 'bandwidth',
+  center: 'centre',
+  q: 'Q',
+  peak: 'peak',
+  'peak-frequency': 'peak frequency',
+  rolloff: 'roll-off',
+  crossover: 'crossover',
+  'phase-margin': 'phase margin',
+  'phase-crossover': 'phase crossover',
+  'gain-margin': 'gain margin',
+  'min-impedance': 'minimum impedance',
+};
+
 export interface Readout {
+  /** The trace's label, as in `TraceResult.label`. */
   trace: string;
-  name: string;
+  name: ReadoutId;
   value: number;
   unit: string;
-  /** Hz where a readout belongs to a frequency (min-impedance), else null. */
+  /**
+   * Hz where a value that is not itself a frequency was found: `peak` (where there is one),
+   * `phase-margin` (at the crossover), `gain-margin` (at the phase crossover),
+   * `min-impedance`. Null otherwise.
+   */
   at: number | null;
 }
 
+/** `not-applicable`: the requirement could not be checked (a warning says why). */
+export type RequirementStatus = 'pass' | 'fail' | 'not-applicable';
+
+/** How a requirement's status reads everywhere: screens, badges, the command line. */
+export const STATUS_WORDS: Readonly<Record<RequirementStatus, string>> = { pass: 'pass', fail: 'fail', 'not-applicable': 'n/a' };
+
+/** A `require` line as the solver read it and checked it. */
 export interface RequirementResult {
   line: number;
+  /** The line as written, trimmed and without its comment. */
   text: string;
-  pass: boolean;
-  /** The worst measured value (or the value of a single-number measure). */
+  status: RequirementStatus;
+  /** The label of the trace it reads, as in `TraceResult.label`. */
+  trace: string;
+  measure: Measure;
+  op: '>=' | '<=' | '=';
+  /** The limit (the centre of an `=` band), evaluated, in `unit`. */
+  limit: number;
+  /** As written after `±`: a fraction of the limit (0.02 for 2 %) or an amount in `unit`. */
+  tolerance: { relative: number } | { absolute: number } | null;
+  /**
+   * The values that pass, in `unit`, exactly as the check compares them: `[limit, ∞)` for
+   * `>=`, `(−∞, limit]` for `<=`, limit ± tolerance for `=` (± 1e-6 of the limit when no
+   * tolerance is written). An open side is null.
+   */
+  band: { low: number | null; high: number | null };
+  /**
+   * The frequencies (Hz) a pointwise measure is checked over, open ends resolved to the
+   * sweep's; null for single-number measures and for `at`.
+   */
+  over: { from: number; to: number } | null;
+  /** The one frequency (Hz) of `require … at F`, else null. */
+  at: number | null;
+  /** Unit of `limit`, `band` and `measured`: "dB", "deg", "s", "Hz", "%", or the trace's unit for `magnitude`. */
+  unit: string;
+  /** The worst measured value (or the value of a single-number measure); NaN when not applicable. */
   measured: number;
   /** Hz where the worst value was found; null for single-number measures. */
   worstAt: number | null;
-  /**
-   * `not-available` when the requirement could not be checked (its measure is not computed
-   * yet, or the trace has no such readout in the sweep); `pass` is then false.
-   */
-  status?: 'pass' | 'fail' | 'not-available';
-  /** Unit of `measured`: "dB", "deg", "s", "Hz", or the trace's unit for `magnitude`. */
-  unit?: string;
 }
 
 export interface StepResult {

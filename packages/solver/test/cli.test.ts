@@ -39,8 +39,11 @@ describe('rolloff CLI', { timeout: 60_000 }, () => {
   it('solve prints readouts and requirement results and exits 0 when everything passes', () => {
     const r = rolloff(['solve', file('good.cell', GOOD)]);
     expect(r.code).toBe(0);
-    expect(r.stdout).toContain('corner');
-    expect(r.stdout).toContain('PASS');
+    // Readouts by their screen names, requirement results in the screens' words.
+    expect(r.stdout).toMatch(/^ {2}corner {2,}\d/m);
+    expect(r.stdout).toMatch(/^ {2}low-frequency gain {2}/m);
+    expect(r.stdout).not.toContain('low-frequency-gain');
+    expect(r.stdout).toMatch(/^ {2}pass {2}line 9: /m);
   });
 
   it('--json prints one object of the contract: plain arrays, non-finite numbers as null', () => {
@@ -56,7 +59,22 @@ describe('rolloff CLI', { timeout: 60_000 }, () => {
     expect(zin.magnitude[0]).toBeCloseTo(1000, 9);
     const out = j.traces.find((t: { label: string }) => t.label === 'out');
     expect(out.magnitudeDb[0]).toBeCloseTo(0, 12);
-    expect(j.requirements[0]).toMatchObject({ line: 9, pass: true, worstAt: expect.any(Number) });
+    expect(j.requirements[0]).toMatchObject({
+      line: 9,
+      status: 'pass',
+      trace: 'out',
+      measure: 'gain',
+      op: '<=',
+      limit: 0.1,
+      tolerance: null,
+      band: { low: null, high: 0.1 },
+      over: { from: 0, to: 1000 },
+      at: null,
+      unit: 'dB',
+      worstAt: expect.any(Number),
+    });
+    // JSON keeps the stable ids.
+    expect(j.readouts.map((x: { name: string }) => x.name)).toContain('low-frequency-gain');
     expect(j.readouts.every((x: { at: unknown }) => x.at === null || typeof x.at === 'number')).toBe(true);
   });
 
@@ -68,11 +86,11 @@ describe('rolloff CLI', { timeout: 60_000 }, () => {
     expect(j.traces[0].magnitude[0]).toBe(0);
   });
 
-  it('--csv prints one row per frequency with LABEL_mag_db, LABEL_phase_deg and LABEL_mag for impedances', () => {
+  it('--csv prints one row per frequency, headed in the screens\' words: gain and phase, and magnitude for impedances', () => {
     const r = rolloff(['solve', file('good.cell', GOOD), '--csv']);
     expect(r.code).toBe(0);
     const lines = r.stdout.trim().split('\n');
-    expect(lines[0]).toBe('frequency_hz,out_mag_db,out_phase_deg,zin_mag_db,zin_phase_deg,zin_mag');
+    expect(lines[0]).toBe('frequency (Hz),out · gain (dB),out · phase (°),zin · magnitude (dBΩ),zin · phase (°),zin · magnitude (Ω)');
     expect(lines).toHaveLength(6);
     expect(lines[1].split(',')[0]).toBe('0');
     const hp = rolloff(['solve', '-', '--csv'], 'drive in\nC1 [in out] 1u\nR1 [out gnd] 1k\nshow out\nsweep 0 .. 100, 2 linear\n');
@@ -82,7 +100,7 @@ describe('rolloff CLI', { timeout: 60_000 }, () => {
 
   it('--trace LABEL keeps one trace; an unknown label is a bad argument (3)', () => {
     const r = rolloff(['solve', file('good.cell', GOOD), '--csv', '--trace', 'zin']);
-    expect(r.stdout.split('\n')[0]).toBe('frequency_hz,zin_mag_db,zin_phase_deg,zin_mag');
+    expect(r.stdout.split('\n')[0]).toBe('frequency (Hz),zin · magnitude (dBΩ),zin · phase (°),zin · magnitude (Ω)');
     const bad = rolloff(['solve', file('good.cell', GOOD), '--trace', 'nope']);
     expect(bad.code).toBe(3);
     expect(bad.stderr).toContain('"zin"');
@@ -91,7 +109,7 @@ describe('rolloff CLI', { timeout: 60_000 }, () => {
   it('check exits 1 when a requirement fails and prints the result', () => {
     const r = rolloff(['check', file('fail.cell', GOOD.replace('<= 0.1 dB', '<= -1 dB'))]);
     expect(r.code).toBe(1);
-    expect(r.stdout).toMatch(/^FAIL {2}line 9: require out gain <= -1 dB over 0 \.\. 1k/);
+    expect(r.stdout).toMatch(/^fail {2}line 9: require out gain <= -1 dB over 0 \.\. 1k/);
   });
 
   it('errors in the cell exit 2, each on stderr as FILE:LINE:COL: error: MESSAGE', () => {
@@ -105,6 +123,13 @@ describe('rolloff CLI', { timeout: 60_000 }, () => {
     const stdin = rolloff(['solve', '-'], 'R1 [a b]\n');
     expect(stdin.code).toBe(2);
     expect(stdin.stderr).toMatch(/^<stdin>:1:\d+: error: /m);
+  });
+
+  it('a caution is printed as info with its advice, and changes no exit status', () => {
+    const r = rolloff(['check', '-'], 'drive in 230\nR1 [in out] 1k\nC1 [out gnd] 1u\nshow out\n');
+    expect(r.code).toBe(0);
+    expect(r.stderr).toMatch(/^<stdin>:1:1: info: this cell looks like a circuit at mains or another hazardous voltage: its drive is 230 V/m);
+    expect(r.stderr).toMatch(/^<stdin>:1:1: note: .*licensed practice/m);
   });
 
   it('bad arguments and unreadable input exit 3', () => {

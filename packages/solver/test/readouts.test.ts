@@ -93,6 +93,26 @@ describe('readouts', () => {
     expect(rel(m.at!, 1 / (2 * Math.PI * Math.sqrt(10e-3 * 1e-6)))).toBeLessThan(1e-9);
   });
 
+  it('a peak and the margins carry the frequency they are found at; values that are frequencies do not [RLC-1h/i; OA-PM]', () => {
+    // Series RLC, V_C/V_in: the peak of 1/|1 − ω²LC + jωRC| lies at f₀·√(1 − 1/(2Q²)), Q = 10 [DER].
+    const f0 = 1 / (2 * Math.PI * Math.sqrt(10e-3 * 1e-6));
+    const r = run('drive in\nR1 [in a] 10\nL1 [a b] 10m\nC1 [b gnd] 1u\nshow "vc" b\nsweep 100 .. 100k');
+    const peak = readout(r, 'vc', 'peak');
+    expect(rel(peak.at!, f0 * Math.sqrt(1 - 1 / 200))).toBeLessThan(1e-9);
+    expect(peak.at).toBe(readout(r, 'vc', 'peak-frequency').value);
+    expect(readout(r, 'vc', 'corner').at).toBeNull();
+    // Three buffered RC poles behind a gain of 1000: a crossover and a phase crossover in the sweep.
+    const loop = run('drive in\nA1 [a gnd in gnd] vgain 1000\nR1 [a b] 1k\nC1 [b gnd] 1u\nA2 [c gnd b gnd] vgain 1\nR2 [c d] 1k\nC2 [d gnd] 1u\nA3 [e gnd d gnd] vgain 1\nR3 [e f] 1k\nC3 [f gnd] 1u\nshow loop f\nsweep 1 .. 100k');
+    const label = loop.traces[0].label;
+    expect(readout(loop, label, 'phase-margin').at).toBe(readout(loop, label, 'crossover').value);
+    expect(readout(loop, label, 'gain-margin').at).toBe(readout(loop, label, 'phase-crossover').value);
+  });
+
+  it('a response without peaking has a peak of 0 dB found at no frequency', () => {
+    const r = run('drive in\nR1 [in out] 2.2k\nC1 [out gnd] 470n\nshow out\nsweep 10 .. 100k');
+    expect(readout(r, 'out', 'peak')).toMatchObject({ value: 0, at: null });
+  });
+
   it('corners are found by root-finding, not read off a coarse grid [RC1-b]', () => {
     const r = run('drive in\nR1 [in out] 2.2k\nC1 [out gnd] 470n\nshow out\nsweep 1 .. 1M, 2/decade');
     expect(rel(readout(r, 'out', 'corner').value, 1 / (2 * Math.PI * 2.2e3 * 470e-9))).toBeLessThan(1e-10);
