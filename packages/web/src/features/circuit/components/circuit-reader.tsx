@@ -6,7 +6,7 @@
 import type { ReactNode } from 'react';
 import { useMemo } from 'react';
 import type { PlotPick, PlotPin } from '../plot/plot-pins';
-import { hazardReasons } from '../lib/hazard';
+import { cautionsOf, problemsOf } from '../lib/cautions';
 import { useAnalysis } from '../worker/use-analysis';
 import { DiagnosticsList } from './diagnostics-list';
 import { HazardCaution, SmallSignalNote } from './hazard-caution';
@@ -36,12 +36,12 @@ export function CircuitReader({ cellKey, text, label, filename, pins, onPick, fo
   const result = outcome?.ok ? outcome.result : null;
   const series = useMemo(() => (result ? [{ result }] : []), [result]);
   const traces = useMemo(() => (result ? result.traces.filter((t) => t.kind !== 'noise').map((t) => t.label) : NO_TRACES), [result]);
-  const reasons = useMemo(() => hazardReasons(text), [text]);
+  const cautions = useMemo(() => cautionsOf(result?.diagnostics ?? []), [result]);
   const diagnostics = useMemo(() => (outcome?.ok ? { text: outcome.text, items: outcome.result.diagnostics } : null), [outcome]);
 
   return (
     <div className="space-y-3" data-testid="circuit-reader">
-      <HazardCaution reasons={reasons} />
+      <HazardCaution cautions={cautions} />
       {outcome && !outcome.ok ? (
         <p role="alert" className="rounded-lg border border-fail bg-fail-soft p-3 text-sm text-fail">
           The solver could not run this cell: {outcome.message}
@@ -57,14 +57,14 @@ export function CircuitReader({ cellKey, text, label, filename, pins, onPick, fo
           {result ? (
             <>
               <ReadoutsPanel readouts={result.readouts} />
-              <RequirementBadges requirements={result.requirements} traces={result.traces} />
+              <RequirementBadges requirements={result.requirements} />
             </>
           ) : null}
           <SmallSignalNote />
         </div>
         <div className="min-w-0 space-y-2">
           <LazyCircuitEditor value={text} diagnostics={diagnostics} readOnly label={label} />
-          {result ? <DiagnosticsList diagnostics={result.diagnostics} /> : null}
+          {result ? <DiagnosticsList diagnostics={problemsOf(result.diagnostics)} /> : null}
         </div>
       </div>
       {footer ? footer(traces) : null}

@@ -7,7 +7,7 @@
 import type { Result } from '@rolloff/solver';
 import { useMemo, useRef } from 'react';
 import type { PlotPin } from '../plot/plot-pins';
-import { hazardReasons } from '../lib/hazard';
+import { cautionsOf, problemsOf } from '../lib/cautions';
 import { useAnalysis } from '../worker/use-analysis';
 import { DiagnosticsList } from './diagnostics-list';
 import { HazardCaution, SmallSignalNote } from './hazard-caution';
@@ -44,14 +44,15 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
   const shown = result && !hasErrors(result) ? result : lastGood.current;
   const stale = shown !== null && shown !== result;
   const series = useMemo(() => (shown ? [{ result: shown }] : []), [shown]);
-  const reasons = useMemo(() => hazardReasons(text), [text]);
+  // While the text has errors, the cautions of the last result that solved stay, like its plots.
+  const cautions = useMemo(() => cautionsOf((result && !hasErrors(result) ? result : (shown ?? result))?.diagnostics ?? []), [result, shown]);
   const diagnostics = useMemo(() => (outcome?.ok ? { text: outcome.text, items: outcome.result.diagnostics } : null), [outcome]);
 
   return (
     <div className="grid gap-4 lg:grid-cols-2" data-testid="circuit-workbench" data-busy={busy}>
       <div className="min-w-0 space-y-2">
         <LazyCircuitEditor value={text} onChange={onChange} diagnostics={diagnostics} readOnly={readOnly} label={label} onLeave={onLeave} autoFocus={autoFocus} />
-        {result ? <DiagnosticsList diagnostics={result.diagnostics} /> : null}
+        {result ? <DiagnosticsList diagnostics={problemsOf(result.diagnostics)} /> : null}
         <p className="text-xs text-ink-faint">
           <a href={helpHref} target="_blank" rel="noreferrer" className="text-accent underline-offset-2 hover:underline">
             Cell language reference
@@ -61,7 +62,7 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
         </p>
       </div>
       <div className="min-w-0 space-y-3">
-        <HazardCaution reasons={reasons} />
+        <HazardCaution cautions={cautions} />
         {outcome && !outcome.ok ? (
           <p role="alert" className="rounded-lg border border-fail bg-fail-soft p-3 text-sm text-fail">
             The solver could not run this cell: {outcome.message}
@@ -74,7 +75,7 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
         {shown ? (
           <>
             <ReadoutsPanel readouts={shown.readouts} stale={stale} />
-            <RequirementBadges requirements={shown.requirements} traces={shown.traces} stale={stale} />
+            <RequirementBadges requirements={shown.requirements} stale={stale} />
           </>
         ) : null}
         <SmallSignalNote />

@@ -17,7 +17,7 @@ export function ExamplePlot({ text, filename }: { text: string; filename: string
     <div className="space-y-3">
       <LazyCircuitPlots series={series} filename={filename} compact />
       <ReadoutsPanel readouts={result.readouts} />
-      <RequirementBadges requirements={result.requirements} traces={result.traces} />
+      <RequirementBadges requirements={result.requirements} />
     </div>
   );
 }

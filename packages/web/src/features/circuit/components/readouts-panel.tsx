@@ -1,5 +1,6 @@
+import { READOUT_NAMES } from '@rolloff/solver';
 import type { Readout } from '@rolloff/solver';
-import { formatReadout, readoutName } from '../lib/readout-labels';
+import { formatReadout } from '../lib/readout-labels';
 
 /**
  * Readouts worth a line: a "peak" too small to show at the panel's hundredth of a dB is the
@@ -26,7 +27,7 @@ export function ReadoutsPanel({ readouts: all, stale = false }: { readouts: read
               .filter((r) => r.trace === trace)
               .map((r) => (
                 <div key={r.name} className="contents" data-readout={r.name} data-trace={r.trace}>
-                  <dt className="text-ink-soft">{readoutName(r.name)}</dt>
+                  <dt className="text-ink-soft first-letter:uppercase">{READOUT_NAMES[r.name]}</dt>
                   <dd className="whitespace-nowrap font-mono tabular-nums text-ink" data-value={r.value}>
                     {formatReadout(r)}
                   </dd>

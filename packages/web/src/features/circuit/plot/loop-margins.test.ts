@@ -4,7 +4,7 @@ import type { Annotations } from 'plotly.js-basic-dist-min';
 import { describe, expect, it } from 'vitest';
 import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { bodeFigure, shapesOf } from '../../../test/plot-figures';
-import { gainMarginText, loopMarginMarks, marginReference, phaseMarginText } from './loop-margins';
+import { loopMarginMarks, marginReference, marginText } from './loop-margins';
 import type { Figure } from './result-figures';
 
 /**
@@ -38,11 +38,12 @@ sweep 10 .. 1M
 
 const bodeOf = (result: Result): Figure => bodeFigure([{ result }]);
 const annotationsOf = (figure: Figure) => (figure.layout.annotations ?? []) as Partial<Annotations>[];
-const readout = (result: Result, name: string) => {
+const readoutOf = (result: Result, name: string) => {
   const found = result.readouts.find((r) => r.name === name);
   if (!found) throw new Error(`no ${name} readout`);
-  return found.value;
+  return found;
 };
+const readout = (result: Result, name: string) => readoutOf(result, name).value;
 
 describe('loop margins on the Bode plot', () => {
   const follower = analyze(FOLLOWER_LOOP);
@@ -55,7 +56,9 @@ describe('loop margins on the Bode plot', () => {
   const phaseCrossover = readout(lags, 'phase-crossover');
   const gainMargin = readout(lags, 'gain-margin');
 
-  it('draws them from the solver’s readouts of the loops', () => {
+  it('draws them from the solver’s readouts of the loops, at the crossovers the margins carry', () => {
+    expect(readoutOf(follower, 'phase-margin').at).toBe(crossover);
+    expect(readoutOf(lags, 'gain-margin').at).toBe(phaseCrossover);
     for (const result of [follower, lags]) {
       expect(result.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
       expect(result.traces.map((t) => t.kind)).toEqual(['loop']);
@@ -75,7 +78,7 @@ describe('loop margins on the Bode plot', () => {
     expect(Number(bar?.y0)).toBe(-180);
     expect(Number(bar?.y1) - Number(bar?.y0)).toBeCloseTo(phaseMargin, 9);
     const label = annotationsOf(followerFigure).find((a) => String(a.text).startsWith('phase margin'));
-    expect(label).toMatchObject({ yref: 'y2', text: phaseMarginText(phaseMargin, crossover), showarrow: true });
+    expect(label).toMatchObject({ yref: 'y2', text: marginText(readoutOf(follower, 'phase-margin')), showarrow: true });
     expect(label?.text).toBe('phase margin 51.83° at 786.2 kHz');
     // On a log axis Plotly places annotations by the logarithm of the value.
     expect(label?.x).toBeCloseTo(Math.log10(crossover), 12);
@@ -86,7 +89,7 @@ describe('loop margins on the Bode plot', () => {
     const bar = shapesOf(lagsFigure).find((s) => s.yref === 'y' && s.x0 === phaseCrossover && s.x1 === phaseCrossover);
     expect(bar).toMatchObject({ y0: -gainMargin, y1: 0 });
     const label = annotationsOf(lagsFigure).find((a) => String(a.text).startsWith('gain margin'));
-    expect(label).toMatchObject({ yref: 'y', text: gainMarginText(gainMargin, phaseCrossover), y: -gainMargin });
+    expect(label).toMatchObject({ yref: 'y', text: marginText(readoutOf(lags, 'gain-margin')), y: -gainMargin });
     expect(label?.text).toMatch(/^gain margin 6\.02\d* dB at 2\.75\d* kHz$/);
     expect(label?.x).toBeCloseTo(Math.log10(phaseCrossover), 12);
   });

@@ -3,9 +3,10 @@
  * reads them at a glance: at the crossover a bar on the phase panel from −180° up to the
  * phase, labelled with the phase margin; at the phase crossover a bar on the magnitude
  * panel from |T| up to 0 dB, labelled with the gain margin; and the 0 dB and −180° lines
- * they are measured from. The values are the solver's readouts; nothing is recomputed here.
+ * they are measured from. The values, and the crossovers they are found at, are the solver's
+ * readouts; nothing is recomputed here.
  */
-import { formatSi } from '@rolloff/solver';
+import { READOUT_NAMES, formatSi } from '@rolloff/solver';
 import type { NumberArray, Readout, TraceResult } from '@rolloff/solver';
 import type { Annotations, Shape } from 'plotly.js-basic-dist-min';
 import { valueAtFrequency } from './trace-at';
@@ -20,18 +21,14 @@ export function marginReference(phase: number, margin: number): number {
   return Math.round((phase - margin + 180) / 360) * 360 - 180;
 }
 
-/** "phase margin 84.37° at 27.32 kHz". */
-export function phaseMarginText(margin: number, crossover: number): string {
-  return `phase margin ${formatSi(margin, 'deg')} at ${formatSi(crossover, 'Hz')}`;
+/** "phase margin 84.37° at 27.32 kHz", "gain margin 6.02 dB at 2.757 kHz": a margin at the frequency it was found. */
+export function marginText(margin: Readout): string {
+  if (margin.at === null || !Number.isFinite(margin.value)) return `${READOUT_NAMES[margin.name]} ∞: the phase never reaches −180° in the sweep`;
+  return `${READOUT_NAMES[margin.name]} ${formatSi(margin.value, margin.unit)} at ${formatSi(margin.at, 'Hz')}`;
 }
 
-/** "gain margin 6.02 dB at 2.757 kHz", or why there is none to draw. */
-export function gainMarginText(margin: number, phaseCrossover: number | null): string {
-  if (phaseCrossover === null || !Number.isFinite(margin)) return 'gain margin ∞: the phase never reaches −180° in the sweep';
-  return `gain margin ${formatSi(margin, 'dB')} at ${formatSi(phaseCrossover, 'Hz')}`;
-}
-
-const finite = (readout: Readout | undefined) => (readout && Number.isFinite(readout.value) ? readout : undefined);
+/** A margin found at a frequency inside the plot. */
+const placed = (readout: Readout | undefined) => (readout && Number.isFinite(readout.value) && readout.at !== null && readout.at > 0 ? { readout, at: readout.at } : undefined);
 
 /**
  * The margin marks of one loop trace (none for other kinds). Annotations on a log axis are
@@ -61,24 +58,24 @@ export function loopMarginMarks(trace: TraceResult, readouts: readonly Readout[]
   // A label near the right end of the axis points leftwards, so it stays inside the plot.
   const arrowX = (frequency: number) => (Math.log(frequency / first) / Math.log(last / first) > 0.7 ? -40 : 40);
 
-  const crossover = finite(find('crossover'));
-  const phaseMargin = finite(find('phase-margin'));
-  if (crossover && phaseMargin && crossover.value > 0) {
-    const phase = valueAtFrequency(frequencies, trace.phaseDeg, crossover.value);
+  const phaseMargin = placed(find('phase-margin'));
+  if (phaseMargin) {
+    const { readout: margin, at } = phaseMargin;
+    const phase = valueAtFrequency(frequencies, trace.phaseDeg, at);
     if (phase !== null) {
-      const base = marginReference(phase, phaseMargin.value);
+      const base = marginReference(phase, margin.value);
       shapes.push(reference('y2', base));
-      shapes.push({ type: 'line', xref: 'x', yref: 'y2', x0: crossover.value, x1: crossover.value, y0: base, y1: base + phaseMargin.value, line: { color: colour, width: 3 } });
+      shapes.push({ type: 'line', xref: 'x', yref: 'y2', x0: at, x1: at, y0: base, y1: base + margin.value, line: { color: colour, width: 3 } });
       annotations.push({
         xref: 'x',
         yref: 'y2',
-        x: Math.log10(crossover.value),
-        y: base + phaseMargin.value,
-        text: phaseMarginText(phaseMargin.value, crossover.value),
+        x: Math.log10(at),
+        y: base + margin.value,
+        text: marginText(margin),
         showarrow: true,
         arrowhead: 0,
         arrowcolor: colour,
-        ax: arrowX(crossover.value),
+        ax: arrowX(at),
         ay: -24,
         font,
         bgcolor: panel,
@@ -86,27 +83,28 @@ export function loopMarginMarks(trace: TraceResult, readouts: readonly Readout[]
     }
   }
 
-  if (crossover || find('gain-margin')) shapes.push(reference('y', 0));
-  const phaseCrossover = finite(find('phase-crossover'));
   const gainMargin = find('gain-margin');
-  if (gainMargin && phaseCrossover && Number.isFinite(gainMargin.value) && phaseCrossover.value > 0) {
-    shapes.push({ type: 'line', xref: 'x', yref: 'y', x0: phaseCrossover.value, x1: phaseCrossover.value, y0: -gainMargin.value, y1: 0, line: { color: colour, width: 3 } });
+  if (phaseMargin || gainMargin) shapes.push(reference('y', 0));
+  const gainBar = placed(gainMargin);
+  if (gainBar) {
+    const { readout: margin, at } = gainBar;
+    shapes.push({ type: 'line', xref: 'x', yref: 'y', x0: at, x1: at, y0: -margin.value, y1: 0, line: { color: colour, width: 3 } });
     annotations.push({
       xref: 'x',
       yref: 'y',
-      x: Math.log10(phaseCrossover.value),
-      y: -gainMargin.value,
-      text: gainMarginText(gainMargin.value, phaseCrossover.value),
+      x: Math.log10(at),
+      y: -margin.value,
+      text: marginText(margin),
       showarrow: true,
       arrowhead: 0,
       arrowcolor: colour,
-      ax: arrowX(phaseCrossover.value),
+      ax: arrowX(at),
       ay: 24,
       font,
       bgcolor: panel,
     });
   } else if (gainMargin && !Number.isFinite(gainMargin.value)) {
-    annotations.push({ xref: 'paper', yref: 'y domain', x: 1, y: 0.04, xanchor: 'right', yanchor: 'bottom', showarrow: false, text: gainMarginText(gainMargin.value, null), font, bgcolor: panel });
+    annotations.push({ xref: 'paper', yref: 'y domain', x: 1, y: 0.04, xanchor: 'right', yanchor: 'bottom', showarrow: false, text: marginText(gainMargin), font, bgcolor: panel });
   }
   return { shapes, annotations };
 }

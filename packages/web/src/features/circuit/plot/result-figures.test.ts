@@ -1,5 +1,5 @@
-import { analyze, formatSi } from '@rolloff/solver';
-import type { Result } from '@rolloff/solver';
+import { READOUT_NAMES, analyze, formatSi } from '@rolloff/solver';
+import type { RequirementResult, Result } from '@rolloff/solver';
 import { describe, expect, it } from 'vitest';
 import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { bodeFigure, shapesOf, testTheme } from '../../../test/plot-figures';
@@ -42,13 +42,13 @@ describe('the Bode figure of a result', () => {
     const marker = shapesOf(figure).find((s) => s.type === 'line' && s.x0 === corner?.value && s.x1 === corner?.value);
     expect(marker).toBeDefined();
     const label = figure.layout.annotations?.find((a) => String(a.text).startsWith('corner'));
-    expect(label?.text).toBe(`corner ${formatSi(corner?.value ?? NaN, 'Hz')}`);
+    expect(label?.text).toBe(`${READOUT_NAMES.corner} ${formatSi(corner?.value ?? NaN, 'Hz')}`);
     // Annotations on a log axis are placed by the logarithm of the value (Plotly's convention).
     expect(label?.x).toBeCloseTo(Math.log10(corner?.value ?? NaN), 12);
   });
 
   it('shades each requirement range where it is checked, tinted by its result', () => {
-    for (const requirement of result.requirements) expect(requirement.pass).toBe(true);
+    for (const requirement of result.requirements) expect(requirement.status).toBe('pass');
     const rects = shapesOf(figure).filter((s) => s.type === 'rect');
     // require out gain >= -0.3 dB over 10 .. 500: allowed from the limit upwards over 10 Hz to 500 Hz.
     const passband = rects.find((s) => s.x0 === 10 && s.x1 === 500);
@@ -65,7 +65,7 @@ describe('the Bode figure of a result', () => {
   it('tints a failing requirement with the fail colour and marks its worst point', () => {
     const failing = analyze(FIRST_EXAMPLE.replace('require out gain >= -0.3 dB over 10 .. 500', 'require out gain >= -0.1 dB over 10 .. 700'));
     const requirement = failing.requirements.find((r) => r.text.includes('-0.1 dB'));
-    expect(requirement?.pass).toBe(false);
+    expect(requirement?.status).toBe('fail');
     const figureOfFailing = bodeOf(failing);
     const rect = shapesOf(figureOfFailing).find((s) => s.type === 'rect' && s.x0 === 10 && s.x1 === 700);
     expect(rect?.fillcolor).toBe(testTheme.fail);
@@ -73,8 +73,44 @@ describe('the Bode figure of a result', () => {
     expect((worst?.y as number[])[0]).toBe(requirement?.measured);
   });
 
-  it('matches requirements to their traces by label or expression', () => {
-    expect(placeRequirements(result).map((p) => p.trace.label)).toEqual(result.requirements.map(() => trace.label));
+  it('places each requirement on the trace whose label it carries', () => {
+    expect(placeRequirements(result).map((p) => p.trace.label)).toEqual(result.requirements.map((q) => q.trace));
+    expect(placeRequirements(result).map((p) => p.trace)).toEqual(result.requirements.map(() => trace));
+  });
+});
+
+describe('requirements drawn from the fields the solver carries', () => {
+  it('shades a range and a limit written as parameters like literals', () => {
+    const written = FIRST_EXAMPLE.replace('let R  = 10k', 'let R  = 10k\nlet fpass = 500\nlet floor = -38').replace('over 10 .. 500', 'over 10 .. fpass').replace('<= -38 dB over 10k ..', '<= floor over (fpass*20) ..');
+    const result = analyze(written);
+    expect(result.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+    const rects = shapesOf(bodeOf(result)).filter((s) => s.type === 'rect' && s.yref === 'y');
+    expect(rects.find((s) => s.x0 === 10 && s.x1 === 500)).toMatchObject({ y0: -0.3, fillcolor: testTheme.pass });
+    expect(rects.find((s) => s.x0 === 10_000)).toMatchObject({ y1: -38, fillcolor: testTheme.pass });
+  });
+
+  /** The first example's result with its `=` requirement replaced by `changes`; its text is left unreadable on purpose. */
+  function withCorner(changes: Partial<RequirementResult>): Result {
+    const result = analyze(FIRST_EXAMPLE);
+    const requirements = result.requirements.map((q) => (q.measure === 'corner' ? { ...q, text: 'not a requirement the web could read', ...changes } : q));
+    return { ...result, requirements };
+  }
+
+  it('draws an `=` band exactly as carried, not re-derived from limit and tolerance', () => {
+    const rect = shapesOf(bodeOf(withCorner({ limit: 1000, tolerance: { relative: 0.02 }, band: { low: 900, high: 1300 } }))).find((s) => s.yref === 'y domain');
+    expect(rect).toMatchObject({ x0: 900, x1: 1300, fillcolor: testTheme.pass });
+  });
+
+  it('draws a band’s closed sides as limit lines, and tints by the status carried', () => {
+    const result = withCorner({ measure: 'gain', op: '=', limit: -1, tolerance: { absolute: 0.1 }, band: { low: -2, high: 0.5 }, over: { from: 20, to: 200 }, unit: 'dB', status: 'fail' });
+    const shapes = shapesOf(bodeOf(result)).filter((s) => s.yref === 'y' && s.x0 === 20 && s.x1 === 200);
+    expect(shapes.find((s) => s.type === 'rect')).toMatchObject({ y0: -2, y1: 0.5, fillcolor: testTheme.fail });
+    expect(shapes.filter((s) => s.type === 'line').map((s) => s.y0)).toEqual([-2, 0.5]);
+  });
+
+  it('draws nothing for a requirement that could not be checked', () => {
+    const result = withCorner({ status: 'not-applicable', measured: Number.NaN });
+    expect(shapesOf(bodeOf(result)).some((s) => s.yref === 'y domain' && s.type === 'rect')).toBe(false);
   });
 });
 

@@ -2,19 +2,18 @@
  * The solver's Result mapped to plot figures: a Bode plot (magnitude in dB over phase in
  * degrees on one log-frequency axis), an impedance plot (|Z| in Ω, log-log, with phase), a
  * noise-density plot and a step-response plot. Markers and requirement shading come from the
- * Result's readouts and requirements; nothing numerical is computed here beyond placing them.
+ * Result's readouts and requirements alone (names, units, bands, ranges and frequencies as the
+ * solver carries them); nothing is computed or re-read from the cell here beyond placing them.
  * A loop trace carries its margins on the plot (loop-margins.ts), and pins, when given, sit
  * on their traces (plot-pins.ts). Pure functions of plain data, so they are tested without a
  * browser's Plotly.
  */
-import { formatSi } from '@rolloff/solver';
-import type { NumberArray, Readout, RequirementResult, Result, TraceResult } from '@rolloff/solver';
+import { READOUT_NAMES, formatSi } from '@rolloff/solver';
+import type { Measure, NumberArray, Readout, ReadoutId, RequirementResult, Result, TraceResult } from '@rolloff/solver';
 import type { Annotations, Layout, ScatterData, Shape } from 'plotly.js-basic-dist-min';
 import { loopMarginMarks } from './loop-margins';
 import { pinMarkers } from './plot-pins';
 import type { PlotPin, PlotTarget } from './plot-pins';
-import { parseRequirementRange } from './requirement-ranges';
-import type { RequirementRange } from './requirement-ranges';
 
 /** Colours and font of the plots, read from the palette so light and dark both work. */
 export interface PlotTheme {
@@ -51,21 +50,15 @@ export interface Figure {
 }
 
 const BODE_KINDS: ReadonlySet<TraceResult['kind']> = new Set(['ratio', 'loop', 'transimpedance', 'current']);
-/** Readouts that belong at a frequency and get a vertical marker on the plot. */
-const FREQUENCY_READOUTS = ['corner', 'corner-low', 'corner-high', 'center', 'peak-frequency', 'crossover', 'phase-crossover'];
+/** Readouts that are frequencies and get a vertical marker on the plot (a peak gets one at its `at`). */
+const MARKED_FREQUENCIES: readonly ReadoutId[] = ['corner', 'corner-low', 'corner-high', 'center', 'crossover', 'phase-crossover'];
 
 /** Peaks smaller than this (dB above the passband) get no marker. */
 const MARKED_PEAK_DB = 0.1;
 
-const READOUT_WORDS: Record<string, string> = {
-  corner: 'corner',
-  'corner-low': 'lower corner',
-  'corner-high': 'upper corner',
-  center: 'centre',
-  'peak-frequency': 'peak',
-  crossover: 'crossover',
-  'phase-crossover': 'phase crossover',
-};
+/** Where a requirement of each measure is drawn; measures not listed are not drawn. */
+type Panel = 'magnitude' | 'phase' | 'frequency';
+const PANEL_OF: Partial<Record<Measure, Panel>> = { gain: 'magnitude', magnitude: 'magnitude', phase: 'phase', corner: 'frequency', crossover: 'frequency' };
 
 /** Plain numbers for Plotly, with NaN and ±∞ as gaps. */
 export function finiteOrNull(values: NumberArray): (number | null)[] {
@@ -167,24 +160,29 @@ function frequencyMarkers(readouts: Readout[], traceColour: (trace: string) => s
   for (const [trace, list] of byTrace) {
     const colour = traceColour(trace);
     if (colour === null) continue;
-    const find = (name: string) => list.find((r) => r.name === name && Number.isFinite(r.value));
     for (const readout of list) {
-      if (!FREQUENCY_READOUTS.includes(readout.name) || !(readout.value > 0) || !Number.isFinite(readout.value)) continue;
-      let text = `${READOUT_WORDS[readout.name]} ${formatSi(readout.value, 'Hz')}`;
-      if (readout.name === 'peak-frequency') {
-        const peak = find('peak');
+      let at: number;
+      let text: string;
+      if (readout.name === 'peak') {
         // A flat response has a "peak" of a few µdB somewhere; only a real one is worth a marker.
-        if (!peak || peak.value < MARKED_PEAK_DB) continue;
-        text = `peak ${formatSi(peak.value, 'dB')} at ${formatSi(readout.value, 'Hz')}`;
+        if (readout.at === null || !(readout.value >= MARKED_PEAK_DB)) continue;
+        at = readout.at;
+        text = `${READOUT_NAMES.peak} ${formatSi(readout.value, readout.unit)} at ${formatSi(at, 'Hz')}`;
+      } else if (MARKED_FREQUENCIES.includes(readout.name)) {
+        at = readout.value;
+        text = `${READOUT_NAMES[readout.name]} ${formatSi(at, readout.unit)}`;
+      } else {
+        continue;
       }
-      shapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: readout.value, x1: readout.value, y0: 0, y1: 1, line: { color: colour, width: 1, dash: 'dot' } });
+      if (!(at > 0) || !Number.isFinite(at)) continue;
+      shapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: at, x1: at, y0: 0, y1: 1, line: { color: colour, width: 1, dash: 'dot' } });
       annotations.push({
         xref: 'x',
         yref: 'y domain',
-        x: Math.log10(readout.value),
+        x: Math.log10(at),
         y: 1 - 0.09 * (slot % 4),
         yanchor: 'top',
-        ...labelSide(readout.value, frequencies),
+        ...labelSide(at, frequencies),
         showarrow: false,
         text,
         font: { color: colour, size: 11 },
@@ -196,72 +194,64 @@ function frequencyMarkers(readouts: Readout[], traceColour: (trace: string) => s
   return { shapes, annotations };
 }
 
-/** A requirement with where it applies, matched to the trace it names. */
+/** A requirement that was checked, with the trace it reads. */
 export interface PlacedRequirement {
   requirement: RequirementResult;
-  range: RequirementRange;
   trace: TraceResult;
 }
 
-/** The trace a requirement names: by label, by expression, or `loop` for the loop-gain trace. */
-export function traceNamed(traces: readonly TraceResult[], target: string): TraceResult | undefined {
-  return traces.find((t) => t.label === target || t.expr === target) ?? (target === 'loop' ? traces.find((t) => t.kind === 'loop') : undefined);
-}
-
-/** Matches each requirement to its trace by label or expression, as the cell names it. */
+/** The checked requirements of a result, each with its trace (the one whose label it carries). */
 export function placeRequirements(result: Result): PlacedRequirement[] {
   const placed: PlacedRequirement[] = [];
   for (const requirement of result.requirements) {
-    const range = parseRequirementRange(requirement.text);
-    if (!range) continue;
-    const trace = traceNamed(result.traces, range.target);
-    if (trace) placed.push({ requirement, range, trace });
+    if (requirement.status === 'not-applicable') continue;
+    const trace = result.traces.find((t) => t.label === requirement.trace);
+    if (trace) placed.push({ requirement, trace });
   }
   return placed;
 }
 
 /** The x extent a requirement checks: its range, or a narrow band around `at`. */
-function checkedSpan(range: RequirementRange, frequencies: NumberArray): [number, number] | null {
-  const first = frequencies[0];
-  const last = frequencies[frequencies.length - 1];
-  if (range.at !== null) return [range.at / 1.03, range.at * 1.03];
-  const from = range.from ?? first;
-  const to = range.to ?? last;
+function checkedSpan(requirement: RequirementResult): [number, number] | null {
+  if (requirement.at !== null) return [requirement.at / 1.03, requirement.at * 1.03];
+  if (requirement.over === null) return null;
+  const { from, to } = requirement.over;
   return from > 0 && to > from ? [from, to] : null;
 }
 
-/** The band of values a requirement allows: [low, high], open sides at the axis edges. */
-function allowedBand(range: RequirementRange, axis: [number, number]): [number, number] | null {
-  if (range.value === null) return null;
-  if (range.op === '>=') return [range.value, axis[1]];
-  if (range.op === '<=') return [axis[0], range.value];
-  if (range.tolerance === null) return null;
-  return [range.value - range.tolerance, range.value + range.tolerance];
+/** The band of values a requirement allows, its open sides at the axis edges. */
+function allowedBand(requirement: RequirementResult, axis: [number, number]): [number, number] {
+  return [requirement.band.low ?? axis[0], requirement.band.high ?? axis[1]];
 }
 
+/** The limits a requirement draws: the closed sides of its band. */
+function limitsOf(requirement: RequirementResult): number[] {
+  return [requirement.band.low, requirement.band.high].filter((v): v is number => v !== null && Number.isFinite(v));
+}
+
+const colourOfStatus = (requirement: RequirementResult, theme: PlotTheme) => (requirement.status === 'pass' ? theme.pass : theme.fail);
+
 /**
- * Shading of the requirements that read one axis: the allowed region over the checked
- * frequencies, tinted by pass or fail, with the limit drawn as a dashed line and the worst
- * point marked.
+ * Shading of the requirements drawn on one panel: the allowed band over the checked
+ * frequencies, tinted by pass or fail, with its closed sides drawn as dashed lines and the
+ * worst point marked.
  */
 function requirementShapes(
   placed: PlacedRequirement[],
-  measures: readonly string[],
   yaxis: 'y' | 'y2',
   axis: [number, number],
-  frequencies: NumberArray,
   theme: PlotTheme,
 ): { shapes: Partial<Shape>[]; points: Partial<ScatterData>[] } {
   const shapes: Partial<Shape>[] = [];
   const points: Partial<ScatterData>[] = [];
-  for (const { requirement, range } of placed) {
-    if (!measures.includes(range.measure)) continue;
-    const colour = requirement.pass ? theme.pass : theme.fail;
-    const span = checkedSpan(range, frequencies);
-    const band = allowedBand(range, axis);
-    if (span && band) {
+  for (const { requirement } of placed) {
+    const colour = colourOfStatus(requirement, theme);
+    const passed = requirement.status === 'pass';
+    const span = checkedSpan(requirement);
+    if (span) {
+      const band = allowedBand(requirement, axis);
       shapes.push({ type: 'rect', layer: 'below', xref: 'x', yref: yaxis, x0: span[0], x1: span[1], y0: band[0], y1: band[1], fillcolor: colour, opacity: 0.13, line: { width: 0 } });
-      for (const limit of range.op === '=' ? band : [range.value as number]) {
+      for (const limit of limitsOf(requirement)) {
         shapes.push({ type: 'line', layer: 'below', xref: 'x', yref: yaxis, x0: span[0], x1: span[1], y0: limit, y1: limit, line: { color: colour, width: 1.5, dash: 'dash' } });
       }
     }
@@ -274,25 +264,21 @@ function requirementShapes(
         xaxis: 'x',
         yaxis,
         showlegend: false,
-        marker: { color: colour, size: 9, symbol: requirement.pass ? 'circle-open' : 'x', line: { width: 2, color: colour } },
-        hovertemplate: `${requirement.pass ? 'passes' : 'fails'}: ${escapeHover(requirement.text)}<br>worst %{y} at %{x} Hz<extra>line ${requirement.line}</extra>`,
+        marker: { color: colour, size: 9, symbol: passed ? 'circle-open' : 'x', line: { width: 2, color: colour } },
+        hovertemplate: `${passed ? 'passes' : 'fails'}: ${escapeHover(requirement.text)}<br>worst %{y} at %{x} Hz<extra>line ${requirement.line}</extra>`,
       });
     }
   }
   return { shapes, points };
 }
 
-/** Frequency requirements (corner, crossover): the allowed band of frequencies, full height. */
+/** Requirements on a frequency (corner, crossover): the allowed band of frequencies, full height. */
 function frequencyRequirementShapes(placed: PlacedRequirement[], frequencies: NumberArray, theme: PlotTheme): Partial<Shape>[] {
   const shapes: Partial<Shape>[] = [];
-  const first = frequencies[0];
-  const last = frequencies[frequencies.length - 1];
-  for (const { requirement, range } of placed) {
-    if (!['corner', 'crossover', 'phase-crossover'].includes(range.measure) || range.value === null) continue;
-    let band: [number, number] | null = null;
-    if (range.op === '=') band = range.tolerance === null ? null : [range.value - range.tolerance, range.value + range.tolerance];
-    else band = range.op === '>=' ? [range.value, last] : [first, range.value];
-    if (!band || !(band[0] > 0) || !(band[1] > band[0])) continue;
+  const axis: [number, number] = [frequencies[0], frequencies[frequencies.length - 1]];
+  for (const { requirement } of placed) {
+    const band = allowedBand(requirement, axis);
+    if (!(band[0] > 0) || !(band[1] > band[0])) continue;
     shapes.push({
       type: 'rect',
       layer: 'below',
@@ -302,7 +288,7 @@ function frequencyRequirementShapes(placed: PlacedRequirement[], frequencies: Nu
       x1: band[1],
       y0: 0,
       y1: 1,
-      fillcolor: requirement.pass ? theme.pass : theme.fail,
+      fillcolor: colourOfStatus(requirement, theme),
       opacity: 0.13,
       line: { width: 0 },
     });
@@ -379,14 +365,15 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
     targets.push(target, target);
   }
   const placed = placeRequirements(primary).filter((p) => slots.some((s) => s.seriesIndex === 0 && s.trace === p.trace));
-  const magnitudeMeasures = kind === 'bode' ? ['gain'] : ['magnitude'];
-  const limitsOf = (measures: string[]) =>
-    placed.filter((p) => measures.includes(p.range.measure)).flatMap((p) => [p.range.value, p.range.tolerance === null ? null : (p.range.value ?? 0) + p.range.tolerance].filter((v): v is number => v !== null));
+  // The Bode plot's magnitude panel is in dB (gain); the impedance plot's in the trace's unit (magnitude).
+  const magnitudeMeasure: Measure = kind === 'bode' ? 'gain' : 'magnitude';
+  const on = (panel: Panel) => placed.filter((p) => PANEL_OF[p.requirement.measure] === panel && (panel !== 'magnitude' || p.requirement.measure === magnitudeMeasure));
+  const limitsOn = (panel: Panel) => on(panel).flatMap((p) => limitsOf(p.requirement));
   const magnitudeRange: [number, number] =
-    kind === 'bode' ? decibelRange(slots.map((s) => s.trace.magnitudeDb), limitsOf(['gain'])) : logRange(slots.map((s) => s.trace.magnitude), limitsOf(['magnitude']));
-  const phase = phaseRange(slots.map((s) => s.trace.phaseDeg), limitsOf(['phase']));
-  const magnitudeShading = requirementShapes(placed, magnitudeMeasures, 'y', kind === 'bode' ? magnitudeRange : [10 ** magnitudeRange[0], 10 ** magnitudeRange[1]], frequencies, theme);
-  const phaseShading = requirementShapes(placed, ['phase'], 'y2', phase, frequencies, theme);
+    kind === 'bode' ? decibelRange(slots.map((s) => s.trace.magnitudeDb), limitsOn('magnitude')) : logRange(slots.map((s) => s.trace.magnitude), limitsOn('magnitude'));
+  const phase = phaseRange(slots.map((s) => s.trace.phaseDeg), limitsOn('phase'));
+  const magnitudeShading = requirementShapes(on('magnitude'), 'y', kind === 'bode' ? magnitudeRange : [10 ** magnitudeRange[0], 10 ** magnitudeRange[1]], theme);
+  const phaseShading = requirementShapes(on('phase'), 'y2', phase, theme);
   const primaryColour = (label: string) => slots.find((s) => s.seriesIndex === 0 && s.trace.label === label)?.colour ?? null;
   const markers = frequencyMarkers(primary.readouts, primaryColour, theme, frequencies);
   const impedanceMarkers = kind === 'impedance' ? minimumImpedanceMarkers(primary.readouts, primaryColour, theme) : { points: [], annotations: [] };
@@ -412,7 +399,7 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
     },
     yaxis2: { ...axisStyle(theme), domain: [0, 0.34], title: { text: 'phase (°)' }, range: phase, dtick: phaseTick(phase) },
     shapes: [
-      ...frequencyRequirementShapes(placed, frequencies, theme),
+      ...frequencyRequirementShapes(on('frequency'), frequencies, theme),
       ...magnitudeShading.shapes,
       ...phaseShading.shapes,
       ...markers.shapes,
@@ -445,7 +432,7 @@ function minimumImpedanceMarkers(readouts: Readout[], traceColour: (trace: strin
       yanchor: 'top',
       yshift: -6,
       showarrow: false,
-      text: `min ${formatSi(readout.value, 'Ω')} at ${formatSi(readout.at, 'Hz')}`,
+      text: `${READOUT_NAMES['min-impedance']} ${formatSi(readout.value, readout.unit)} at ${formatSi(readout.at, 'Hz')}`,
       font: { color: colour, size: 11 },
       bgcolor: theme.panel,
     });
