@@ -9,7 +9,7 @@ export { READOUT_NAMES, STATUS_WORDS } from './result.js';
 export type { Program } from './ast.js';
 export type { Line, Token, TokenKind } from './lexer.js';
 export { parse } from './parser.js';
-export { lex } from './lexer.js';
+export { lex, separateUnit } from './lexer.js';
 export * from './vocabulary.js';
 export { modernizeCellText } from './modernize.js';
 export { compile } from './compile.js';

@@ -41,6 +41,17 @@ describe('completion in circuit cells', () => {
     expect(labels('require out gain >= -3 dB ')).toEqual(['over', 'at']);
   });
 
+  it('offers the words of the new forms: spread, noise off, vnoise and inoise', () => {
+    expect(labels('spread 200 ')).toEqual(expect.arrayContaining(['draws', 'seed', 'extremes']));
+    expect(labels('R3 [a b] 10k ')).toEqual(expect.arrayContaining(['tol', 'noise']));
+    expect(labels('R3 [a b] 10k noise ')).toEqual(['off']);
+    expect(labels('U2 [a b c] opamp ')).toEqual(expect.arrayContaining(['vnoise', 'inoise', 'gain', 'gbw', 'zout']));
+    expect(labels('U2 [a b c] opamp ')).not.toContain('esr');
+    for (const retired of ['tolerance', 'montecarlo', 'worstcase', 'noiseless', 'en', 'in']) {
+      expect([...labels(''), ...labels('R3 [a b] 10k '), ...labels('U2 [a b c] opamp ')]).not.toContain(retired);
+    }
+  });
+
   it('stays quiet inside comments', () => {
     expect(labels('R1 [a b] 1k  # a comment ')).toEqual([]);
   });

@@ -4,13 +4,13 @@
  * options that fit where the cursor stands. Names come from the cell itself.
  */
 import type { Completion, CompletionContext, CompletionResult } from '@codemirror/autocomplete';
+import { CONNECTIVES, CONTROLLED_MODE_WORDS, GROUND, NOISE_OFF, OPAMP_OPTION_WORDS, OPAMP_WORD, PASSIVES, SHOW_MODES, TRACE_WORDS } from '@rolloff/solver';
 import { tokenizeCell, tokenizeCellLine } from './cell-language';
 import {
   functionWords,
   measureWords,
   partKindWords,
   partLetters,
-  partOptionWords,
   statementInfo,
   statementWords,
 } from './cell-words';
@@ -27,7 +27,7 @@ const sorted = (set: Set<string>) => [...set].sort((a, b) => a.localeCompare(b, 
 
 /** Collects node names, designators, parameters and block names written in `text`. */
 export function collectCellNames(text: string): CellNames {
-  const nodes = new Set<string>(['gnd']);
+  const nodes = new Set<string>([GROUND]);
   const designators = new Set<string>();
   const parameters = new Set<string>();
   const blocks = new Set<string>();
@@ -66,31 +66,30 @@ export function completionsFor(lineBefore: string, names: CellNames): Completion
   const values = [...parameters, ...functionWords.map((f) => option(f, 'function', 'function'))];
   switch (state.head) {
     case 'part': {
-      const first = tokens[0].text[0];
+      const letter = tokens[0].text[0];
       const closedBracket = tokens.some((t) => t.text === ']');
       if (!closedBracket) return [];
-      const kinds = first === 'U' ? ['opamp'] : first === 'A' ? ['vgain', 'gm', 'igain', 'rm'] : [];
-      return [...kinds.map((k) => option(k, 'type', 'part kind', 3)), ...values, ...partOptionWords.map((w) => option(w, 'keyword', 'option'))];
+      if (previous === 'noise') return [option(NOISE_OFF, 'keyword', 'no thermal noise')];
+      const kinds: readonly string[] = letter === 'U' ? [OPAMP_WORD] : letter === 'A' ? CONTROLLED_MODE_WORDS : [];
+      const optionWords: readonly string[] = letter === 'U' ? OPAMP_OPTION_WORDS : letter === 'A' ? CONNECTIVES.part : (Object.values(PASSIVES).find((p) => p.letter === letter)?.options ?? []);
+      return [...kinds.map((k) => option(k, 'type', 'part kind', 3)), ...values, ...optionWords.map((w) => option(w, 'keyword', 'option'))];
     }
     case 'couple':
-      return designators.filter((d) => d.label.startsWith('L'));
+      return designators.filter((d) => d.label.startsWith(PASSIVES.inductor.letter));
     case 'drive':
-      return [option('current', 'keyword', 'a current drive'), option('phase', 'keyword', 'phase in degrees'), ...nodes, ...parameters];
+      return [...CONNECTIVES.drive.map((w) => option(w, 'keyword')), ...nodes, ...parameters];
     case 'show':
-      return [
-        ...['loop', 'step', 'noise', 'current', 'impedance'].map((w) => option(w, 'keyword', 'trace kind')),
-        ...nodes,
-      ];
+      return [...[...SHOW_MODES, ...TRACE_WORDS].map((w) => option(w, 'keyword', 'trace kind')), ...nodes];
     case 'require':
       if (!state.measureSeen) {
         const hasTarget = tokens.length > 1;
         return hasTarget ? measureWords.map((m) => option(m, 'property', 'measure', 3)) : [option('impedance', 'keyword'), option('loop', 'keyword'), ...nodes];
       }
-      return last.style === 'number' || last.style === 'unit' ? [option('over', 'keyword'), option('at', 'keyword')] : values;
+      return last.style === 'number' || last.style === 'unit' ? CONNECTIVES.require.map((w) => option(w, 'keyword')) : values;
     case 'sweep':
-      return [option('linear', 'keyword'), option('decade', 'keyword'), option('at', 'keyword'), ...parameters];
-    case 'tolerance':
-      return [option('montecarlo', 'keyword'), option('worstcase', 'keyword'), option('seed', 'keyword')];
+      return [...CONNECTIVES.sweep.map((w) => option(w, 'keyword')), ...parameters];
+    case 'spread':
+      return [...CONNECTIVES.spread.map((w) => option(w, 'keyword')), ...parameters];
     case 'use':
       return tokens.length === 1 ? names.blocks.map((b) => option(b, 'type', 'block')) : values;
     default:

@@ -53,9 +53,37 @@ describe('the cell language mode', () => {
   it('marks a suffix that is neither prefix nor unit', () => {
     const tokens = tokenizeCellLine('R1 [a b] 10meg').tokens;
     expect(tokens.slice(-2).map((t) => [t.text, t.style])).toEqual([
-      ['10m', 'number'],
-      ['eg', 'invalid'],
+      ['10', 'number'],
+      ['meg', 'invalid'],
     ]);
+  });
+
+  it('reads a prefixed unit after a number, and a unit standing apart', () => {
+    expect(tokenizeCellLine('C1 [a b] 10 nF').tokens.slice(-2).map((t) => [t.text, t.style])).toEqual([
+      ['10', 'number'],
+      ['nF', 'unit'],
+    ]);
+    expect(tokenizeCellLine('temperature 25°C').tokens.slice(-2).map((t) => [t.text, t.style])).toEqual([
+      ['25', 'number'],
+      ['°C', 'unit'],
+    ]);
+  });
+
+  it('colours the words of spread, noise off and the op-amp’s noise options', () => {
+    expect(tokenizeCellLine('spread 200 draws seed 7').tokens.map((t) => t.style)).toEqual(['keyword', 'number', 'modifier', 'modifier', 'number']);
+    expect(styleOf('spread extremes', 'extremes')).toBe('modifier');
+    expect(styleOf('R1 [a b] 1k noise off', 'noise')).toBe('modifier');
+    expect(styleOf('R1 [a b] 1k noise off', 'off')).toBe('modifier');
+    expect(styleOf('U1 [a b c] opamp vnoise 4n inoise 1p', 'vnoise')).toBe('modifier');
+    expect(styleOf('U1 [a b c] opamp vnoise 4n inoise 1p', 'inoise')).toBe('modifier');
+  });
+
+  it('marks what the lexer cannot read', () => {
+    expect(tokenizeCellLine('.ac dec 10 # old').tokens.map((t) => [t.text, t.style])).toEqual([
+      ['.ac dec 10', 'invalid'],
+      ['# old', 'comment'],
+    ]);
+    expect(styleOf('R1 [a b] 1k ; R2', ';')).toBe('invalid');
   });
 
   it('colours comments, labels and requirement measures', () => {
@@ -67,9 +95,9 @@ describe('the cell language mode', () => {
     expect(styleOf('require out corner = 1k ± 2%', 'out')).toBe('variableName.special');
   });
 
-  it('reads digit-only node names inside brackets as nodes, not numbers', () => {
-    const tokens = tokenizeCellLine('R5 [1 0] 4k7').tokens;
-    expect(tokens.map((t) => t.style)).toEqual(['labelName', 'squareBracket', 'variableName.special', 'variableName.special', 'squareBracket', 'number']);
+  it('reads digits inside brackets as numbers: a node name starts with a letter', () => {
+    const tokens = tokenizeCellLine('R5 [n1 0] 4k7').tokens;
+    expect(tokens.map((t) => t.style)).toEqual(['labelName', 'squareBracket', 'variableName.special', 'number', 'squareBracket', 'number']);
   });
 
   it('knows the designators named after of, current and couple', () => {

@@ -1,22 +1,15 @@
 /**
- * The cell language for CodeMirror: a line-by-line stream tokenizer that tells keywords,
- * designators, node names, parameters, numbers with their SI prefix, units, comments and
- * strings apart, and the highlight style that colours them from our palette.
+ * The cell language for CodeMirror: each line is read by the solver's own lexer, and each
+ * token is told apart (keywords, designators, node names, parameters, numbers with their SI
+ * prefix, units, comments, strings) by the statement it stands in; the highlight style
+ * colours them from our palette.
  */
-import { HighlightStyle, StreamLanguage, StringStream, syntaxHighlighting } from '@codemirror/language';
-import type { StreamParser } from '@codemirror/language';
+import { HighlightStyle, StreamLanguage, syntaxHighlighting } from '@codemirror/language';
+import type { StreamParser, StringStream } from '@codemirror/language';
 import { tags } from '@lezer/highlight';
-import {
-  isBuiltinWord,
-  isMeasureWord,
-  isModifierWord,
-  isPartKindWord,
-  isPartOptionWord,
-  isStatementWord,
-  isUnitText,
-  siPrefixes,
-  unitSpellings,
-} from './cell-words';
+import { PART_LETTERS, UNIT_SPELLINGS, lex, separateUnit } from '@rolloff/solver';
+import type { StatementWord, Token } from '@rolloff/solver';
+import { isBuiltinWord, isMeasureWord, isModifierWord, isPartKindWord, isPartOptionWord, isStatementWord } from './cell-words';
 
 /** What a token is, as the highlighter and completion see it. */
 export type CellTokenStyle =
@@ -39,143 +32,78 @@ export type CellTokenStyle =
   | 'punctuation'
   | 'invalid';
 
-type Head =
-  | 'let'
-  | 'drive'
-  | 'show'
-  | 'sweep'
-  | 'time'
-  | 'temperature'
-  | 'tolerance'
-  | 'require'
-  | 'block'
-  | 'end'
-  | 'use'
-  | 'couple'
-  | 'part'
-  | 'other';
+type Head = StatementWord | 'part' | 'other';
 
-/** The tokenizer's state; it only describes the current line, so it resets at each line start. */
+/** Where a line stands after its tokens: what completion needs to know. */
 export interface CellLineState {
   head: Head | null;
-  /** Words seen on this line so far. */
-  words: number;
   inBracket: boolean;
+  measureSeen: boolean;
+}
+
+/** One token of a cell's text with its style; columns are 0-based offsets within the line. */
+export interface CellToken {
+  line: number;
+  from: number;
+  to: number;
+  text: string;
+  style: CellTokenStyle;
+}
+
+/** The classifier's walk along one line. */
+interface Walk extends CellLineState {
+  words: number;
   parens: number;
-  /** Inside the parentheses of block/use, a name before `=` is a parameter name. */
+  /** Inside the parentheses of block/use, a name after `=` is a value. */
   afterEquals: boolean;
   prevWord: string | null;
-  prevWasNumber: boolean;
+  previous: Token | null;
   numbersSeen: number;
-  measureSeen: boolean;
-  /** A number's unit (or unreadable suffix) still to be read as its own token. */
-  pendingSuffix: 'unit' | 'invalid' | null;
-  pendingLength: number;
-}
-
-const freshState = (): CellLineState => ({
-  head: null,
-  words: 0,
-  inBracket: false,
-  parens: 0,
-  afterEquals: false,
-  prevWord: null,
-  prevWasNumber: false,
-  numbersSeen: 0,
-  measureSeen: false,
-  pendingSuffix: null,
-  pendingLength: 0,
-});
-
-const NAME_START = /[A-Za-z_]/;
-const NAME = /^[A-Za-z_][A-Za-z0-9_]*(?:\.[A-Za-z0-9_]+)*/;
-const DIGITS_NODE = /^\d+(?![A-Za-z0-9_.µμΩ°%])/;
-const IEC_NUMBER = /^\d+[fpnuµμmkMGTR]\d+/;
-const NUMBER = /^(?:\d+(?:\.(?!\.)\d*)?|\.\d+)(?:[eE][+-]?\d+)?/;
-const SUFFIX = /^[A-Za-zµμΩ°%]+/;
-const OPERATORS = ['+/-', '..', '>=', '<=', '=>', '=<', '==', '+-', '…', '≥', '≤', '±', '=', '>', '<', '+', '-', '−', '*', '/', '^'];
-
-/**
- * Splits what follows a number's digits into the part that belongs to the number (an SI
- * prefix) and the rest (a unit, or something unreadable).
- */
-function splitSuffix(suffix: string): { prefixLength: number; rest: 'unit' | 'invalid' | null } {
-  if (suffix === '' || suffix === 'R') return { prefixLength: suffix.length, rest: null };
-  if ((unitSpellings as readonly string[]).includes(suffix)) return { prefixLength: 0, rest: 'unit' };
-  const first = suffix[0];
-  if ((siPrefixes as readonly string[]).includes(first)) {
-    if (suffix.length === 1) return { prefixLength: 1, rest: null };
-    return { prefixLength: 1, rest: isUnitText(suffix) ? 'unit' : 'invalid' };
-  }
-  return { prefixLength: 0, rest: 'invalid' };
-}
-
-function readNumber(stream: StringStream, state: CellLineState): CellTokenStyle {
-  const iec = stream.match(IEC_NUMBER);
-  if (!iec) stream.match(NUMBER);
-  const suffix = stream.match(SUFFIX, false);
-  const text = Array.isArray(suffix) ? suffix[0] : '';
-  if (iec) {
-    if (text !== '') {
-      state.pendingSuffix = (unitSpellings as readonly string[]).includes(text) ? 'unit' : 'invalid';
-      state.pendingLength = text.length;
-    }
-  } else {
-    const { prefixLength, rest } = splitSuffix(text);
-    stream.pos += prefixLength;
-    if (rest !== null) {
-      state.pendingSuffix = rest;
-      state.pendingLength = text.length - prefixLength;
-    }
-  }
-  state.prevWasNumber = true;
-  state.numbersSeen += 1;
-  return 'number';
 }
 
 /** Decides what a word is from the statement it stands in and its place there. */
-function classifyWord(word: string, state: CellLineState): CellTokenStyle {
-  const index = state.words;
-  const prev = state.prevWord;
-  const afterNumber = state.prevWasNumber;
-  state.words += 1;
-  state.prevWord = word;
-  state.prevWasNumber = false;
-  if (state.inBracket) return 'variableName.special';
+function classifyWord(token: Token, walk: Walk): CellTokenStyle {
+  const word = token.text;
+  const index = walk.words;
+  const prev = walk.prevWord;
+  const afterNumber = walk.previous?.kind === 'number';
+  walk.words += 1;
+  walk.prevWord = word;
+  if (walk.inBracket) return 'variableName.special';
   if (index === 0) {
     if (isStatementWord(word)) {
-      state.head = word as Head;
+      walk.head = word;
       return 'keyword';
     }
-    state.head = /^[RCLUA]/.test(word) ? 'part' : 'other';
-    return state.head === 'part' ? 'labelName' : 'variableName';
+    walk.head = (PART_LETTERS as readonly string[]).includes(word[0]) ? 'part' : 'other';
+    return walk.head === 'part' ? 'labelName' : 'variableName';
   }
-  if (afterNumber && isUnitText(word)) return 'unit';
-  if (state.parens > 0 && (state.head === 'block' || state.head === 'use') && !state.afterEquals) {
-    return state.head === 'block' ? 'variableName.definition' : 'propertyName';
+  if (afterNumber && separateUnit(token) !== null) return 'unit';
+  if (walk.parens > 0 && (walk.head === 'block' || walk.head === 'use') && !walk.afterEquals) {
+    return walk.head === 'block' ? 'variableName.definition' : 'propertyName';
   }
-  if (isBuiltinWord(word) && state.head !== 'drive' && state.head !== 'show') return 'variableName.standard';
-  switch (state.head) {
+  if (isBuiltinWord(word) && walk.head !== 'drive' && walk.head !== 'show') return 'variableName.standard';
+  switch (walk.head) {
     case 'let':
       return index === 1 ? 'variableName.definition' : 'variableName';
     case 'part':
       if (prev === 'of') return 'labelName';
       if (isPartKindWord(word)) return 'typeName';
-      if (isPartOptionWord(word)) return 'modifier';
+      if (isPartOptionWord(word) || (prev === 'noise' && isModifierWord(word))) return 'modifier';
       return 'variableName';
     case 'couple':
       return index <= 2 ? 'labelName' : 'variableName';
     case 'drive':
       if (word === 'current' || word === 'phase') return 'modifier';
-      return state.numbersSeen === 0 && prev !== 'phase' ? 'variableName.special' : 'variableName';
+      return walk.numbersSeen === 0 && prev !== 'phase' ? 'variableName.special' : 'variableName';
     case 'show':
       if (prev === 'current') return 'labelName';
       if (isModifierWord(word)) return 'modifier';
       return 'variableName.special';
     case 'require':
-      if (!state.measureSeen) {
+      if (!walk.measureSeen) {
         if (index > 1 && isMeasureWord(word)) {
-          state.measureSeen = true;
+          walk.measureSeen = true;
           return 'propertyName';
         }
         if (prev === 'current') return 'labelName';
@@ -185,7 +113,7 @@ function classifyWord(word: string, state: CellLineState): CellTokenStyle {
       return word === 'over' || word === 'at' ? 'modifier' : 'variableName';
     case 'sweep':
     case 'time':
-    case 'tolerance':
+    case 'spread':
       return isModifierWord(word) ? 'modifier' : 'variableName';
     case 'block':
       return index === 1 ? 'typeName' : 'variableName';
@@ -198,120 +126,128 @@ function classifyWord(word: string, state: CellLineState): CellTokenStyle {
   }
 }
 
-/** Reads one token of a cell line. */
-function readToken(stream: StringStream, state: CellLineState): CellTokenStyle | null {
-  if (stream.sol()) Object.assign(state, freshState());
-  if (state.pendingSuffix !== null) {
-    const style = state.pendingSuffix;
-    stream.pos += state.pendingLength;
-    state.pendingSuffix = null;
-    state.pendingLength = 0;
-    return style;
-  }
-  if (stream.eatSpace()) return null;
-  const ch = stream.peek() ?? '';
-  if (ch === '#') {
-    stream.skipToEnd();
-    return 'comment';
-  }
-  if (ch === '"' || ch === '“' || ch === '”') {
-    stream.next();
-    while (!stream.eol()) {
-      const c = stream.next();
-      if (c === '"' || c === '”' || c === '“') break;
-    }
-    state.prevWasNumber = false;
-    state.words += 1;
-    return 'string';
-  }
-  if (ch === '[' || ch === ']') {
-    stream.next();
-    state.inBracket = ch === '[';
-    state.prevWasNumber = false;
-    return 'squareBracket';
-  }
-  if (ch === '(' || ch === ')') {
-    stream.next();
-    state.parens = Math.max(0, state.parens + (ch === '(' ? 1 : -1));
-    if (ch === '(') state.afterEquals = false;
-    state.prevWasNumber = false;
-    return 'paren';
-  }
-  if (ch === ',') {
-    stream.next();
-    state.afterEquals = false;
-    state.prevWasNumber = false;
-    return 'punctuation';
-  }
-  if (state.inBracket && stream.match(DIGITS_NODE)) {
-    state.words += 1;
-    return 'variableName.special';
-  }
-  if (/\d/.test(ch) || (ch === '.' && /\d/.test(stream.string.charAt(stream.pos + 1)))) return readNumber(stream, state);
-  if (NAME_START.test(ch)) {
-    const match = stream.match(NAME);
-    let word = Array.isArray(match) ? match[0] : stream.next() ?? '';
-    if ((word === 'phase' || word === 'gain') && stream.match(/^-margin(?![A-Za-z0-9_])/)) word += '-margin';
-    return classifyWord(word, state);
-  }
-  for (const op of OPERATORS) {
-    if (stream.match(op)) {
-      if (op === '=') state.afterEquals = true;
-      // A tolerance (±1%) and a range keep reading numbers, so the unit rule still applies.
-      state.prevWasNumber = false;
+/**
+ * A number token in up to two pieces: the digits with their SI prefix (or IEC letter), then
+ * the unit written on it, or the suffix the solver could not read.
+ */
+function numberPieces(token: Token, line: string): [number, number, CellTokenStyle][] {
+  const from = token.range.column - 1;
+  const to = token.range.endColumn - 1;
+  if (token.unitRange === undefined) return [[from, to, 'number']];
+  const suffixFrom = token.unitRange.column - 1;
+  if (token.bad === true) return [[from, suffixFrom, 'number'], [suffixFrom, to, 'invalid']];
+  if (token.unit === null || token.unit === undefined) return [[from, to, 'number']];
+  // The unit is the suffix's end; a letter before it is the SI prefix.
+  const unitFrom = UNIT_SPELLINGS[line.slice(suffixFrom, to)] !== undefined ? suffixFrom : suffixFrom + 1;
+  return unitFrom === from ? [[from, to, 'unit']] : [[from, unitFrom, 'number'], [unitFrom, to, 'unit']];
+}
+
+function punctStyle(token: Token, walk: Walk): CellTokenStyle {
+  switch (token.punct) {
+    case '[':
+    case ']':
+      walk.inBracket = token.punct === '[';
+      return 'squareBracket';
+    case '(':
+    case ')':
+      walk.parens = Math.max(0, walk.parens + (token.punct === '(' ? 1 : -1));
+      if (token.punct === '(') walk.afterEquals = false;
+      return 'paren';
+    case ',':
+      walk.afterEquals = false;
+      return 'punctuation';
+    default:
+      if (token.punct === '=') walk.afterEquals = true;
       return 'operator';
-    }
   }
-  if (ch === '°' || ch === 'Ω' || ch === '%') {
-    stream.next();
-    if (ch === '°') stream.eat('C');
-    state.prevWasNumber = false;
-    return 'unit';
-  }
-  stream.next();
-  return 'invalid';
 }
 
-const cellParser: StreamParser<CellLineState> = {
-  name: 'rolloff-cell',
-  startState: freshState,
-  token: readToken,
-  blankLine: (state) => {
-    Object.assign(state, freshState());
-  },
-  languageData: { commentTokens: { line: '#' } },
-};
-
-/** The cell language as a CodeMirror language. */
-export const cellLanguage = StreamLanguage.define(cellParser);
-
-/** One token of a cell's text with its style; columns are 0-based offsets within the line. */
-export interface CellToken {
-  line: number;
-  from: number;
-  to: number;
-  text: string;
-  style: CellTokenStyle;
-}
-
-/** Tokenizes one line with the same rules the editor colours by; returns the end state too. */
+/** Tokenizes one line with the solver's lexer and styles each token; returns where the line stands too. */
 export function tokenizeCellLine(text: string, line = 1): { tokens: CellToken[]; state: CellLineState } {
-  const state = freshState();
+  const walk: Walk = { head: null, inBracket: false, measureSeen: false, words: 0, parens: 0, afterEquals: false, prevWord: null, previous: null, numbersSeen: 0 };
   const tokens: CellToken[] = [];
-  const stream = new StringStream(text, 4, 2);
-  while (!stream.eol()) {
-    stream.start = stream.pos;
-    const style = readToken(stream, state);
-    if (stream.pos === stream.start) stream.pos += 1;
-    if (style !== null) tokens.push({ line, from: stream.start, to: stream.pos, text: text.slice(stream.start, stream.pos), style });
+  const add = (from: number, to: number, style: CellTokenStyle) => {
+    if (to > from) tokens.push({ line, from, to, text: text.slice(from, to), style });
+  };
+  const lexed = lex(text).lines[0]?.tokens ?? [];
+  for (const token of lexed) {
+    const from = token.range.column - 1;
+    const to = token.range.endColumn - 1;
+    switch (token.kind) {
+      case 'name':
+        add(from, to, classifyWord(token, walk));
+        break;
+      case 'number':
+        for (const [a, b, style] of numberPieces(token, text)) add(a, b, style);
+        walk.numbersSeen += 1;
+        break;
+      case 'string':
+        walk.words += 1;
+        add(from, to, 'string');
+        break;
+      case 'unit':
+        add(from, to, 'unit');
+        break;
+      case 'punct':
+        add(from, to, punctStyle(token, walk));
+        break;
+      case 'error':
+        add(from, to, 'invalid');
+        break;
+    }
+    walk.previous = token;
   }
-  return { tokens, state };
+  // The lexer stops at a comment (and gives up on a line that starts with a dot).
+  const end = lexed.length === 0 ? 0 : lexed[lexed.length - 1].range.endColumn - 1;
+  const hash = text.indexOf('#', end);
+  const unread = text.slice(end, hash >= 0 ? hash : text.length);
+  const skipped = unread.length - unread.trimStart().length;
+  add(end + skipped, end + unread.trimEnd().length, 'invalid');
+  if (hash >= 0) add(hash, text.length, 'comment');
+  const { head, inBracket, measureSeen } = walk;
+  return { tokens, state: { head, inBracket, measureSeen } };
 }
 
 /** Tokenizes a whole cell, line by line. */
 export function tokenizeCell(text: string): CellToken[] {
   return text.split(/\r\n|\r|\n/).flatMap((line, i) => tokenizeCellLine(line, i + 1).tokens);
 }
+
+/** The stream parser's state: the current line's styled tokens, read once at its start. */
+interface StreamState {
+  tokens: CellToken[];
+  next: number;
+}
+
+function readToken(stream: StringStream, state: StreamState): string | null {
+  if (stream.sol()) {
+    state.tokens = tokenizeCellLine(stream.string).tokens;
+    state.next = 0;
+  }
+  while (state.next < state.tokens.length && state.tokens[state.next].to <= stream.pos) state.next++;
+  const token = state.tokens[state.next];
+  if (token === undefined) {
+    stream.skipToEnd();
+    return null;
+  }
+  if (stream.pos < token.from) {
+    stream.pos = token.from;
+    return null;
+  }
+  stream.pos = token.to;
+  state.next++;
+  return token.style;
+}
+
+const cellParser: StreamParser<StreamState> = {
+  name: 'rolloff-cell',
+  startState: () => ({ tokens: [], next: 0 }),
+  token: readToken,
+  languageData: { commentTokens: { line: '#' } },
+};
+
+/** The cell language as a CodeMirror language. */
+export const cellLanguage = StreamLanguage.define(cellParser);
 
 /** Colours for the cell language, from the palette's syntax variables (light and dark). */
 export const cellHighlightStyle = HighlightStyle.define([
