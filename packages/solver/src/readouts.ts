@@ -22,9 +22,10 @@
  *   peak it carries its frequency as `at`, and `peak-frequency` gives that frequency too.
  * - `rolloff` is the change in dB over the last decade of the sweep (an exact solve a
  *   decade below its end).
- * - Loops get the readouts above and `crossover` where |T| falls through 1, `phase-margin` = 180° + ∠T there (in
- *   (−180°, 180°]), `phase-crossover` where ∠T first passes an odd multiple of 180°,
- *   `gain-margin` = −|T| in dB there, +∞ when the phase never gets there in the sweep.
+ * - Loops get the readouts above and `crossover` where |T| falls through 1,
+ *   `phase-margin` = 180° + ∠T there (in (−180°, 180°], with the crossover as `at`),
+ *   `phase-crossover` where ∠T first passes an odd multiple of 180°, `gain-margin` = −|T|
+ *   in dB there (with it as `at`), +∞ when the phase never gets there in the sweep.
  * - Impedance traces: `min-impedance` with `at`, and the shape readouts above.
  */
 import type { Readout, ReadoutId } from './result.js';
