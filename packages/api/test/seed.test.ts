@@ -93,5 +93,14 @@ describe('the demo data', () => {
     expect(circuits.some((c) => /^show loop /m.test(c.text))).toBe(true);
     const revised: { n: string }[] = await db.query('SELECT COUNT(*) AS n FROM cells WHERE revision > 1');
     expect(Number(revised[0]!.n)).toBeGreaterThan(0);
+
+    // A review round in progress: asked, pinned with a reply, and a reviewer who wants changes.
+    const rounds: { state: string; title: string }[] = await db.query(
+      'SELECT a.state, n.title FROM review_assignments a JOIN reviews rv ON rv.id = a.reviewId JOIN notebooks n ON n.id = rv.notebookId',
+    );
+    expect(rounds).toEqual([{ state: 'needs_changes', title: 'Anti-alias filter for the vibration-sensor converter' }]);
+    expect(await db.query('SELECT id FROM review_decisions')).toHaveLength(1);
+    const threads: { comments: string }[] = await db.query('SELECT COUNT(c.id) AS comments FROM pins p JOIN pin_comments c ON c.pinId = p.id GROUP BY p.id ORDER BY p.id');
+    expect(threads.map((thread) => Number(thread.comments))).toEqual([2, 1]);
   });
 });

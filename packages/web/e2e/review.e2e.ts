@@ -14,18 +14,18 @@ const mailbox = process.env.MAIL_STANDIN_URL ?? `http://127.0.0.1:${process.env.
 
 /** The regulator loop with its first compensation: it crosses over far below 20 kHz. */
 const FIRST_LOOP = `# Loop gain of the 3.3 V regulator, opened at the top of the feedback divider.
-let gm = 2
+let gfs = 2
 
 drive inj
-Rt  [inj fb]   100k   ±1%
-Rb  [fb gnd]   60k4   ±1%
+R1  [inj fb]   100k   ±1%
+R2  [fb gnd]   60k4   ±1%
 U1  [gnd fb e] opamp gain 80dB gbw 1M
-Rz  [fb z]     10k
-Cz  [z e]      10n
-Cp  [fb e]     100p
-A1  [out gnd gnd e] gm gm
-Co  [out gnd]  10u    esr 20m
-Rl  [out gnd]  3R3
+R3  [fb z]     10k
+C1  [z e]      10n
+C2  [fb e]     100p
+A1  [out gnd gnd e] gm gfs
+C3  [out gnd]  10u    esr 20m
+R4  [out gnd]  3R3
 
 show loop out / inj
 sweep 10 .. 10M
@@ -33,7 +33,7 @@ require loop phase-margin >= 45 deg
 require loop crossover >= 20k
 `;
 /** The same loop after the review: type II compensation moved up. */
-const SECOND_LOOP = FIRST_LOOP.replace('Rz  [fb z]     10k', 'Rz  [fb z]     91k').replace('Cz  [z e]      10n', 'Cz  [z e]      1n').replace('Cp  [fb e]     100p', 'Cp  [fb e]     10p');
+const SECOND_LOOP = FIRST_LOOP.replace('R3  [fb z]     10k', 'R3  [fb z]     91k').replace('C1  [z e]      10n', 'C1  [z e]      1n').replace('C2  [fb e]     100p', 'C2  [fb e]     10p');
 
 interface Message {
   to: string[];

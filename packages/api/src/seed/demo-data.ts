@@ -8,13 +8,15 @@ import { Not } from 'typeorm';
 import type { DataSource, EntityManager } from 'typeorm';
 import { SYSTEM_USER, User } from '../db/entities/user.js';
 import { demoFork, demoNotebooks } from './demo-notebooks.js';
-import type { DemoNotebook } from './demo-notebooks.js';
+import type { DemoNotebook, DemoReview } from './demo-notebooks.js';
 import { demoUsers } from './demo-users.js';
 import type { Actor } from '../policy.js';
 import { saveCell } from '../services/cells.js';
 import { forkNotebook } from '../services/forks.js';
 import { putMember } from '../services/members.js';
 import { createNotebook, updateNotebook } from '../services/notebooks.js';
+import { addPinComment, createPin } from '../services/pins.js';
+import { decideReview, requestReview } from '../services/reviews.js';
 import { createVersion } from '../services/versions.js';
 
 const marker = 'demo-data-loaded';
@@ -71,8 +73,18 @@ async function loadNotebook(manager: EntityManager, demo: DemoNotebook, actor: (
     }
   }
   for (const version of demo.versions) await createVersion(manager, actor(version.by), notebook.id, version.label);
+  if (demo.review) await loadReview(manager, notebook.id, notebook.cells.map((cell) => cell.id), demo.review, actor);
   if (demo.visibility === 'link') await updateNotebook(manager, owner, notebook.id, { visibility: 'link' });
   return notebook.id;
+}
+
+async function loadReview(manager: EntityManager, notebookId: string, cellIds: number[], demo: DemoReview, actor: (login: string) => Actor): Promise<void> {
+  const { review } = await requestReview(manager, actor(demo.by), notebookId, { reviewerIds: demo.reviewers.map((login) => actor(login).id), message: demo.message });
+  for (const pin of demo.pins) {
+    const made = await createPin(manager, actor(pin.by), notebookId, { cellId: cellIds[pin.cell]!, trace: pin.trace, frequency: pin.frequency, body: pin.text });
+    for (const reply of pin.replies) await addPinComment(manager, actor(reply.by), notebookId, made.id, reply.text);
+  }
+  for (const decision of demo.decisions) await decideReview(manager, actor(decision.by), notebookId, review.id, { state: decision.state, summary: decision.summary });
 }
 
 /**
@@ -97,5 +109,13 @@ async function backdate(manager: EntityManager, notebookId: string, days: number
     [notebookId],
   );
   await manager.query(`UPDATE notebook_versions SET ${shift('createdAt')} WHERE notebookId = ?`, [notebookId]);
+  await manager.query(`UPDATE reviews SET ${shift('createdAt')} WHERE notebookId = ?`, [notebookId]);
+  await manager.query(
+    `UPDATE review_assignments a JOIN reviews rv ON rv.id = a.reviewId SET ${shift('a.createdAt')}, ${shift('a.decidedAt')} WHERE rv.notebookId = ?`,
+    [notebookId],
+  );
+  await manager.query(`UPDATE review_decisions d JOIN reviews rv ON rv.id = d.reviewId SET ${shift('d.createdAt')} WHERE rv.notebookId = ?`, [notebookId]);
+  await manager.query(`UPDATE pins SET ${shift('createdAt')} WHERE notebookId = ?`, [notebookId]);
+  await manager.query(`UPDATE pin_comments c JOIN pins p ON p.id = c.pinId SET ${shift('c.createdAt')} WHERE p.notebookId = ?`, [notebookId]);
   await manager.query(`UPDATE notebook_members SET createdAt = createdAt - INTERVAL ${Number(days)} DAY - INTERVAL 6 HOUR WHERE notebookId = ?`, [notebookId]);
 }

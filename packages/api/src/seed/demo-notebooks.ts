@@ -1,8 +1,10 @@
 /**
  * The demo notebooks: the work of a fictional small instruments company (the people of
- * demo-users.ts). Every circuit cell is written in Rolloff's own cell language and compiles
- * without errors; a few requirements fail on purpose in early revisions, as they did while
- * the team iterated. All part values and figures are invented for the demo.
+ * demo-users.ts). Every circuit cell is written in Rolloff's own cell language, in today's
+ * forms (reference designators with each part's role in a comment), and compiles without
+ * errors; a few requirements fail on purpose in early revisions, as they did while the team
+ * iterated. The products are named by what they are, not by model codes that could be taken
+ * for someone's real product. All part values and figures are invented for the demo.
  */
 import type { MemberRole } from '../db/entities/notebook-member.js';
 
@@ -106,6 +108,7 @@ show adc
 sweep 10 .. 100k
 require adc gain >= -0.5 dB over 10 .. 2k
 require adc gain <= -40 dB over 14k ..
+spread 200 draws seed 7               # the parts within their tolerances, for the review's question
 `,
   antiAliasMultipleFeedback: `# Fourth-order Butterworth again, as two multiple-feedback stages: fewer parts see the
 # op-amp's output impedance at high frequency. Each stage inverts; two make it upright.
@@ -143,11 +146,12 @@ let Rs = 10k
 let Rg = 2k2
 
 drive in                              # preamp output, 1 V
-R1 [in sh]     Rs     ±1%
-C1 [in sh]     4n7    ±5%             # bypasses R1 above a few kHz
+R5 [in src]    100    noise off       # the preamp's output resistance: its noise is the preamp's
+R1 [src sh]    Rs     ±1%
+C1 [src sh]    4n7    ±5%             # bypasses R1 above a few kHz
 R2 [sh gnd]    Rg     ±1%
-U1 [sh fb out] opamp gain 100dB gbw 3M
-R3 [out fb]    45k3   ±1%
+U1 [sh fb out] opamp gain 100dB gbw 3M vnoise 8n inoise 1p
+R3 [out fb]    45k3   ±1%             # make-up gain: 1 + R3/R4
 R4 [fb gnd]    10k    ±1%
 
 show out
@@ -157,7 +161,7 @@ require out gain >= 10 dB at 20k
 `,
   bassAndTrebleLift: `# Bass lift and treble lift in one network, flat through the midrange
 drive in
-# treble section (as in the cell above)
+# treble section: the shelving network and make-up stage of the cell above
 R1 [in sh]     10k    ±1%
 C1 [in sh]     4n7    ±5%
 R2 [sh gnd]    2k2    ±1%
@@ -179,28 +183,28 @@ require out gain >= 6 dB at 20k
 require out gain = 0 dB ± 1.5 dB at 1k
 `,
   railFirstLayout: `# Analog 3.3 V rail at the converter's supply pin: regulator, ferrite bead, three capacitors
-Lreg [reg r] 400n                     # regulator output, inductive above its loop bandwidth
-Rreg [r gnd] 15m
-Lfb  [reg pin] 1u    dcr 60m          # ferrite bead: inductive below its loss peak…
-Rfb  [reg pin] 120                    # …resistive above it
-C1   [pin gnd] 10u   esr 25m esl 1n2  # bulk
-C2   [pin gnd] 1u    esr 10m esl 600p
-C3   [pin gnd] 100n  esr 15m esl 400p
+L1 [reg r]    400n                    # regulator output, inductive above its loop bandwidth
+R1 [r gnd]    15m                     # regulator output resistance
+L2 [reg pin]  1u    dcr 60m           # ferrite bead: inductive below its loss peak…
+R2 [reg pin]  120                     # …and resistive above it
+C1 [pin gnd]  10u   esr 25m esl 1n2   # bulk
+C2 [pin gnd]  1u    esr 10m esl 600p
+C3 [pin gnd]  100n  esr 15m esl 400p
 
 show impedance pin
 sweep 1k .. 200M, 50/decade
 require impedance pin magnitude <= 1 ohm over 10k .. 50M
 `,
   railDamped: `# Same rail with a damping arm: 1.5 Ω in series with 47 µF across the pin
-Lreg [reg r] 400n
-Rreg [r gnd] 15m
-Lfb  [reg pin] 1u    dcr 60m
-Rfb  [reg pin] 120
-C1   [pin gnd] 10u   esr 25m esl 1n2
-C2   [pin gnd] 1u    esr 10m esl 600p
-C3   [pin gnd] 100n  esr 15m esl 400p
-Rd   [pin d]   1R5
-Cd   [d gnd]   47u   esr 30m
+L1 [reg r]    400n                    # regulator output
+R1 [r gnd]    15m
+L2 [reg pin]  1u    dcr 60m           # ferrite bead
+R2 [reg pin]  120
+C1 [pin gnd]  10u   esr 25m esl 1n2
+C2 [pin gnd]  1u    esr 10m esl 600p
+C3 [pin gnd]  100n  esr 15m esl 400p
+R3 [pin d]    1R5                     # damping arm: 1.5 Ω…
+C4 [d gnd]    47u   esr 30m           # …in series with an electrolytic
 
 show impedance pin
 sweep 1k .. 200M, 50/decade
@@ -208,18 +212,18 @@ require impedance pin magnitude <= 1 ohm over 10k .. 50M
 `,
   loopFirstCompensation: `# Loop gain of the 3.3 V regulator, opened at the top of the feedback divider.
 # The drive stands in for the output there; T = V(out) / V(inj) around the loop.
-let gm = 2                            # pass device, A/V at 1 A load
+let gfs = 2                           # pass device transconductance, A/V at 1 A load
 
 drive inj
-Rt  [inj fb]   100k   ±1%             # divider: 3.3 V → 1.24 V reference
-Rb  [fb gnd]   60k4   ±1%
+R1  [inj fb]   100k   ±1%             # divider top: 3.3 V → 1.24 V reference
+R2  [fb gnd]   60k4   ±1%             # divider bottom
 U1  [gnd fb e] opamp gain 80dB gbw 1M # error amplifier, reference is AC ground
-Rz  [fb z]     10k                    # type II compensation
-Cz  [z e]      10n
-Cp  [fb e]     100p
-A1  [out gnd gnd e] gm gm             # pass device: gate down, current up
-Co  [out gnd]  10u    esr 20m
-Rl  [out gnd]  3R3                    # 1 A load
+R3  [fb z]     10k                    # type II compensation: the zero…
+C1  [z e]      10n
+C2  [fb e]     100p                   # …and the pole above it
+A1  [out gnd gnd e] gm gfs            # pass device: gate down, current up
+C3  [out gnd]  10u    esr 20m         # output capacitor
+R4  [out gnd]  3R3                    # 1 A load
 
 show loop out / inj
 sweep 10 .. 10M
@@ -228,18 +232,18 @@ require loop crossover >= 20k
 `,
   loopTypeII: `# Loop gain of the 3.3 V regulator, opened at the top of the feedback divider.
 # The drive stands in for the output there; T = V(out) / V(inj) around the loop.
-let gm = 2                            # pass device, A/V at 1 A load
+let gfs = 2                           # pass device transconductance, A/V at 1 A load
 
 drive inj
-Rt  [inj fb]   100k   ±1%             # divider: 3.3 V → 1.24 V reference
-Rb  [fb gnd]   60k4   ±1%
+R1  [inj fb]   100k   ±1%             # divider top: 3.3 V → 1.24 V reference
+R2  [fb gnd]   60k4   ±1%             # divider bottom
 U1  [gnd fb e] opamp gain 80dB gbw 1M # error amplifier, reference is AC ground
-Rz  [fb z]     91k                    # type II compensation
-Cz  [z e]      1n 
-Cp  [fb e]     10p 
-A1  [out gnd gnd e] gm gm             # pass device: gate down, current up
-Co  [out gnd]  10u    esr 20m
-Rl  [out gnd]  3R3                    # 1 A load
+R3  [fb z]     91k                    # type II compensation: the zero…
+C1  [z e]      1n
+C2  [fb e]     10p                    # …and the pole above it
+A1  [out gnd gnd e] gm gfs            # pass device: gate down, current up
+C3  [out gnd]  10u    esr 20m         # output capacitor
+R4  [out gnd]  3R3                    # 1 A load
 
 show loop out / inj
 sweep 10 .. 10M
@@ -248,18 +252,18 @@ require loop crossover >= 20k
 `,
   loopSlowAmplifier: `# Loop gain of the 3.3 V regulator, opened at the top of the feedback divider.
 # The drive stands in for the output there; T = V(out) / V(inj) around the loop.
-let gm = 2                            # pass device, A/V at 1 A load
+let gfs = 2                           # pass device transconductance, A/V at 1 A load
 
 drive inj
-Rt  [inj fb]   100k   ±1%             # divider: 3.3 V → 1.24 V reference
-Rb  [fb gnd]   60k4   ±1%
+R1  [inj fb]   100k   ±1%             # divider top: 3.3 V → 1.24 V reference
+R2  [fb gnd]   60k4   ±1%             # divider bottom
 U1  [gnd fb e] opamp gain 80dB gbw 200k # error amplifier, reference is AC ground
-Rz  [fb z]     91k                    # type II compensation
-Cz  [z e]      1n 
-Cp  [fb e]     10p 
-A1  [out gnd gnd e] gm gm             # pass device: gate down, current up
-Co  [out gnd]  10u    esr 20m
-Rl  [out gnd]  3R3                    # 1 A load
+R3  [fb z]     91k                    # type II compensation: the zero…
+C1  [z e]      1n
+C2  [fb e]     10p                    # …and the pole above it
+A1  [out gnd gnd e] gm gfs            # pass device: gate down, current up
+C3  [out gnd]  10u    esr 20m         # output capacitor
+R4  [out gnd]  3R3                    # 1 A load
 
 show loop out / inj
 sweep 10 .. 10M
@@ -275,6 +279,25 @@ export interface DemoCell {
   edits?: { by: string; text: string }[];
 }
 
+/** A pin on a circuit cell's plot (by the cell's position), with the replies in its thread. */
+export interface DemoPin {
+  by: string;
+  cell: number;
+  trace: string;
+  frequency: number;
+  text: string;
+  replies: { by: string; text: string }[];
+}
+
+/** A review round on the notebook's latest version: who asks whom, the pins, then the decisions. */
+export interface DemoReview {
+  by: string;
+  reviewers: string[];
+  message: string;
+  pins: DemoPin[];
+  decisions: { by: string; state: 'needs_changes' | 'signed_off'; summary: string }[];
+}
+
 export interface DemoNotebook {
   key: string;
   title: string;
@@ -286,6 +309,8 @@ export interface DemoNotebook {
   cells: DemoCell[];
   /** Versions made after the edits, by the given login. */
   versions: { by: string; label: string }[];
+  /** A review in progress, so a newcomer sees what one looks like. */
+  review?: DemoReview;
   /** How long ago the work happened, so the list and histories read like a real week. */
   daysAgo: number;
 }
@@ -294,7 +319,7 @@ export const demoNotebooks: DemoNotebook[] = [
   {
     key: 'anti-alias',
     title: 'Anti-alias filter for the vibration-sensor converter',
-    description: 'Filter between the VS-200 charge amplifier and the converter: flat to 2 kHz, at least 40 dB down from 14 kHz at 16 kS/s.',
+    description: "Filter between the vibration sensor's charge amplifier and the converter: flat to 2 kHz, at least 40 dB down from 14 kHz at 16 kS/s.",
     owner: 'ines.carvalho',
     members: [
       ['tobias.okafor', 'editor'],
@@ -306,7 +331,7 @@ export const demoNotebooks: DemoNotebook[] = [
     cells: [
       {
         kind: 'note',
-        text: `# Anti-alias filter, VS-200 vibration sensor
+        text: `# Anti-alias filter, vibration sensor
 
 The charge amplifier hands us 0.5 Hz – 2 kHz. The converter samples at **16 kS/s**, so
 anything from 14 kHz up folds back into the band we measure.
@@ -337,11 +362,41 @@ stays near 43 dB. Tobias will measure the first boards on the bench next week.`,
       },
     ],
     versions: [{ by: 'ines.carvalho', label: 'Design review 1' }],
+    review: {
+      by: 'ines.carvalho',
+      reviewers: ['kenji.arai'],
+      message: 'The fourth-order filter (cell 4) and its snapped values (cell 5). Mostly the stopband at 14 kHz, please: that is where we have the least room.',
+      pins: [
+        {
+          by: 'kenji.arai',
+          cell: 3,
+          trace: 'converter pin',
+          frequency: 14_000,
+          text: 'About 43 dB down here with every part at its nominal value. How much of the 3 dB of room is left with 5 % capacitors?',
+          replies: [{ by: 'ines.carvalho', text: 'Fair question. Cell 5 now carries a spread over the tolerances; I will post the worst draw next to the bench figures.' }],
+        },
+        {
+          by: 'kenji.arai',
+          cell: 4,
+          trace: 'adc',
+          frequency: 2_000,
+          text: 'Flat to 2 kHz after snapping: fine by me.',
+          replies: [],
+        },
+      ],
+      decisions: [
+        {
+          by: 'kenji.arai',
+          state: 'needs_changes',
+          summary: 'Show the attenuation at 14 kHz across the tolerances before we order boards. The rest reads well.',
+        },
+      ],
+    },
   },
   {
     key: 'tone',
     title: 'Tone network for the bench audio amplifier',
-    description: 'Gentle bass and treble lift for the BA-40 listening tests; the midrange stays flat.',
+    description: "Gentle bass and treble lift for the bench amplifier's listening tests; the midrange stays flat.",
     owner: 'tobias.okafor',
     members: [
       ['mara.lindqvist', 'editor'],
@@ -353,7 +408,7 @@ stays near 43 dB. Tobias will measure the first boards on the bench next week.`,
     cells: [
       {
         kind: 'note',
-        text: `# Tone network, BA-40 bench amplifier
+        text: `# Tone network, bench audio amplifier
 
 Customers asked for a gentle lift at both ends of the audio band for listening tests,
 flat through the midrange. Two shelving sections, each followed by a stage that makes up
@@ -368,7 +423,7 @@ its loss. Shared by link with the whole team for the listening test.
   {
     key: 'decoupling',
     title: 'Decoupling network for the mixed-signal board',
-    description: 'Analog rail of the MX-8 board: below 1 Ω at the converter supply pin from 10 kHz to 50 MHz.',
+    description: 'Analog rail of the mixed-signal board: below 1 Ω at the converter supply pin from 10 kHz to 50 MHz.',
     owner: 'kenji.arai',
     members: [
       ['priya.venkat', 'editor'],
@@ -380,7 +435,7 @@ its loss. Shared by link with the whole team for the listening test.
     cells: [
       {
         kind: 'note',
-        text: `# Analog rail of the MX-8 board
+        text: `# Analog rail of the mixed-signal board
 
 Target: below 1 Ω at the converter's supply pin from 10 kHz to 50 MHz. The first layout
 puts the regulator, a ferrite bead and three capacitors on the rail; see the revisions of
