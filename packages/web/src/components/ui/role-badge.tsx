@@ -3,7 +3,7 @@ const TONES: Record<string, string> = {
   editor: 'bg-accent-soft text-accent',
   reviewer: 'bg-warn-soft text-warn',
   viewer: 'bg-sunken text-ink-soft',
-  admin: 'bg-sand text-ink',
+  admin: 'bg-sand text-sand-ink',
   member: 'bg-sunken text-ink-soft',
 };
 
