@@ -4,6 +4,14 @@ import { CellTextSchema, DiagnosticCountsSchema, LIMITS, TimestampSchema, UserRe
 export const CellKindSchema = z.enum(['circuit', 'note']);
 export type CellKind = z.infer<typeof CellKindSchema>;
 
+/**
+ * A cell's name wherever one is named (review, history, activity, e-mail, messages): its kind
+ * and its 1-based place, "Circuit 2", "Note 3"; a deleted cell keeps the place it had.
+ */
+export function cellName(cell: { kind: CellKind; position: number; deleted?: boolean }): string {
+  return `${cell.kind === 'circuit' ? 'Circuit' : 'Note'} ${cell.position + 1}${cell.deleted ? ' (deleted)' : ''}`;
+}
+
 /** A cell at its current revision. `diagnostics` is null for note cells. */
 export const CellSchema = z.object({
   id: z.number().int(),

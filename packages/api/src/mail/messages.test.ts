@@ -9,7 +9,7 @@ describe('the e-mails', () => {
     const request = reviewRequestedMail(context, { reviewId: 7, round: 2, version: { number: 3, label: 'For review' }, requester: 'Inês Carvalho', message: '' });
     expect(request.text).toContain('https://rolloff.example.com/notebooks/Ab3_xY9-kL0q?review=7');
     expect(request.text).toContain('https://rolloff.example.com/settings');
-    const reply = pinReplyMail(context, { pinId: 12, revisionNumber: 1, trace: 'out', frequency: 48_000, author: 'Kenji Arai', body: 'ok' });
+    const reply = pinReplyMail(context, { pinId: 12, cell: 'Circuit 2', revisionNumber: 1, trace: 'out', frequency: 48_000, author: 'Kenji Arai', body: 'ok' });
     expect(reply.text).toContain('https://rolloff.example.com/notebooks/Ab3_xY9-kL0q#pin-12');
   });
 
@@ -27,7 +27,7 @@ describe('the e-mails', () => {
 
   it('name the frequency of a pin with an SI prefix', () => {
     // 1/(2π·1 kΩ·100 nF) = 1591.549… Hz, an RC corner; four significant digits.
-    const reply = pinReplyMail(context, { pinId: 1, revisionNumber: 2, trace: 'out', frequency: 1 / (2 * Math.PI * 1e3 * 100e-9), author: 'A', body: 'b' });
-    expect(reply.text).toContain('the pin at 1.592 kHz on trace out (cell revision 2)');
+    const reply = pinReplyMail(context, { pinId: 1, cell: 'Circuit 2', revisionNumber: 2, trace: 'out', frequency: 1 / (2 * Math.PI * 1e3 * 100e-9), author: 'A', body: 'b' });
+    expect(reply.text).toContain('the pin at 1.592 kHz on trace out of Circuit 2 (revision 2)');
   });
 });

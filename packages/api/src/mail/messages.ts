@@ -75,10 +75,10 @@ export function reviewDecidedMail(
 
 export function pinReplyMail(
   context: MailContext,
-  input: { pinId: number; revisionNumber: number; trace: string; frequency: number; author: string; body: string },
+  input: { pinId: number; cell: string; revisionNumber: number; trace: string; frequency: number; author: string; body: string },
 ): ComposedMail {
   const link = notebookLink(context, `#pin-${input.pinId}`);
-  const where = `the pin at ${formatSi(input.frequency, 'Hz')} on trace ${oneLine(input.trace, 60)} (cell revision ${input.revisionNumber})`;
+  const where = `the pin at ${formatSi(input.frequency, 'Hz')} on trace ${oneLine(input.trace, 60)} of ${input.cell} (revision ${input.revisionNumber})`;
   return {
     subject: `New reply on a pin in ${quoted(context.notebook.title)}`,
     text:

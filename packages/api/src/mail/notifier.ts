@@ -14,7 +14,7 @@ import { createMailer } from './mailer.js';
 import type { Mailer, OutgoingMail } from './mailer.js';
 import { addedToNotebookMail, pinReplyMail, reviewDecidedMail, reviewRequestedMail } from './messages.js';
 import type { ComposedMail, MailContext } from './messages.js';
-import { mailNotebook, ownerAndEditors, recipientsAmong } from './recipients.js';
+import { mailCellName, mailNotebook, ownerAndEditors, recipientsAmong } from './recipients.js';
 import type { MailNotebook, Recipient } from './recipients.js';
 
 /** The person whose action caused the mail. */
@@ -129,7 +129,7 @@ export function createNotifier({ smtp, database, retryDelays }: NotifierOptions)
     notebookId: string,
     kind: MailKind,
     userIds: (manager: EntityManager, notebook: MailNotebook) => Promise<number[]>,
-    compose: (context: MailContext) => ComposedMail,
+    compose: (context: MailContext, manager: EntityManager) => ComposedMail | Promise<ComposedMail>,
   ): void {
     track(async () => {
       const db = await database();
@@ -137,7 +137,7 @@ export function createNotifier({ smtp, database, retryDelays }: NotifierOptions)
       if (!notebook) return;
       const recipients = await recipientsAmong(db.manager, notebook, await userIds(db.manager, notebook), kind, event.by.id);
       const context: MailContext = { baseUrl: event.baseUrl, notebook: { id: notebook.id, title: notebook.title } };
-      const composed = compose(context);
+      const composed = await compose(context, db.manager);
       await Promise.all(recipients.map((recipient) => send({ recipient, kind, notebookId }, composed)));
     });
   }
@@ -176,9 +176,10 @@ export function createNotifier({ smtp, database, retryDelays }: NotifierOptions)
     pinReplied(event) {
       const { pin, comment } = event;
       const earlier = pin.comments.filter((c) => c.id !== comment.id && c.author).map((c) => c.author!.id);
-      notify(event, pin.notebookId, 'pinReplies', async () => earlier, (context) =>
+      notify(event, pin.notebookId, 'pinReplies', async () => earlier, async (context, manager) =>
         pinReplyMail(context, {
           pinId: pin.id,
+          cell: await mailCellName(manager, pin.cellId),
           revisionNumber: pin.revisionNumber,
           trace: pin.trace,
           frequency: pin.frequency,

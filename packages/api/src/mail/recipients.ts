@@ -3,6 +3,8 @@
  * notebook, have an address, and have not turned that kind of mail off.
  */
 import type { EntityManager } from 'typeorm';
+import { cellName } from '../contract/cells.js';
+import type { CellKind } from '../contract/cells.js';
 import type { MailKind } from '../contract/settings.js';
 import { can } from '../policy.js';
 import type { NotebookAccess } from '../policy.js';
@@ -23,6 +25,12 @@ export interface MailNotebook extends Omit<NotebookAccess, 'memberRole'> {
 export async function mailNotebook(manager: EntityManager, notebookId: string): Promise<MailNotebook | null> {
   const rows: MailNotebook[] = await manager.query('SELECT id, title, ownerId, visibility, deletedAt FROM notebooks WHERE id = ?', [notebookId]);
   return rows[0] ?? null;
+}
+
+/** A cell's name as every screen gives it ("Circuit 2"). */
+export async function mailCellName(manager: EntityManager, cellId: number): Promise<string> {
+  const [cell]: { kind: CellKind; position: number; deletedAt: Date | null }[] = await manager.query('SELECT kind, position, deletedAt FROM cells WHERE id = ?', [cellId]);
+  return cell ? cellName({ kind: cell.kind, position: cell.position, deleted: cell.deletedAt !== null }) : 'a deleted cell';
 }
 
 /** The owner and the editors of a notebook. */

@@ -4,6 +4,7 @@
  * the notebook reads its pins; pinning, replying, resolving and reopening need `review`.
  */
 import type { EntityManager } from 'typeorm';
+import { cellName } from '../contract/cells.js';
 import type { Pin, PinComment, PinList } from '../contract/pins.js';
 import { Pin as PinEntity, PinComment as PinCommentEntity } from '../db/entities/pin.js';
 import { notFound, validation } from '../errors.js';
@@ -91,13 +92,17 @@ export async function createPin(
 ): Promise<Pin> {
   return inTransaction(db, async (manager) => {
     await loadNotebookFor(manager, actor, notebookId, 'review', { lock: true });
-    const cells: { kind: 'circuit' | 'note'; revision: number }[] = await manager.query('SELECT kind, revision FROM cells WHERE id = ? AND notebookId = ?', [input.cellId, notebookId]);
+    const cells: { kind: 'circuit' | 'note'; position: number; revision: number; deletedAt: Date | null }[] = await manager.query(
+      'SELECT kind, position, revision, deletedAt FROM cells WHERE id = ? AND notebookId = ?',
+      [input.cellId, notebookId],
+    );
     const cell = cells[0];
-    if (!cell) throw fieldError('cellId', `This notebook has no cell ${input.cellId}.`);
-    if (cell.kind !== 'circuit') throw fieldError('cellId', `Cell ${input.cellId} is a note cell; pins go on the plot of a circuit cell.`);
+    if (!cell) throw fieldError('cellId', `This notebook has no cell with id ${input.cellId}.`);
+    const name = cellName({ kind: cell.kind, position: cell.position, deleted: cell.deletedAt !== null });
+    if (cell.kind !== 'circuit') throw fieldError('cellId', `${name} is a note cell; pins go on the plot of a circuit cell.`);
     const revisionNumber = input.revisionNumber ?? cell.revision;
     if (revisionNumber > cell.revision) {
-      throw fieldError('revisionNumber', `Cell ${input.cellId} has no revision ${revisionNumber}; its latest is revision ${cell.revision}.`);
+      throw fieldError('revisionNumber', `${name} has no revision ${revisionNumber}; its latest is revision ${cell.revision}.`);
     }
     const now = new Date();
     const inserted = await manager.insert(PinEntity, {

@@ -2,7 +2,8 @@
  * What the notebook routes read from their address and share: the notebook id (a 404 when
  * the address cannot name one) and how a cell is named in lists of pins and activity.
  */
-import { NotebookIdSchema } from '@rolloff/api/contract';
+import { NotebookIdSchema, cellName } from '@rolloff/api/contract';
+import type { CellKind } from '@rolloff/api/contract';
 import { data } from 'react-router-dom';
 
 /** The notebook id of the address, or a 404 when it cannot be one. */
@@ -12,11 +13,11 @@ export function notebookIdOf(params: { id?: string }): string {
   return parsed.data;
 }
 
-/** "cell 2": where a cell stands among the notebook's live cells. */
-export function cellNamer(cells: readonly { id: number; position: number }[]): (cellId: number) => string {
-  const positions = new Map(cells.map((cell) => [cell.id, cell.position]));
+/** A notebook cell's name by its id ("Circuit 2", the contract's cellName), or "a deleted cell" for one no longer listed. */
+export function cellNamer(cells: readonly { id: number; kind: CellKind; position: number; deletedAt: string | null }[]): (cellId: number) => string {
+  const byId = new Map(cells.map((cell) => [cell.id, cell]));
   return (cellId) => {
-    const position = positions.get(cellId);
-    return position === undefined ? 'a deleted cell' : `cell ${position + 1}`;
+    const cell = byId.get(cellId);
+    return cell ? cellName({ kind: cell.kind, position: cell.position, deleted: cell.deletedAt !== null }) : 'a deleted cell';
   };
 }

@@ -98,8 +98,8 @@ describe('/api/notebooks/:id/pins', () => {
       [{ ...good, trace: 'x'.repeat(LIMITS.traceLabelLength + 1) }, 'trace', /at most 100/],
       [{ ...good, body: '  ' }, 'body', /cannot be empty/],
       [{ ...good, body: 'x'.repeat(LIMITS.markdownLength + 1) }, 'body', /at most 10000/],
-      [{ ...good, cellId: 999999 }, 'cellId', /no cell 999999/],
-      [{ ...good, cellId: notebook.cells[0]!.id }, 'cellId', /note cell/],
+      [{ ...good, cellId: 999999 }, 'cellId', /no cell with id 999999/],
+      [{ ...good, cellId: notebook.cells[0]!.id }, 'cellId', /cellId: Note 1 is a note cell/],
       [{ ...good, revisionNumber: 4 }, 'revisionNumber', /no revision 4; its latest is revision 1/],
       [{ ...good, colour: 'red' }, '', /colour/],
     ];
@@ -180,7 +180,7 @@ describe('/api/notebooks/:id/pins', () => {
     expect(toReviewer).toHaveLength(1);
     expect(toReviewer[0]!.subject).toBe(`New reply on a pin in “${notebook.title}”`);
     // 1591.549… Hz, the corner above, shown to four digits.
-    expect(toReviewer[0]!.text).toContain('the pin at 1.592 kHz on trace out (cell revision 1)');
+    expect(toReviewer[0]!.text).toContain('the pin at 1.592 kHz on trace out of Circuit 2 (revision 1)');
     expect(toReviewer[0]!.text).toContain('> It meets the 1.2 kHz requirement.');
     expect(toReviewer[0]!.text).toContain(`${server.url}/notebooks/${notebook.id}#pin-${pin.id}`);
     expect(await mailTo(people.editor.email!)).toEqual([]);

@@ -4,6 +4,7 @@
  * each plot for people who may review, and a side panel with the decision controls of an
  * assigned reviewer, the people asked, every pin's thread and the round's history.
  */
+import { cellName as nameOfCell } from '@rolloff/api/contract';
 import type { Notebook, Review, Version } from '@rolloff/api/contract';
 import { formatSi } from '@rolloff/solver';
 import { useQueryClient } from '@tanstack/react-query';
@@ -112,7 +113,7 @@ function ReviewPage({ notebook, review, version, meId }: ReviewPageProps) {
   const cellName = useCallback(
     (cellId: number) => {
       const cell = cellsById.get(cellId);
-      return cell ? `cell ${cell.position + 1}` : 'a cell not in this version';
+      return cell ? nameOfCell(cell) : 'a cell not in this version';
     },
     [cellsById],
   );
@@ -166,15 +167,15 @@ function ReviewPage({ notebook, review, version, meId }: ReviewPageProps) {
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0 space-y-4" data-testid="review-cells">
           {version.cells.map((cell, index) => (
-            <article key={cell.cellId} className="rounded-xl border border-rule bg-panel/60 p-3" aria-label={`Cell ${index + 1}`} data-cell-id={cell.cellId}>
+            <article key={cell.cellId} className="rounded-xl border border-rule bg-panel/60 p-3" aria-label={nameOfCell(cell)} data-cell-id={cell.cellId}>
               <p className="mb-2 text-xs font-semibold uppercase tracking-wide text-ink-faint">
-                {cell.kind === 'circuit' ? 'Circuit cell' : 'Note cell'} {index + 1} · revision {cell.revision}
+                {nameOfCell(cell)} · revision {cell.revision}
               </p>
               {cell.kind === 'circuit' ? (
                 <CircuitReader
                   cellKey={`${id}:review:v${version.number}:${cell.cellId}`}
                   text={cell.text}
-                  label={`Circuit cell ${index + 1} of version ${version.number}`}
+                  label={`${nameOfCell(cell)} of version ${version.number}`}
                   filename={`${stem}-cell-${index + 1}`}
                   pins={marksOf(cell.cellId, cell.revision)}
                   onPick={(pick) => {

@@ -1,4 +1,5 @@
 /** One version of a notebook, read-only: its cells as they were, and a fork from it. */
+import { cellName } from '@rolloff/api/contract';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { data, Link, useNavigate, useParams } from 'react-router-dom';
 import { Button } from '../../components/ui/button';
@@ -70,16 +71,16 @@ export function Component() {
       </header>
       <div className="space-y-4" data-testid="version-cells">
         {v.cells.map((cell, index) => (
-          <article key={cell.cellId} className="rounded-xl border border-rule bg-panel/60 p-3" aria-label={`Cell ${index + 1}`}>
+          <article key={cell.cellId} className="rounded-xl border border-rule bg-panel/60 p-3" aria-label={cellName(cell)}>
             <p className="mb-2 text-xs font-semibold uppercase tracking-wide text-ink-faint">
-              {cell.kind === 'circuit' ? 'Circuit cell' : 'Note cell'} · revision {cell.revision}
+              {cellName(cell)} · revision {cell.revision}
             </p>
             {cell.kind === 'circuit' ? (
               <CircuitWorkbench
                 cellKey={`${id}:v${v.number}:${cell.cellId}`}
                 text={cell.text}
                 readOnly
-                label={`Circuit cell ${index + 1} of version ${v.number}`}
+                label={`${cellName(cell)} of version ${v.number}`}
                 filename={`${stem}-cell-${index + 1}`}
                 helpHref={appPaths.help()}
               />
