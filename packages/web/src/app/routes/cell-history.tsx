@@ -1,4 +1,5 @@
 /** The history of one cell, with its two chosen revisions overlaid by the circuit feature. */
+import { cellName } from '@rolloff/api/contract';
 import { useQueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { data, useParams } from 'react-router-dom';
@@ -39,8 +40,7 @@ export function Component() {
   const cells = [...notebook.data.cells, ...notebook.data.deletedCells];
   const cell = cells.find((c) => c.id === cellId);
   if (!cell) return <ErrorMessage error={new Error('This cell is not in the notebook any more.')} />;
-  const position = notebook.data.cells.findIndex((c) => c.id === cellId);
-  const title = `History of ${cell.kind === 'circuit' ? 'circuit' : 'note'} cell ${position >= 0 ? position + 1 : '(deleted)'}`;
+  const title = `History of ${cellName({ kind: cell.kind, position: cell.position, deleted: cell.deletedAt !== null })}`;
   return (
     <SubPage backTo={appPaths.notebook(id)} backLabel={notebook.data.title} title={title}>
       <CellHistory
