@@ -1,13 +1,16 @@
 /**
- * The plots of one cell (or of several revisions overlaid): each figure with its download
- * buttons, and pins on it when given. Loaded lazily (default export), as it brings Plotly.
+ * The plots of one cell (or of several revisions overlaid): each figure with its toolbar
+ * (downloads and reset zoom), and pins on it when given. Loaded lazily (default export), as it
+ * brings Plotly.
  */
 import { useMemo, useRef } from 'react';
+import { figureCsv } from './figure-csv';
 import { readPlotPick } from './plot-pins';
 import type { PlotPick, PlotPin } from './plot-pins';
 import { PlotlyChart } from './plotly-chart';
 import type { ChartHandle } from './plotly-chart';
 import { usePlotTheme } from './plot-theme';
+import { PlotToolbar, saveText } from './plot-toolbar';
 import { figuresFor } from './result-figures';
 import type { Figure, PlotSeries } from './result-figures';
 
@@ -33,19 +36,12 @@ function FigurePanel({ figure, filename, compact, onPick }: { figure: Figure; fi
     <figure className="rounded-lg border border-rule bg-panel">
       <figcaption className="flex items-center justify-between gap-2 border-b border-rule px-3 py-1.5 text-sm">
         <span className="font-medium text-ink-soft">{figure.title}</span>
-        <span className="flex gap-1">
-          {(['png', 'svg'] as const).map((format) => (
-            <button
-              key={format}
-              type="button"
-              onClick={() => void chart.current?.download(format, stem)}
-              className="rounded px-2 py-0.5 text-xs text-ink-soft hover:bg-sunken hover:text-ink"
-              aria-label={`Download the ${figure.title.toLowerCase()} as ${format.toUpperCase()}`}
-            >
-              {format.toUpperCase()}
-            </button>
-          ))}
-        </span>
+        <PlotToolbar
+          title={figure.title}
+          onImage={(format) => void chart.current?.download(format, stem)}
+          onCsv={() => saveText(`${stem}.csv`, figureCsv(figure), 'text/csv')}
+          onResetZoom={() => void chart.current?.resetZoom()}
+        />
       </figcaption>
       <PlotlyChart
         ref={chart}
@@ -68,7 +64,10 @@ function FigurePanel({ figure, filename, compact, onPick }: { figure: Figure; fi
 /** Every figure the series have something for. */
 export default function CircuitPlots({ series, filename, compact = false, pins = NO_PINS, onPick }: CircuitPlotsProps) {
   const theme = usePlotTheme();
-  const figures = useMemo(() => figuresFor(series, theme, pins), [series, theme, pins]);
+  // Every empty list of pins is the same one: the notebook's "no pins on this revision" and its
+  // "no pins while the text is unsaved" must not redraw the plots at the first keystroke.
+  const shownPins = pins.length === 0 ? NO_PINS : pins;
+  const figures = useMemo(() => figuresFor(series, theme, shownPins), [series, theme, shownPins]);
   if (figures.length === 0) {
     return <p className="rounded-lg border border-dashed border-rule px-4 py-8 text-center text-sm text-ink-faint">Nothing to plot yet: add a show line.</p>;
   }

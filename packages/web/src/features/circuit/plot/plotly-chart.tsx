@@ -1,7 +1,8 @@
 /**
  * A thin wrapper of our own around Plotly.react and Plotly.purge: draws a figure into a
  * div, redraws in place when the figure changes, reports clicks on its points, and frees
- * Plotly's state on unmount.
+ * Plotly's state on unmount. Plotly's own mode bar is off (its buttons, and with them any
+ * offer to send the chart to Plotly's hosted service): the plot toolbar is ours.
  * This module is only reached through a lazy import, so Plotly stays out of the first page.
  */
 import Plotly from 'plotly.js-basic-dist-min';
@@ -13,13 +14,17 @@ import type { Figure } from './result-figures';
 export interface ChartHandle {
   /** Saves the figure as a PNG or SVG file. */
   download(format: 'png' | 'svg', filename: string): Promise<void>;
+  /** Back to the figure's own axis ranges after zooming or panning. */
+  resetZoom(): Promise<void>;
 }
 
-const config: Partial<Plotly.Config> = {
+export const chartConfig: Partial<Plotly.Config> = {
   responsive: true,
+  displayModeBar: false,
   displaylogo: false,
-  displayModeBar: 'hover',
-  modeBarButtonsToRemove: ['toImage', 'lasso2d', 'select2d', 'autoScale2d'],
+  showLink: false,
+  showSendToCloud: false,
+  showEditInChartStudio: false,
 };
 
 export interface PlotlyChartProps {
@@ -38,13 +43,21 @@ export function PlotlyChart({ figure, label, className, onPointClick, ref }: Plo
   const clicked = useRef(onPointClick);
   clicked.current = onPointClick;
 
+  // Plotly writes zoom and pan into the layout it is given: it gets a copy, so the figure's
+  // own ranges stay as they were and resetting the zoom is drawing the figure again.
+  const draw = async (target: HTMLDivElement) => {
+    const plot = await Plotly.react(target, figure.data, structuredClone(figure.layout), chartConfig);
+    plot.removeAllListeners('plotly_click');
+    plot.on('plotly_click', (event) => clicked.current?.(event.points));
+  };
+
+  // Drawn in a task of its own, never inside React's commit: a commit that follows a keystroke
+  // then ends as soon as the editor has the key, and the plot catches up after.
   useEffect(() => {
-    const target = element.current;
-    if (!target) return;
-    void Plotly.react(target, figure.data, figure.layout, config).then((plot) => {
-      plot.removeAllListeners('plotly_click');
-      plot.on('plotly_click', (event) => clicked.current?.(event.points));
-    });
+    const timer = setTimeout(() => {
+      if (element.current) void draw(element.current);
+    }, 0);
+    return () => clearTimeout(timer);
   }, [figure]);
 
   useEffect(() => {
@@ -58,6 +71,9 @@ export function PlotlyChart({ figure, label, className, onPointClick, ref }: Plo
     async download(format, filename) {
       if (!element.current) return;
       await Plotly.downloadImage(element.current, { format, filename, width: element.current.clientWidth || 900, height: element.current.clientHeight || 520 });
+    },
+    async resetZoom() {
+      if (element.current) await draw(element.current);
     },
   }));
 
