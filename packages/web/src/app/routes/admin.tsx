@@ -2,6 +2,7 @@ import type { LoaderFunctionArgs } from 'react-router-dom';
 import { data, useLoaderData } from 'react-router-dom';
 import { UsersTable } from '../../features/admin/components/users-table';
 import { requireMe } from '../loaders';
+import { useDocumentTitle } from '../../hooks/use-document-title';
 
 export async function loader({ request }: LoaderFunctionArgs) {
   const me = await requireMe(request);
@@ -11,6 +12,7 @@ export async function loader({ request }: LoaderFunctionArgs) {
 
 /** Site users for admins. */
 export function Component() {
+  useDocumentTitle('People');
   const { meId } = useLoaderData<typeof loader>();
   return (
     <section className="space-y-6">

@@ -13,6 +13,7 @@ import { orRouteError, requireMe } from '../loaders';
 import { queryClient } from '../query-client';
 import { notebookIdOf } from '../route-params';
 import { slugOf } from '../../lib/slug';
+import { useDocumentTitle } from '../../hooks/use-document-title';
 
 function cellIdOf(params: { cellId?: string }): number {
   const id = Number(params.cellId);
@@ -34,6 +35,7 @@ export function Component() {
   const id = notebookIdOf(params);
   const cellId = cellIdOf(params);
   const notebook = useNotebook(id);
+  useDocumentTitle('Cell history', notebook.data?.title);
   const client = useQueryClient();
   if (notebook.isPending) return <Loading />;
   if (notebook.isError) return <ErrorMessage error={notebook.error} retry={() => void notebook.refetch()} />;

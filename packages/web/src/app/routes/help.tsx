@@ -1,8 +1,10 @@
 import { SmallSignalNote } from '../../features/circuit/components/hazard-caution';
 import { LanguageReference } from '../../features/help/components/language-reference';
+import { useDocumentTitle } from '../../hooks/use-document-title';
 
 /** The cell language reference, with what results mean and where they stop. */
 export function Component() {
+  useDocumentTitle('The cell language');
   return (
     <section className="space-y-6">
       <div className="max-w-3xl space-y-3">

@@ -8,6 +8,7 @@ import { PlotPlaceholder } from '../../features/circuit/components/lazy-parts';
 import { HealthStatus } from '../../features/health/components/health-status';
 import { appPaths } from '../../lib/paths';
 import { queryClient } from '../query-client';
+import { useDocumentTitle } from '../../hooks/use-document-title';
 
 // The example brings the solver's formatting and the plot; the page's words come first.
 const ExamplePlot = lazy(() => import('../../features/circuit/components/example-plot').then((m) => ({ default: m.ExamplePlot })));
@@ -24,6 +25,7 @@ export async function homeLoader({ request }: LoaderFunctionArgs) {
 
 /** The landing page for people who are not signed in. */
 export function HomeRoute() {
+  useDocumentTitle('Filter design notebooks');
   const [params] = useSearchParams();
   const returnTo = params.get('returnTo') ?? undefined;
   return (

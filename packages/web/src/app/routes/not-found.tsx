@@ -1,6 +1,7 @@
 import { Link, isRouteErrorResponse, useRouteError } from 'react-router-dom';
 import { SignInButton } from '../../features/auth/components/sign-in-button';
 import { appPaths } from '../../lib/paths';
+import { useDocumentTitle } from '../../hooks/use-document-title';
 
 interface RouteErrorData {
   what?: string;
@@ -25,6 +26,7 @@ export function RouteError() {
     title = 'Please sign in';
     text = 'Your session has ended. Sign in again to go on.';
   }
+  useDocumentTitle(title);
   return (
     <div className="mx-auto max-w-xl space-y-4 px-6 py-16" data-testid="route-error" data-status={status ?? 'error'}>
       <h1 className="text-2xl font-semibold">{title}</h1>

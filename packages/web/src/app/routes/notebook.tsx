@@ -36,6 +36,7 @@ import { slugOf } from '../../lib/slug';
 import { cellNamer, notebookIdOf } from '../route-params';
 import { orRouteError, requireMe } from '../loaders';
 import { queryClient } from '../query-client';
+import { useDocumentTitle } from '../../hooks/use-document-title';
 
 export async function loader({ request, params }: LoaderFunctionArgs) {
   await requireMe(request);
@@ -124,6 +125,7 @@ function DeletedNotice({ notebook }: { notebook: Notebook }) {
 }
 
 function NotebookPage({ notebook }: { notebook: Notebook }) {
+  useDocumentTitle(notebook.title);
   const client = useQueryClient();
   const navigate = useNavigate();
   const [sharing, setSharing] = useState(false);

@@ -1,6 +1,7 @@
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { NotebooksTable } from '../../features/notebooks/components/notebooks-table';
 import { requireMe } from '../loaders';
+import { useDocumentTitle } from '../../hooks/use-document-title';
 
 export async function notebooksLoader({ request }: LoaderFunctionArgs) {
   await requireMe(request);
@@ -9,6 +10,7 @@ export async function notebooksLoader({ request }: LoaderFunctionArgs) {
 
 /** The notebooks the signed-in person can open. */
 export function NotebooksRoute() {
+  useDocumentTitle('Notebooks');
   return (
     <section className="space-y-6">
       <div>

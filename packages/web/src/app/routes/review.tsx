@@ -35,6 +35,7 @@ import { orRouteError, requireMe } from '../loaders';
 import { queryClient } from '../query-client';
 import { notebookIdOf } from '../route-params';
 import { slugOf } from '../../lib/slug';
+import { useDocumentTitle } from '../../hooks/use-document-title';
 
 function reviewIdOf(params: { reviewId?: string }): number {
   const id = Number(params.reviewId);
@@ -251,6 +252,7 @@ export function Component() {
   const me = useMe();
   const notebook = useNotebook(id);
   const review = useReview(id, reviewId);
+  useDocumentTitle('Review', notebook.data?.title);
   if (notebook.isPending || review.isPending || me.isPending) return <Loading text="Opening the review…" />;
   if (notebook.isError || review.isError) {
     const retry = () => void Promise.all([notebook.refetch(), review.refetch()]);

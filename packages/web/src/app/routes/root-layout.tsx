@@ -3,6 +3,7 @@ import { useEffect, useState } from 'react';
 import { Link, NavLink, Outlet, useLocation } from 'react-router-dom';
 import { ProgressBar } from '../../components/ui/progress-bar';
 import { ThemeSwitch } from '../../components/ui/theme-switch';
+import { useFocusOnNavigation } from '../../hooks/use-focus-on-navigation';
 import { meQueryOptions, useMe } from '../../features/auth/api/get-me';
 import { SignInButton } from '../../features/auth/components/sign-in-button';
 import { UserMenu } from '../../features/auth/components/user-menu';
@@ -17,6 +18,7 @@ export function RootLayout() {
   const client = useQueryClient();
   const location = useLocation();
   const [sessionLost, setSessionLost] = useState(false);
+  useFocusOnNavigation();
   useEffect(
     () =>
       onUnauthenticated(() => {

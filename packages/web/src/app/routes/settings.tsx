@@ -4,6 +4,7 @@ import { MailSettingsForm } from '../../features/settings/components/mail-settin
 import { settingsQueryOptions } from '../../features/settings/api/get-settings';
 import { orRouteError, requireMe } from '../loaders';
 import { queryClient } from '../query-client';
+import { useDocumentTitle } from '../../hooks/use-document-title';
 
 export async function loader({ request }: LoaderFunctionArgs) {
   await requireMe(request);
@@ -12,6 +13,7 @@ export async function loader({ request }: LoaderFunctionArgs) {
 }
 
 export function Component() {
+  useDocumentTitle('Settings');
   return (
     <section className="max-w-2xl space-y-6">
       <div>

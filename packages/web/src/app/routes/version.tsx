@@ -15,6 +15,7 @@ import { orRouteError, requireMe } from '../loaders';
 import { queryClient } from '../query-client';
 import { notebookIdOf } from '../route-params';
 import { slugOf } from '../../lib/slug';
+import { useDocumentTitle } from '../../hooks/use-document-title';
 
 function numberOf(params: { number?: string }): number {
   const n = Number(params.number);
@@ -37,6 +38,7 @@ export function Component() {
   const number = numberOf(params);
   const notebook = useNotebook(id);
   const version = useVersion(id, number);
+  useDocumentTitle(version.data ? `Version ${version.data.number}` : null, notebook.data?.title);
   const fork = useForkNotebook(id);
   const navigate = useNavigate();
   if (notebook.isPending || version.isPending) return <Loading />;

@@ -9,6 +9,7 @@ import { appPaths } from '../../lib/paths';
 import { orRouteError, requireMe } from '../loaders';
 import { queryClient } from '../query-client';
 import { notebookIdOf } from '../route-params';
+import { useDocumentTitle } from '../../hooks/use-document-title';
 
 export async function loader({ request, params }: LoaderFunctionArgs) {
   await requireMe(request);
@@ -21,6 +22,7 @@ export async function loader({ request, params }: LoaderFunctionArgs) {
 export function Component() {
   const id = notebookIdOf(useParams());
   const notebook = useNotebook(id);
+  useDocumentTitle('Versions', notebook.data?.title);
   if (notebook.isPending) return <Loading />;
   if (notebook.isError) return <ErrorMessage error={notebook.error} retry={() => void notebook.refetch()} />;
   return (

@@ -1,6 +1,6 @@
 /**
  * A modal dialog on the native <dialog> element: focus is kept inside, Escape closes it,
- * and the page behind cannot be used until it is closed.
+ * the page behind cannot be used until it is closed, and focus returns to the opener after.
  */
 import { useEffect, useRef } from 'react';
 import type { ReactNode } from 'react';
@@ -17,6 +17,14 @@ export interface DialogProps {
 /** A modal dialog with a title and a close button. */
 export function Dialog({ open, title, onClose, children, width = 'max-w-lg' }: DialogProps) {
   const ref = useRef<HTMLDialogElement>(null);
+  // The control that opened the dialog gets the focus back when it closes.
+  useEffect(() => {
+    if (!open) return;
+    const opener = document.activeElement instanceof HTMLElement ? document.activeElement : null;
+    return () => {
+      if (opener?.isConnected) opener.focus();
+    };
+  }, [open]);
   useEffect(() => {
     const dialog = ref.current;
     if (!dialog) return;

@@ -7,7 +7,7 @@ describe('note cells', () => {
 
   it('render Markdown', () => {
     const { container } = render(<MarkdownView text={'# Tone network\n\nThe *treble* control:\n\n- 10k pot\n- 2n2 cap'} />);
-    expect(container.querySelector('h1')?.textContent).toBe('Tone network');
+    expect(container.querySelector('h3')?.textContent).toBe('Tone network');
     expect(container.querySelector('em')?.textContent).toBe('treble');
     expect(container.querySelectorAll('li')).toHaveLength(2);
   });
@@ -19,5 +19,14 @@ describe('note cells', () => {
     expect(container.querySelector('img')).toBeNull();
     expect(container.querySelector('a')?.getAttribute('href') ?? '').not.toMatch(/javascript:/i);
     expect((window as unknown as { hacked?: boolean }).hacked).toBeUndefined();
+  });
+
+  it('moves written headings under the page’s own, keeping their size and giving them anchors', () => {
+    const { container } = render(<MarkdownView text={'# Goals\n\n## Pass band\n\ntext'} topLevel={3} />);
+    expect(container.querySelector('h1')).toBeNull();
+    expect([...container.querySelectorAll('h3, h4')].map((h) => [h.tagName, h.className, h.id])).toEqual([
+      ['H3', 'md-h1', 'goals'],
+      ['H4', 'md-h2', 'pass-band'],
+    ]);
   });
 });

@@ -104,7 +104,7 @@ function CellItem({ notebookId, cell, index, count, editable, autoFocus, renderC
       className="rounded-xl border border-rule bg-panel/60 p-3 focus:outline-none"
     >
       <header className="mb-2 flex flex-wrap items-center gap-x-3 gap-y-1">
-        <span className="text-xs font-semibold uppercase tracking-wide text-ink-faint">{cell.kind === 'circuit' ? 'Circuit cell' : 'Note cell'}</span>
+        <h2 className="text-xs font-semibold uppercase tracking-wide text-ink-faint">{label}</h2>
         <SaveStatus state={autosave.state} revision={autosave.revision} onRetry={autosave.retryNow} />
         {cell.updatedBy ? (
           <span className="text-xs text-ink-faint" title={cell.updatedAt}>
