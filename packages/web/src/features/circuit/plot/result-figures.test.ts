@@ -1,4 +1,4 @@
-import { READOUT_NAMES, analyze, formatSi } from '@rolloff/solver';
+import { READOUT_NAMES, STATUS_WORDS, analyze, formatSi } from '@rolloff/solver';
 import type { RequirementResult, Result } from '@rolloff/solver';
 import { describe, expect, it } from 'vitest';
 import { FIRST_EXAMPLE } from '@rolloff/solver';
@@ -71,6 +71,7 @@ describe('the Bode figure of a result', () => {
     expect(rect?.fillcolor).toBe(testTheme.fail);
     const worst = figureOfFailing.data.find((d) => d.mode === 'markers' && (d.x as number[])[0] === requirement?.worstAt);
     expect((worst?.y as number[])[0]).toBe(requirement?.measured);
+    expect(String(worst?.hovertemplate)).toMatch(new RegExp(`^${STATUS_WORDS.fail}: require out gain &gt;= -0.1 dB`));
   });
 
   it('places each requirement on the trace whose label it carries', () => {

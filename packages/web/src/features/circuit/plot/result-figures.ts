@@ -8,7 +8,7 @@
  * on their traces (plot-pins.ts). Pure functions of plain data, so they are tested without a
  * browser's Plotly.
  */
-import { READOUT_NAMES, formatSi } from '@rolloff/solver';
+import { READOUT_NAMES, STATUS_WORDS, formatSi } from '@rolloff/solver';
 import type { Measure, NumberArray, Readout, ReadoutId, RequirementResult, Result, TraceResult } from '@rolloff/solver';
 import type { Annotations, Layout, ScatterData, Shape } from 'plotly.js-basic-dist-min';
 import { loopMarginMarks } from './loop-margins';
@@ -265,7 +265,7 @@ function requirementShapes(
         yaxis,
         showlegend: false,
         marker: { color: colour, size: 9, symbol: passed ? 'circle-open' : 'x', line: { width: 2, color: colour } },
-        hovertemplate: `${passed ? 'passes' : 'fails'}: ${escapeHover(requirement.text)}<br>worst %{y} at %{x} Hz<extra>line ${requirement.line}</extra>`,
+        hovertemplate: `${STATUS_WORDS[requirement.status]}: ${escapeHover(requirement.text)}<br>worst %{y} at %{x} Hz<extra>line ${requirement.line}</extra>`,
       });
     }
   }
