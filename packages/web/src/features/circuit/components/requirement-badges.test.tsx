@@ -7,14 +7,14 @@ describe('requirement badges', () => {
   afterEach(cleanup);
 
   it('read pass, fail and n/a as the solver words them, with what was measured in its unit', () => {
-    const result = analyze(
-      FIRST_EXAMPLE.replace('require out gain >= -0.3 dB over 10 .. 500', 'require out gain >= -0.1 dB over 10 .. 700') + '\nshow step out\nrequire "step out" overshoot <= 5%',
-    );
+    const text = FIRST_EXAMPLE.replace('require out gain >= -0.3 dB over 10 .. 500', 'require out gain >= -0.1 dB over 10 .. 700');
+    const result = analyze(`${text}\nshow step out\nrequire "step out" overshoot <= 5%`);
     expect(result.requirements.map((q) => q.status)).toEqual(['fail', 'pass', 'pass', 'not-applicable']);
     render(<RequirementBadges requirements={result.requirements} />);
     const items = screen.getAllByTestId('requirement');
     expect(items.map((item) => item.dataset.status)).toEqual(['fail', 'pass', 'pass', 'not-applicable']);
-    expect(items.map((item) => item.querySelector('span')?.textContent)).toEqual([STATUS_WORDS.fail, STATUS_WORDS.pass, STATUS_WORDS.pass, STATUS_WORDS['not-applicable']]);
+    const words = items.map((item) => item.querySelector('span')?.textContent?.trim());
+    expect(words).toEqual([STATUS_WORDS.fail, STATUS_WORDS.pass, STATUS_WORDS.pass, STATUS_WORDS['not-applicable']]);
     expect(items[0].textContent).toMatch(/worst -0\.\d+ dB at /);
     expect(items[1].textContent).toMatch(/\d kHz$|\d Hz$/);
     expect(items[3].textContent).toContain('could not be checked in this sweep');

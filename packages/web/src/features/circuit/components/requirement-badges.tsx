@@ -32,8 +32,16 @@ export function RequirementBadges({ requirements, stale = false }: { requirement
       <h3 className="mb-2 text-xs font-semibold uppercase tracking-wide text-ink-faint">Requirements · {summary(requirements)}</h3>
       <ul className="space-y-1.5">
         {requirements.map((r) => (
-          <li key={r.line} data-testid="requirement" data-status={r.status} data-pass={r.status === 'pass'} className="flex flex-wrap items-center gap-2 text-sm">
-            <span className={`inline-flex min-w-14 justify-center rounded-full px-2 py-0.5 text-xs font-semibold ${BADGE_STYLE[r.status]}`}>{STATUS_WORDS[r.status]}</span>
+          <li
+            key={r.line}
+            data-testid="requirement"
+            data-status={r.status}
+            data-pass={r.status === 'pass'}
+            className="flex flex-wrap items-center gap-2 text-sm"
+          >
+            <span className={`inline-flex min-w-14 justify-center rounded-full px-2 py-0.5 text-xs font-semibold ${BADGE_STYLE[r.status]}`}>
+              {STATUS_WORDS[r.status]}
+            </span>
             <code className="font-mono text-ink">{r.text.replace(/^require\s+/, '')}</code>
             <span className="text-ink-faint">
               line {r.line} · {measuredText(r)}

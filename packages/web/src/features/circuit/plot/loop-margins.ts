@@ -28,7 +28,8 @@ export function marginText(margin: Readout): string {
 }
 
 /** A margin found at a frequency inside the plot. */
-const placed = (readout: Readout | undefined) => (readout && Number.isFinite(readout.value) && readout.at !== null && readout.at > 0 ? { readout, at: readout.at } : undefined);
+const placed = (readout: Readout | undefined) =>
+  readout && Number.isFinite(readout.value) && readout.at !== null && readout.at > 0 ? { readout, at: readout.at } : undefined;
 
 /**
  * The margin marks of one loop trace (none for other kinds). Annotations on a log axis are

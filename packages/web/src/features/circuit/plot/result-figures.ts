@@ -250,9 +250,10 @@ function requirementShapes(
     const span = checkedSpan(requirement);
     if (span) {
       const band = allowedBand(requirement, axis);
-      shapes.push({ type: 'rect', layer: 'below', xref: 'x', yref: yaxis, x0: span[0], x1: span[1], y0: band[0], y1: band[1], fillcolor: colour, opacity: 0.13, line: { width: 0 } });
+      const [x0, x1] = span;
+      shapes.push({ type: 'rect', layer: 'below', xref: 'x', yref: yaxis, x0, x1, y0: band[0], y1: band[1], fillcolor: colour, opacity: 0.13, line: { width: 0 } });
       for (const limit of limitsOf(requirement)) {
-        shapes.push({ type: 'line', layer: 'below', xref: 'x', yref: yaxis, x0: span[0], x1: span[1], y0: limit, y1: limit, line: { color: colour, width: 1.5, dash: 'dash' } });
+        shapes.push({ type: 'line', layer: 'below', xref: 'x', yref: yaxis, x0, x1, y0: limit, y1: limit, line: { color: colour, width: 1.5, dash: 'dash' } });
       }
     }
     if (requirement.worstAt !== null && Number.isFinite(requirement.measured)) {
@@ -367,12 +368,16 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
   const placed = placeRequirements(primary).filter((p) => slots.some((s) => s.seriesIndex === 0 && s.trace === p.trace));
   // The Bode plot's magnitude panel is in dB (gain); the impedance plot's in the trace's unit (magnitude).
   const magnitudeMeasure: Measure = kind === 'bode' ? 'gain' : 'magnitude';
-  const on = (panel: Panel) => placed.filter((p) => PANEL_OF[p.requirement.measure] === panel && (panel !== 'magnitude' || p.requirement.measure === magnitudeMeasure));
+  const on = (panel: Panel) =>
+    placed.filter((p) => PANEL_OF[p.requirement.measure] === panel && (panel !== 'magnitude' || p.requirement.measure === magnitudeMeasure));
   const limitsOn = (panel: Panel) => on(panel).flatMap((p) => limitsOf(p.requirement));
   const magnitudeRange: [number, number] =
-    kind === 'bode' ? decibelRange(slots.map((s) => s.trace.magnitudeDb), limitsOn('magnitude')) : logRange(slots.map((s) => s.trace.magnitude), limitsOn('magnitude'));
+    kind === 'bode'
+      ? decibelRange(slots.map((s) => s.trace.magnitudeDb), limitsOn('magnitude'))
+      : logRange(slots.map((s) => s.trace.magnitude), limitsOn('magnitude'));
   const phase = phaseRange(slots.map((s) => s.trace.phaseDeg), limitsOn('phase'));
-  const magnitudeShading = requirementShapes(on('magnitude'), 'y', kind === 'bode' ? magnitudeRange : [10 ** magnitudeRange[0], 10 ** magnitudeRange[1]], theme);
+  const magnitudeAxis: [number, number] = kind === 'bode' ? magnitudeRange : [10 ** magnitudeRange[0], 10 ** magnitudeRange[1]];
+  const magnitudeShading = requirementShapes(on('magnitude'), 'y', magnitudeAxis, theme);
   const phaseShading = requirementShapes(on('phase'), 'y2', phase, theme);
   const primaryColour = (label: string) => slots.find((s) => s.seriesIndex === 0 && s.trace.label === label)?.colour ?? null;
   const markers = frequencyMarkers(primary.readouts, primaryColour, theme, frequencies);
