@@ -116,7 +116,8 @@ describe('what a requirement result carries', () => {
   it('the trace, measure, operator, limit, band and range it was read into, ends resolved to the sweep', () => {
     const r = check('require out gain >= -3 dB over 100 .. 1k\nrequire out gain <= -20 dB over 10k ..\nrequire z magnitude <= 100');
     const [a, b, c] = r.requirements;
-    expect(a).toMatchObject({ trace: 'out', measure: 'gain', op: '>=', limit: -3, tolerance: null, band: { low: -3, high: null }, over: { from: 100, to: 1000 }, at: null, unit: 'dB' });
+    expect(a).toMatchObject({ trace: 'out', measure: 'gain', op: '>=', limit: -3, tolerance: null, unit: 'dB' });
+    expect(a).toMatchObject({ band: { low: -3, high: null }, over: { from: 100, to: 1000 }, at: null });
     expect(b).toMatchObject({ op: '<=', band: { low: null, high: -20 }, over: { from: 10_000, to: r.frequencies[r.frequencies.length - 1] } });
     expect(c).toMatchObject({ trace: 'z', unit: 'Ω', over: { from: r.frequencies[0], to: r.frequencies[r.frequencies.length - 1] } });
   });
@@ -145,11 +146,13 @@ describe('what a requirement result carries', () => {
 
   it('`at F` carries the frequency and an absolute tolerance in the measure’s unit', () => {
     const r = check('require out phase = -45 ± 1 deg at 150');
-    expect(r.requirements[0]).toMatchObject({ measure: 'phase', at: 150, over: null, tolerance: { absolute: 1 }, band: { low: -46, high: -44 }, unit: 'deg', worstAt: 150 });
+    expect(r.requirements[0]).toMatchObject({ measure: 'phase', at: 150, over: null, worstAt: 150 });
+    expect(r.requirements[0]).toMatchObject({ tolerance: { absolute: 1 }, band: { low: -46, high: -44 }, unit: 'deg' });
   });
 
   it('a requirement that cannot be checked still carries what it was read into', () => {
     const r = analyze('drive in\nL1 [in a] 10m\nC1 [a b] 1u\nR1 [b gnd] 10\nshow b\nsweep 100 .. 100k\nrequire b corner >= 1k');
-    expect(r.requirements[0]).toMatchObject({ status: 'not-applicable', trace: 'b', measure: 'corner', limit: 1000, band: { low: 1000, high: null }, unit: 'Hz', worstAt: null });
+    expect(r.requirements[0]).toMatchObject({ status: 'not-applicable', trace: 'b', measure: 'corner', limit: 1000, worstAt: null });
+    expect(r.requirements[0]).toMatchObject({ band: { low: 1000, high: null }, unit: 'Hz' });
   });
 });
