@@ -5,8 +5,19 @@ function secondsUntil(at: number): number {
   return Math.max(0, Math.ceil((at - Date.now()) / 1000));
 }
 
-/** The save state of a cell in a few words, with "retry now" while a save waits to retry. */
+/**
+ * The save state of a cell in a few words, with "retry now" while a save waits to retry; read
+ * out as it changes (a refusal at once, the rest politely).
+ */
 export function SaveStatus({ state, revision, onRetry }: { state: SaveState; revision: number; onRetry: () => void }) {
+  return (
+    <span role="status" aria-live={state.kind === 'refused' ? 'assertive' : 'polite'}>
+      <SaveStateWords state={state} revision={revision} onRetry={onRetry} />
+    </span>
+  );
+}
+
+function SaveStateWords({ state, revision, onRetry }: { state: SaveState; revision: number; onRetry: () => void }) {
   const [, tick] = useState(0);
   useEffect(() => {
     if (state.kind !== 'retrying') return;
@@ -35,7 +46,7 @@ export function SaveStatus({ state, revision, onRetry }: { state: SaveState; rev
       );
     case 'retrying':
       return (
-        <span role="status" className={`${base} text-warn`} data-testid="save-state" data-state="retrying">
+        <span className={`${base} text-warn`} data-testid="save-state" data-state="retrying">
           Not saved yet — {state.message} Your text is kept; retrying in {secondsUntil(state.retryAt)} s.{' '}
           <button type="button" className="underline underline-offset-2" onClick={onRetry}>
             Retry now
@@ -44,13 +55,13 @@ export function SaveStatus({ state, revision, onRetry }: { state: SaveState; rev
       );
     case 'conflict':
       return (
-        <span role="status" className={`${base} text-warn`} data-testid="save-state" data-state="conflict">
+        <span className={`${base} text-warn`} data-testid="save-state" data-state="conflict">
           Not saved — someone saved revision {state.theirs.number} first
         </span>
       );
     case 'refused':
       return (
-        <span role="alert" className={`${base} text-fail`} data-testid="save-state" data-state="refused">
+        <span className={`${base} text-fail`} data-testid="save-state" data-state="refused">
           Not saved: {state.message} Your text is kept here.
         </span>
       );

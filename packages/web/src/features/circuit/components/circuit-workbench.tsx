@@ -5,10 +5,11 @@
  * result that solved stays on screen, dimmed.
  */
 import type { Result } from '@rolloff/solver';
-import { useMemo, useRef } from 'react';
+import { useMemo, useRef, useState } from 'react';
 import type { PlotPin } from '../plot/plot-pins';
 import { cautionsOf, problemsOf } from '../lib/cautions';
 import { useAnalysis } from '../worker/use-analysis';
+import { DiagnosticsAnnouncement } from './diagnostics-announcement';
 import { DiagnosticsList } from './diagnostics-list';
 import { HazardCaution, SmallSignalNote } from './hazard-caution';
 import { LazyCircuitEditor, LazyCircuitPlots, PlotPlaceholder } from './lazy-parts';
@@ -47,12 +48,14 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
   // While the text has errors, the cautions of the last result that solved stay, like its plots.
   const cautions = useMemo(() => cautionsOf((result && !hasErrors(result) ? result : (shown ?? result))?.diagnostics ?? []), [result, shown]);
   const diagnostics = useMemo(() => (outcome?.ok ? { text: outcome.text, items: outcome.result.diagnostics } : null), [outcome]);
+  const [editing, setEditing] = useState(false);
 
   return (
     <div className="grid gap-4 lg:grid-cols-2" data-testid="circuit-workbench" data-busy={busy}>
-      <div className="min-w-0 space-y-2">
+      <div className="min-w-0 space-y-2" onFocus={() => setEditing(!readOnly)} onBlur={() => setEditing(false)}>
         <LazyCircuitEditor value={text} onChange={onChange} diagnostics={diagnostics} readOnly={readOnly} label={label} onLeave={onLeave} autoFocus={autoFocus} />
         {result ? <DiagnosticsList diagnostics={problemsOf(result.diagnostics)} /> : null}
+        <DiagnosticsAnnouncement diagnostics={diagnostics?.items ?? null} editing={editing} />
         <p className="text-xs text-ink-faint">
           <a href={helpHref} target="_blank" rel="noreferrer" className="text-accent underline-offset-2 hover:underline">
             Cell language reference

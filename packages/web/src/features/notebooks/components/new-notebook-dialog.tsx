@@ -4,6 +4,7 @@ import { useId, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
+import { FieldError, fieldProblem } from '../../../components/ui/field-error';
 import { ErrorMessage } from '../../../components/ui/status-message';
 import { appPaths } from '../../../lib/paths';
 import { useCreateNotebook } from '../api/create-notebook';
@@ -67,11 +68,11 @@ export function NewNotebookButton({ variant = 'primary' }: { variant?: 'primary'
               value={title}
               onChange={(event) => setTitle(event.target.value)}
               placeholder="e.g. Anti-alias filter for the vibration ADC"
-              aria-invalid={problem !== null}
+              {...fieldProblem(`${titleId}-problem`, problem)}
               className="w-full rounded-md border border-rule bg-panel px-3 py-2"
               autoFocus
             />
-            {problem ? <p className="text-sm text-fail">{problem}</p> : null}
+            {problem ? <FieldError id={`${titleId}-problem`}>{problem}</FieldError> : null}
           </div>
           <label className="flex items-center gap-2 text-sm">
             <input type="checkbox" checked={starter} onChange={(event) => setStarter(event.target.checked)} />

@@ -3,6 +3,7 @@ import { VersionCreateSchema } from '@rolloff/api/contract';
 import { useId, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
+import { FieldError, fieldProblem } from '../../../components/ui/field-error';
 import { EmptyState, ErrorMessage, Loading } from '../../../components/ui/status-message';
 import { exactTime, timeAgo } from '../../../lib/format-time';
 import { appPaths } from '../../../lib/paths';
@@ -40,13 +41,14 @@ export function VersionsPanel({ notebookId, canCreate }: { notebookId: string; c
               value={label}
               onChange={(event) => setLabel(event.target.value)}
               placeholder="Label, e.g. Ready for review"
+              {...fieldProblem(`${labelId}-problem`, problem)}
               className="min-w-56 flex-1 rounded-md border border-rule bg-panel px-3 py-1.5 text-sm"
             />
             <Button type="submit" variant="primary" disabled={create.isPending}>
               Make version
             </Button>
           </div>
-          {problem ? <p className="text-sm text-fail">{problem}</p> : null}
+          {problem ? <FieldError id={`${labelId}-problem`}>{problem}</FieldError> : null}
           {create.error ? <ErrorMessage error={create.error} /> : null}
           {create.data ? (
             <p role="status" className="text-sm text-pass">

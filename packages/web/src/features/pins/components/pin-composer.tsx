@@ -7,6 +7,7 @@ import type { Pin } from '@rolloff/api/contract';
 import { PinCreateSchema } from '@rolloff/api/contract';
 import { useEffect, useId, useRef, useState } from 'react';
 import { Button } from '../../../components/ui/button';
+import { FieldError, fieldProblem } from '../../../components/ui/field-error';
 import { ErrorMessage } from '../../../components/ui/status-message';
 import { useCreatePin } from '../api/create-pin';
 import { readFrequency } from './pin-labels';
@@ -38,7 +39,7 @@ export interface PinComposerProps {
 export function PinComposer({ notebookId, cellId, cellName, revisionNumber, traces, draft, onDraftChange, onPinned }: PinComposerProps) {
   const create = useCreatePin(notebookId);
   const [body, setBody] = useState('');
-  const [problem, setProblem] = useState<string | null>(null);
+  const [problem, setProblem] = useState<{ field: 'trace' | 'frequency' | 'body'; message: string } | null>(null);
   const [made, setMade] = useState<string | null>(null);
   const ids = { trace: useId(), frequency: useId(), body: useId() };
   const comment = useRef<HTMLTextAreaElement>(null);
@@ -59,12 +60,14 @@ export function PinComposer({ notebookId, cellId, cellName, revisionNumber, trac
         setMade(null);
         const frequency = readFrequency(draft.frequency);
         if (!frequency.ok) {
-          setProblem(frequency.message);
+          setProblem({ field: 'frequency', message: frequency.message });
           return;
         }
         const parsed = PinCreateSchema.safeParse({ cellId, revisionNumber, trace, frequency: frequency.hz, body });
         if (!parsed.success) {
-          setProblem(parsed.error.issues[0]?.message ?? 'The pin is not valid.');
+          const issue = parsed.error.issues[0];
+          const field = issue?.path[0] === 'trace' || issue?.path[0] === 'frequency' ? issue.path[0] : 'body';
+          setProblem({ field, message: issue?.message ?? 'The pin is not valid.' });
           return;
         }
         setProblem(null);
@@ -87,6 +90,7 @@ export function PinComposer({ notebookId, cellId, cellName, revisionNumber, trac
           id={ids.trace}
           value={trace}
           onChange={(event) => onDraftChange({ ...draft, trace: event.target.value })}
+          {...fieldProblem(`${ids.trace}-problem`, problem?.field === 'trace')}
           className="max-w-56 rounded-md border border-rule bg-panel px-2 py-1 text-sm"
         >
           {traces.map((label) => (
@@ -103,6 +107,7 @@ export function PinComposer({ notebookId, cellId, cellName, revisionNumber, trac
           value={draft.frequency}
           onChange={(event) => onDraftChange({ ...draft, trace, frequency: event.target.value })}
           placeholder="e.g. 27k"
+          {...fieldProblem(`${ids.frequency}-problem`, problem?.field === 'frequency')}
           autoComplete="off"
           className="w-36 rounded-md border border-rule bg-panel px-2 py-1 font-mono text-sm"
         />
@@ -117,9 +122,10 @@ export function PinComposer({ notebookId, cellId, cellName, revisionNumber, trac
         onChange={(event) => setBody(event.target.value)}
         rows={3}
         placeholder="Comment (Markdown)"
+        {...fieldProblem(`${ids.body}-problem`, problem?.field === 'body')}
         className="w-full rounded-md border border-rule bg-panel px-2 py-1.5 text-sm"
       />
-      {problem ? <p className="text-sm text-fail">{problem}</p> : null}
+      {problem ? <FieldError id={`${ids[problem.field]}-problem`}>{problem.message}</FieldError> : null}
       {create.error ? <ErrorMessage error={create.error} /> : null}
       {made ? (
         <p role="status" className="text-sm text-pass">

@@ -9,6 +9,7 @@ import { formatSi } from '@rolloff/solver';
 import { useEffect, useId, useRef, useState } from 'react';
 import { Button } from '../../../components/ui/button';
 import { MarkdownView } from '../../../components/ui/markdown-view';
+import { FieldError, fieldProblem } from '../../../components/ui/field-error';
 import { ErrorMessage } from '../../../components/ui/status-message';
 import { exactTime, timeAgo } from '../../../lib/format-time';
 import { useReopenPin } from '../api/reopen-pin';
@@ -61,9 +62,10 @@ function ReplyForm({ notebookId, pinId, onDone }: { notebookId: string; pinId: n
         onChange={(event) => setBody(event.target.value)}
         rows={3}
         placeholder="Reply (Markdown)"
+        {...fieldProblem(`${id}-problem`, problem)}
         className="w-full rounded-md border border-rule bg-panel px-2 py-1.5 text-sm"
       />
-      {problem ? <p className="text-sm text-fail">{problem}</p> : null}
+      {problem ? <FieldError id={`${id}-problem`}>{problem}</FieldError> : null}
       {reply.error ? <ErrorMessage error={reply.error} /> : null}
       <div className="flex gap-2">
         <Button type="submit" size="sm" variant="primary" disabled={reply.isPending}>
