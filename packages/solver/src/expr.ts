@@ -69,75 +69,57 @@ function evaluateUnsafe(tokens: readonly Token[], range: SourceRange, resolve: R
     else known.set(n, { ...found });
   }
   if (unresolved.length > 0) return { ok: false, diagnostics: unresolved };
-  const computation = new Computation(known);
-  const q = computation.value(parsed.tree);
-  if ('code' in q) return { ok: false, diagnostics: [q] };
-  if (!Number.isFinite(q.value)) return { ok: false, diagnostics: [computation.notFinite()] };
-  return { ok: true, quantity: q };
+  const q = compute(parsed.tree, known);
+  return 'code' in q ? { ok: false, diagnostics: [q] } : { ok: true, quantity: q };
 }
 
-/** Where a value first stopped being finite: a node whose operands were all finite. */
-interface FirstNonFinite {
-  node: ExprNode;
-  operands: number[];
-  value: number;
-}
-
-class Computation {
-  private first: FirstNonFinite | undefined;
-
-  constructor(private readonly known: ReadonlyMap<ExprNode, Quantity>) {}
-
-  /** The node's value and unit, or the first problem met in reading order. */
-  value(node: ExprNode): Quantity | Diagnostic {
-    switch (node.kind) {
-      case 'number':
-        return this.note(node, [], { value: node.value, unit: node.unit });
-      case 'name': {
-        const q = this.known.get(node);
-        if (q === undefined) throw new Error(`the name ${node.name} was not looked up`);
-        return this.note(node, [], q);
+/**
+ * The node's value and unit, or the first problem met in reading order. A value that is
+ * not finite is a problem where it first appears, even if the whole would come out finite
+ * (`1/(1/0)`): a division by zero anywhere is a mistake to point at, not a number to use.
+ */
+function compute(node: ExprNode, known: ReadonlyMap<ExprNode, Quantity>): Quantity | Diagnostic {
+  switch (node.kind) {
+    case 'number':
+      return finite(node, [], { value: node.value, unit: node.unit });
+    case 'name': {
+      const q = known.get(node);
+      if (q === undefined) throw new Error(`the name ${node.name} was not looked up`);
+      return finite(node, [], q);
+    }
+    case 'unary': {
+      const a = compute(node.operand, known);
+      if ('code' in a) return a;
+      return node.operator === '-' ? { value: -a.value, unit: a.unit } : a;
+    }
+    case 'binary': {
+      const a = compute(node.left, known);
+      if ('code' in a) return a;
+      const b = compute(node.right, known);
+      if ('code' in b) return b;
+      const q = combine(node, a, b);
+      return 'code' in q ? q : finite(node, [a.value, b.value], q);
+    }
+    case 'call': {
+      const qs: Quantity[] = [];
+      for (const arg of node.args) {
+        const q = compute(arg, known);
+        if ('code' in q) return q;
+        qs.push(q);
       }
-      case 'unary': {
-        const a = this.value(node.operand);
-        if ('code' in a) return a;
-        return this.note(node, [a.value], node.operator === '-' ? { value: -a.value, unit: a.unit } : a);
-      }
-      case 'binary': {
-        const a = this.value(node.left);
-        if ('code' in a) return a;
-        const b = this.value(node.right);
-        if ('code' in b) return b;
-        const q = combine(node, a, b);
-        return 'code' in q ? q : this.note(node, [a.value, b.value], q);
-      }
-      case 'call': {
-        const qs: Quantity[] = [];
-        for (const arg of node.args) {
-          const q = this.value(arg);
-          if ('code' in q) return q;
-          qs.push(q);
-        }
-        const q = apply(node, qs);
-        return 'code' in q ? q : this.note(node, qs.map((x) => x.value), q);
-      }
+      const q = apply(node, qs);
+      return 'code' in q ? q : finite(node, qs.map((x) => x.value), q);
     }
   }
-
-  /** Why the whole has no finite value, said at the node where that began. */
-  notFinite(): Diagnostic {
-    if (this.first === undefined) throw new Error('a value that is not finite has no first node');
-    return diagnostic(this.first.node.range, 'bad-expression', whyNotFinite(this.first));
-  }
-
-  private note(node: ExprNode, operands: number[], q: Quantity): Quantity {
-    if (this.first === undefined && !Number.isFinite(q.value) && operands.every(Number.isFinite)) this.first = { node, operands, value: q.value };
-    return q;
-  }
 }
 
-function whyNotFinite({ node, operands, value }: FirstNonFinite): string {
-  const [a, b] = operands;
+/** `q` if its value is finite; else why not, at `node`, whose operands were finite. */
+function finite(node: ExprNode, operands: readonly number[], q: Quantity): Quantity | Diagnostic {
+  if (Number.isFinite(q.value)) return q;
+  return diagnostic(node.range, 'bad-expression', whyNotFinite(node, operands, q.value));
+}
+
+function whyNotFinite(node: ExprNode, [a, b]: readonly number[], value: number): string {
   if (node.kind === 'binary' && node.operator === '/' && b === 0) {
     return a === 0 ? 'this expression has no value (zero divided by zero)' : 'this expression is infinite (a division by zero?)';
   }
