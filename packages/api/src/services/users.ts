@@ -1,8 +1,9 @@
 /** People: sign-in records, the admin's list and changes, and the share dialog's directory. */
+import { Not } from 'typeorm';
 import type { UserRef } from '../contract/common.js';
 import type { AdminUser, AdminUserList } from '../contract/users.js';
 import { Session } from '../db/entities/session.js';
-import { User } from '../db/entities/user.js';
+import { SYSTEM_USER, User } from '../db/entities/user.js';
 import { forbidden, notFound } from '../errors.js';
 import { authorizeSite } from '../policy.js';
 import type { Actor } from '../policy.js';
@@ -83,7 +84,8 @@ export async function activeUser(db: Database, id: number): Promise<User | null>
 /** `GET /api/admin/users`. */
 export async function listUsers(db: Database, actor: Actor): Promise<AdminUserList> {
   authorizeSite(actor, 'manage-users');
-  const users = await db.getRepository(User).find({ order: { login: 'ASC' } });
+  // The system user is no one to manage: it signs nothing in and only authors the language update.
+  const users = await db.getRepository(User).find({ where: { login: Not(SYSTEM_USER.login) }, order: { login: 'ASC' } });
   return { items: users.map(presentAdminUser) };
 }
 
@@ -99,7 +101,7 @@ export async function updateUser(db: Database, actor: Actor, userId: number, inp
   return inTransaction(db, async (manager) => {
     const repo = manager.getRepository(User);
     const user = await repo.findOne({ where: { id: userId }, lock: { mode: 'pessimistic_write' } });
-    if (!user) throw notFound('That user');
+    if (!user || user.login === SYSTEM_USER.login) throw notFound('That user');
     const changes: Partial<User> = {};
     if (input.siteRole !== undefined) changes.siteRole = input.siteRole;
     if (input.disabled !== undefined) changes.disabled = input.disabled;
@@ -112,7 +114,7 @@ export async function updateUser(db: Database, actor: Actor, userId: number, inp
 /** `GET /api/users?q=`: active people whose login or name starts with `q` (at most 20). */
 export async function searchUsers(db: Database, q: string): Promise<{ items: UserRef[] }> {
   const prefix = `${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-  const rows: { id: number; login: string; name: string }[] = await db.query(
+  const rows: UserRefRow[] = await db.query(
     'SELECT id, login, name FROM users WHERE disabled = 0 AND (login LIKE ? OR name LIKE ?) ORDER BY login LIMIT 20',
     [prefix, prefix],
   );

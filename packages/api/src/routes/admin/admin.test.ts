@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { AdminUserListSchema, AdminUserSchema } from '../../contract/users.js';
+import { connect } from '../../db/connection.js';
+import { SYSTEM_USER, User } from '../../db/entities/user.js';
 import { Client, signedIn } from '../../../test/client.js';
 import { buildUser } from '../../../test/factories.js';
 import { useTestServer } from '../../../test/use-test-server.js';
@@ -43,5 +45,13 @@ describe('/api/admin/users', () => {
     expect(wrong.status).toBe(400);
     expect((wrong.body as { message: string }).message).toMatch(/^siteRole: /);
     expect((await admin.patch('/api/admin/users/999999', { disabled: true })).status).toBe(404);
+  });
+
+  it('leaves out the system user, which authors the language update and is no one to manage', async () => {
+    const admin = await signedIn(server.url, 'mara.lindqvist');
+    const system = await (await connect()).getRepository(User).findOneByOrFail({ login: SYSTEM_USER.login });
+    const list = AdminUserListSchema.parse((await admin.get('/api/admin/users')).body);
+    expect(list.items.map((u) => u.login)).not.toContain(SYSTEM_USER.login);
+    expect((await admin.patch(`/api/admin/users/${system.id}`, { disabled: false })).status).toBe(404);
   });
 });
