@@ -1060,6 +1060,7 @@ class Elaborator {
         this.error(st.range, 'sweep-too-many', `this sweep has ${fs.length.toLocaleString('en-US')} points; the limit is ${this.maxPoints.toLocaleString('en-US')}`);
         return null;
       }
+      if (fs[0] === 0) this.noteDcPoint(st.range);
       return { kind: 'list', frequencies: fs };
     }
     const from = this.read(this.top, st.from, line, hz);
@@ -1095,6 +1096,7 @@ class Elaborator {
         this.error(st.points.range, 'sweep-too-many', `this sweep has ${points.toLocaleString('en-US')} points; the limit is ${this.maxPoints.toLocaleString('en-US')}`, 'use fewer points');
         return null;
       }
+      if (from === 0) this.noteDcPoint(st.range);
       return { kind: 'linear', from, to, points };
     }
     let perDecade = 100;
@@ -1113,6 +1115,16 @@ class Elaborator {
       return null;
     }
     return { kind: 'log', from, to, perDecade };
+  }
+
+  /** A sweep with the 0 Hz point: solved, and in the results, but a log frequency axis cannot draw it. */
+  private noteDcPoint(range: SourceRange): void {
+    this.diagnostics.push(
+      diagnostic(range, 'dc-point', 'the 0 Hz point is solved, but the plot’s log frequency axis cannot show it', {
+        severity: 'info',
+        hint: 'its values are in the results and the readouts use it: the low-frequency gain is the gain at 0 Hz',
+      }),
+    );
   }
 
   private timeStatement(st: TimeStatement): Circuit['time'] {
