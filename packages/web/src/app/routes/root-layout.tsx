@@ -38,7 +38,7 @@ export function RootLayout() {
         Skip to the page
       </a>
       <header className="border-b border-rule bg-panel">
-        <div className="mx-auto flex max-w-7xl flex-wrap items-center justify-between gap-3 px-6 py-3">
+        <div className="mx-auto flex max-w-[112rem] flex-wrap items-center justify-between gap-3 px-6 py-3">
           <div className="flex items-center gap-6">
             <Link to={me.data ? appPaths.notebooks() : appPaths.home()} className="flex items-center gap-2 text-lg font-semibold tracking-tight text-ink">
               <img src="/favicon.svg" alt="" className="h-6 w-6" />
@@ -63,7 +63,7 @@ export function RootLayout() {
       </header>
       {sessionLost ? (
         <div role="alert" className="border-b border-warn bg-warn-soft">
-          <p className="mx-auto flex max-w-7xl flex-wrap items-center gap-3 px-6 py-2 text-sm">
+          <p className="mx-auto flex max-w-[112rem] flex-wrap items-center gap-3 px-6 py-2 text-sm">
             Your session has ended. Unsaved text stays in this browser and is saved once you are back.
             <a href={appPaths.signIn(location.pathname)} target="_blank" rel="noreferrer" className="font-medium text-accent underline">
               Sign in again (opens a new tab)
@@ -71,7 +71,7 @@ export function RootLayout() {
           </p>
         </div>
       ) : null}
-      <main id="main" className="mx-auto max-w-7xl px-6 py-8">
+      <main id="main" className="mx-auto max-w-[112rem] px-6 py-8">
         <Outlet />
       </main>
     </div>

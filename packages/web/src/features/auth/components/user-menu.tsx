@@ -19,7 +19,7 @@ export function UserMenu({ me }: { me: Me }) {
         Settings
       </Link>
       <span className="flex items-center gap-2" data-testid="signed-in-as" data-login={me.login}>
-        <span className="font-medium">{me.name || me.login}</span>
+        <span className="whitespace-nowrap font-medium">{me.name || me.login}</span>
         {me.siteRole === 'admin' ? <RoleBadge role="admin" /> : null}
       </span>
       <Button

@@ -27,7 +27,7 @@ export function ReadoutsPanel({ readouts: all, stale = false }: { readouts: read
               .filter((r) => r.trace === trace)
               .map((r) => (
                 <div key={r.name} className="contents" data-readout={r.name} data-trace={r.trace}>
-                  <dt className="text-ink-soft first-letter:uppercase">{READOUT_NAMES[r.name]}</dt>
+                  <dt className="whitespace-nowrap text-ink-soft first-letter:uppercase">{READOUT_NAMES[r.name]}</dt>
                   <dd className="whitespace-nowrap font-mono tabular-nums text-ink" data-value={r.value}>
                     {formatReadout(r)}
                   </dd>

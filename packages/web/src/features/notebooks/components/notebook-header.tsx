@@ -52,7 +52,8 @@ export function NotebookHeader({ notebook, onShare, onFork, forking, onDelete, d
   const { permissions } = notebook;
   return (
     <header className="space-y-2 border-b border-rule pb-4">
-      <div className="flex flex-wrap items-start justify-between gap-3">
+      {/* Below extra-large widths (or at 200 % zoom) the actions go under the title, not beside it. */}
+      <div className="flex flex-col gap-3 xl:flex-row xl:items-start xl:justify-between">
         <div className="min-w-0 flex-1 space-y-1">
           <NotebookTitle notebook={notebook} />
           <NotebookDescription notebook={notebook} />
