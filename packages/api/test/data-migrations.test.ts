@@ -6,6 +6,7 @@ import { modernizeCellText } from '@rolloff/solver';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { DataSource } from 'typeorm';
 import { SYSTEM_USER } from '../src/db/entities/user.js';
+import { listActivity } from '../src/services/activity.js';
 import { listRevisions } from '../src/services/cells.js';
 import { createScratchDb } from './scratch-db.js';
 import type { ScratchDb } from './scratch-db.js';
@@ -173,6 +174,9 @@ describe('the data migrations', () => {
     const history = await listRevisions(db, actor, 'languagechk1', integrator, { limit: 10 });
     expect(history.items[0]).toMatchObject({ number: 3, author: { login: SYSTEM_USER.login, name: 'Rolloff' }, message: 'language update' });
     expect(history.items[1]).toMatchObject({ number: 2, author: { id: owner }, message: null });
+    const activity = await listActivity(db, actor, 'languagechk1', { limit: 20 });
+    const updates = activity.items.filter((item) => item.kind === 'revision' && item.message === 'language update');
+    expect(updates.map((item) => item.actor?.name)).toEqual(['Rolloff', 'Rolloff']);
 
     // Undone, each update that nothing built on goes, and the system user with it.
     await undoThrough(db, 'LanguageUpdate1764633600013');

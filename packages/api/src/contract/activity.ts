@@ -37,7 +37,14 @@ const excerpt = z.string();
  * reviewer's decision.
  */
 export const ActivityItemSchema = z.discriminatedUnion('kind', [
-  z.object({ ...base, kind: z.literal('revision'), cell: z.object({ id: z.number().int(), kind: CellKindSchema }), revisionNumber: z.number().int().positive() }),
+  z.object({
+    ...base,
+    kind: z.literal('revision'),
+    cell: z.object({ id: z.number().int(), kind: CellKindSchema }),
+    revisionNumber: z.number().int().positive(),
+    /** The revision's message when nobody typed it (`language update`, `restored from revision 3`). */
+    message: z.string().nullable(),
+  }),
   z.object({ ...base, kind: z.literal('version'), version: VersionRefSchema }),
   /** `fork` is null when the caller may not read the fork. */
   z.object({ ...base, kind: z.literal('fork'), fork: z.object({ id: NotebookIdSchema, title: z.string() }).nullable() }),

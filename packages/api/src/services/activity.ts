@@ -123,9 +123,9 @@ async function details(manager: EntityManager, actor: Actor, page: PageRow[]): P
   const actorCols = 'u.id AS actorId, u.login AS actorLogin, u.name AS actorName';
   const pinCols = 'p.id AS pinId, p.cellId, p.revisionNumber, p.trace, p.frequency';
 
-  const revisions = await rowsById<ActorColumns & { id: number; cellId: number; cellKind: 'circuit' | 'note'; number: number }>(
+  const revisions = await rowsById<ActorColumns & { id: number; cellId: number; cellKind: 'circuit' | 'note'; number: number; message: string | null }>(
     manager,
-    `SELECT r.id, r.cellId, c.kind AS cellKind, r.number, ${actorCols} FROM cell_revisions r JOIN cells c ON c.id = r.cellId ${users} = r.authorId WHERE r.id IN (?)`,
+    `SELECT r.id, r.cellId, c.kind AS cellKind, r.number, r.message, ${actorCols} FROM cell_revisions r JOIN cells c ON c.id = r.cellId ${users} = r.authorId WHERE r.id IN (?)`,
     idsOf('revision'),
   );
   const versions = await rowsById<ActorColumns & { id: number; number: number; label: string }>(
@@ -179,7 +179,7 @@ async function details(manager: EntityManager, actor: Actor, page: PageRow[]): P
     switch (row.kind) {
       case 'revision': {
         const r = revisions.get(id)!;
-        items.push({ ...base, kind: 'revision', actor: author(r), cell: { id: r.cellId, kind: r.cellKind }, revisionNumber: r.number });
+        items.push({ ...base, kind: 'revision', actor: author(r), cell: { id: r.cellId, kind: r.cellKind }, revisionNumber: r.number, message: r.message });
         break;
       }
       case 'version': {

@@ -76,11 +76,11 @@ describe('/api/notebooks/:id/activity', () => {
     expect(position('fork')).toBeLessThan(position('revision'));
 
     const find = <K extends ActivityItem['kind']>(kind: K) => items.filter((item): item is Extract<ActivityItem, { kind: K }> => item.kind === kind);
-    expect(find('revision').map((r) => [r.cell.id, r.cell.kind, r.revisionNumber]).sort()).toEqual(
+    expect(find('revision').map((r) => [r.cell.id, r.cell.kind, r.revisionNumber, r.message]).sort()).toEqual(
       [
-        [notebook.cells[0]!.id, 'note', 1],
-        [circuit.id, 'circuit', 1],
-        [circuit.id, 'circuit', 2],
+        [notebook.cells[0]!.id, 'note', 1, null],
+        [circuit.id, 'circuit', 1, null],
+        [circuit.id, 'circuit', 2, null],
       ].sort(),
     );
     // Nothing changed after "First look", so the review is of that version.

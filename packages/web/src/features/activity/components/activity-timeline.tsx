@@ -32,6 +32,7 @@ function describe(item: ActivityItem, notebookId: string, cellName: (cellId: num
           <Link className={linkClass} to={appPaths.cellHistory(notebookId, item.cell.id)}>
             {cellName(item.cell.id)}
           </Link>
+          {item.message ? ` (${item.message})` : null}
         </>
       );
     case 'version':
