@@ -6,7 +6,9 @@ import { useDocumentTitle } from '../../hooks/use-document-title';
 
 export async function loader({ request }: LoaderFunctionArgs) {
   const me = await requireMe(request);
-  if (me.siteRole !== 'admin') throw data({ what: 'The admin page' }, { status: 404 });
+  if (me.siteRole !== 'admin') {
+    throw data({ what: 'The people page', message: 'Only site admins manage who may sign in; ask one of them for a change.' }, { status: 403 });
+  }
   return { meId: me.id };
 }
 

@@ -4,7 +4,7 @@
  * the share dialog. Loaded lazily; its loader warms the notebook in the query cache, and
  * sends a review e-mail's link (`?review=N`) on to that review.
  */
-import type { CellSaved, Notebook, Review, Visibility } from '@rolloff/api/contract';
+import type { CellSaved, MemberRole, Notebook, Review, Visibility } from '@rolloff/api/contract';
 import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useMemo, useState } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
@@ -74,7 +74,7 @@ function PinsSection({ notebook }: { notebook: Notebook }) {
 }
 
 /** "Ask for review" and its dialog, for people who may edit. */
-function AskForReview({ notebook }: { notebook: Notebook }) {
+function AskForReview({ notebook, onShareFirst }: { notebook: Notebook; onShareFirst?: () => void }) {
   const [open, setOpen] = useState(false);
   const me = useMe();
   const members = useMemberList(notebook.id, open);
@@ -105,6 +105,14 @@ function AskForReview({ notebook }: { notebook: Notebook }) {
         candidates={candidates}
         candidatesError={members.error}
         onRequested={onRequested}
+        onShareFirst={
+          onShareFirst
+            ? () => {
+                setOpen(false);
+                onShareFirst();
+              }
+            : undefined
+        }
       />
     </>
   );
@@ -128,7 +136,8 @@ function NotebookPage({ notebook }: { notebook: Notebook }) {
   useDocumentTitle(notebook.title);
   const client = useQueryClient();
   const navigate = useNavigate();
-  const [sharing, setSharing] = useState(false);
+  // Open with the role offered first when adding someone; null while closed.
+  const [sharing, setSharing] = useState<MemberRole | null>(null);
   const [confirmDelete, setConfirmDelete] = useState(false);
   const fork = useForkNotebook(notebook.id);
   const remove = useDeleteNotebook(notebook.id);
@@ -170,7 +179,7 @@ function NotebookPage({ notebook }: { notebook: Notebook }) {
     <div className="space-y-6">
       <NotebookHeader
         notebook={notebook}
-        onShare={() => setSharing(true)}
+        onShare={() => setSharing('viewer')}
         onFork={() => fork.mutate({}, { onSuccess: (copy) => navigate(appPaths.notebook(copy.id)) })}
         forking={fork.isPending}
         onDelete={() => setConfirmDelete(true)}
@@ -185,7 +194,7 @@ function NotebookPage({ notebook }: { notebook: Notebook }) {
         }
         actions={
           <>
-            {notebook.permissions.edit && !notebook.deletedAt ? <AskForReview notebook={notebook} /> : null}
+            {notebook.permissions.edit && !notebook.deletedAt ? <AskForReview notebook={notebook} onShareFirst={notebook.permissions.share ? () => setSharing('reviewer') : undefined} /> : null}
             <Link to={appPaths.activity(notebook.id)} className={buttonClass('secondary')}>
               Activity
             </Link>
@@ -209,8 +218,9 @@ function NotebookPage({ notebook }: { notebook: Notebook }) {
       {notebook.permissions.share ? (
         <ShareDialog
           notebookId={notebook.id}
-          open={sharing}
-          onClose={() => setSharing(false)}
+          open={sharing !== null}
+          initialRole={sharing ?? 'viewer'}
+          onClose={() => setSharing(null)}
           canShare={notebook.permissions.share}
           visibility={notebook.visibility}
           onVisibilityChange={(visibility: Visibility) => update.mutate({ visibility })}

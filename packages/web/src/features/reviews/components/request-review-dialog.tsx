@@ -27,10 +27,12 @@ export interface RequestReviewDialogProps {
   /** Why the candidates could not be loaded, if they could not. */
   candidatesError?: unknown;
   onRequested: (review: Review) => void;
+  /** Opens sharing with the reviewer role chosen, for an owner with nobody to ask yet. */
+  onShareFirst?: () => void;
 }
 
 /** The dialog behind "Ask for review". */
-export function RequestReviewDialog({ notebookId, open, onClose, candidates, candidatesError, onRequested }: RequestReviewDialogProps) {
+export function RequestReviewDialog({ notebookId, open, onClose, candidates, candidatesError, onRequested, onShareFirst }: RequestReviewDialogProps) {
   const [chosen, setChosen] = useState<ReadonlySet<number>>(new Set());
   const [message, setMessage] = useState('');
   const [problem, setProblem] = useState<string | null>(null);
@@ -73,7 +75,16 @@ export function RequestReviewDialog({ notebookId, open, onClose, candidates, can
           {candidatesError ? <ErrorMessage error={candidatesError} /> : null}
           {!candidates && !candidatesError ? <Loading text="Loading the members…" /> : null}
           {candidates && candidates.length === 0 ? (
-            <p className="text-sm text-ink-soft">Nobody else here may review yet. Share the notebook with someone as reviewer first.</p>
+            <div className="space-y-2 text-sm text-ink-soft">
+              <p>Nobody else here may review yet. Share the notebook with someone as reviewer first.</p>
+              {onShareFirst ? (
+                <Button size="sm" onClick={onShareFirst}>
+                  Share it with a reviewer…
+                </Button>
+              ) : (
+                <p>Only the notebook’s owner can share it: ask them to add a reviewer.</p>
+              )}
+            </div>
           ) : null}
           {candidates && candidates.length > 0 ? (
             <ul className="space-y-1" data-testid="review-candidates">

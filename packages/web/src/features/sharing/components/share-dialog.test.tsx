@@ -54,7 +54,7 @@ function stubApi() {
   return calls;
 }
 
-function renderDialog(props: { canShare: boolean; onVisibilityChange?: (v: 'private' | 'link') => void }) {
+function renderDialog(props: { canShare: boolean; onVisibilityChange?: (v: 'private' | 'link') => void; initialRole?: Member['role'] }) {
   renderWithQuery(
     <ShareDialog
       notebookId={notebookId}
@@ -64,6 +64,7 @@ function renderDialog(props: { canShare: boolean; onVisibilityChange?: (v: 'priv
       visibility="private"
       onVisibilityChange={props.onVisibilityChange ?? (() => {})}
       link={`http://localhost/notebooks/${notebookId}`}
+      initialRole={props.initialRole}
     />,
   );
 }
@@ -133,5 +134,11 @@ describe('the share dialog', () => {
     expect(screen.queryByLabelText('Add someone by login')).toBeNull();
     expect(screen.queryByRole('checkbox')).toBeNull();
     expect(calls.every((c) => c.method === 'GET')).toBe(true);
+  });
+
+  it('offers the reviewer role first when opened to add a reviewer', async () => {
+    stubApi();
+    renderDialog({ canShare: true, initialRole: 'reviewer' });
+    expect((screen.getByLabelText('Role for the new member') as HTMLSelectElement).value).toBe('reviewer');
   });
 });

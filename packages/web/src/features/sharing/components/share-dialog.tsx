@@ -31,6 +31,8 @@ export interface ShareDialogProps {
   visibilityBusy?: boolean;
   /** The page's own address, to copy for link sharing. */
   link: string;
+  /** The role offered first when adding someone (viewer unless the dialog was opened to add a reviewer). */
+  initialRole?: MemberRole;
 }
 
 function RoleSelect({ value, onChange, label, disabled }: { value: MemberRole; onChange: (role: MemberRole) => void; label: string; disabled?: boolean }) {
@@ -51,9 +53,9 @@ function RoleSelect({ value, onChange, label, disabled }: { value: MemberRole; o
   );
 }
 
-function AddMember({ notebookId, taken }: { notebookId: string; taken: ReadonlySet<number> }) {
+function AddMember({ notebookId, taken, initialRole }: { notebookId: string; taken: ReadonlySet<number>; initialRole: MemberRole }) {
   const [query, setQuery] = useState('');
-  const [role, setRole] = useState<MemberRole>('viewer');
+  const [role, setRole] = useState<MemberRole>(initialRole);
   const [picked, setPicked] = useState<UserRef | null>(null);
   const search = useUserSearch(picked ? '' : query);
   const put = usePutMember(notebookId);
@@ -120,7 +122,7 @@ function AddMember({ notebookId, taken }: { notebookId: string; taken: ReadonlyS
 }
 
 /** The share dialog of a notebook. */
-export function ShareDialog({ notebookId, open, onClose, canShare, visibility, onVisibilityChange, visibilityBusy, link }: ShareDialogProps) {
+export function ShareDialog({ notebookId, open, onClose, canShare, visibility, onVisibilityChange, visibilityBusy, link, initialRole = 'viewer' }: ShareDialogProps) {
   const members = useMemberList(notebookId, open);
   const put = usePutMember(notebookId);
   const remove = useRemoveMember(notebookId);
@@ -196,7 +198,7 @@ export function ShareDialog({ notebookId, open, onClose, canShare, visibility, o
           {put.error || remove.error ? <ErrorMessage error={put.error ?? remove.error} /> : null}
         </section>
 
-        {canShare ? <AddMember notebookId={notebookId} taken={taken} /> : null}
+        {canShare ? <AddMember notebookId={notebookId} taken={taken} initialRole={initialRole} /> : null}
       </div>
     </Dialog>
   );
