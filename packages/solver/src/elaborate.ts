@@ -50,7 +50,7 @@ import type { FixSpec } from './diagnostic.js';
 import { didYouMean, suggestionHint } from './suggest.js';
 import type { Suggestion } from './suggest.js';
 import { formatSi } from './units.js';
-import { CONSTANTS, DEFAULT_TEMPERATURE, GROUND, PART_CLASSES, PASSIVES, isFunctionName } from './vocabulary.js';
+import { CONSTANTS, DEFAULT_TEMPERATURE, GROUND, MEASURES, PART_CLASSES, PASSIVES, isFunctionName } from './vocabulary.js';
 import type { Unit } from './vocabulary.js';
 import { internalError } from './parser.js';
 
@@ -1479,25 +1479,20 @@ function formatCount(n: number): string {
 
 /** Units a requirement's value may carry, by measure and the trace's kind. */
 function measureSlot(measure: Measure, trace: TraceSpec): Slot {
-  switch (measure) {
-    case 'gain':
-    case 'peak':
-    case 'gain-margin':
-      return { says: `${measure} is in dB`, units: ['dB'], unit: 'dB', example: '-3 dB' };
-    case 'phase':
-    case 'phase-margin':
-      return { says: `${measure} is in degrees`, units: ['deg'], unit: '°', example: '45°' };
-    case 'delay':
-    case 'settling':
-      return { says: `${measure} is a time, in s`, units: ['s'], unit: 's', example: '1m' };
-    case 'corner':
-    case 'crossover':
-      return { says: `${measure} is a frequency, in Hz`, units: ['Hz'], unit: 'Hz', example: '1k' };
-    case 'overshoot':
-      return { says: 'overshoot is in %', units: ['%'], unit: '%', example: '5%' };
-    case 'magnitude': {
-      const units: Unit[] = trace.unit === 'Ω' || trace.unit === 'V/A' ? ['Ω'] : trace.unit === 'A/V' || trace.unit === 'A/A' ? ['A'] : trace.unit === 'V/√Hz' ? ['V'] : [];
-      return { says: `the magnitude of ${trace.label} is in ${trace.unit}`, units, unit: trace.unit };
-    }
+  const unit = MEASURES[measure];
+  if (unit === '') {
+    const units: Unit[] = trace.unit === 'Ω' || trace.unit === 'V/A' ? ['Ω'] : trace.unit === 'A/V' || trace.unit === 'A/A' ? ['A'] : trace.unit === 'V/√Hz' ? ['V'] : [];
+    return { says: `the magnitude of ${trace.label} is in ${trace.unit}`, units, unit: trace.unit };
   }
+  const { in: written, example } = MEASURE_UNIT_WORDS[unit];
+  return { says: `${measure} is ${written}`, units: [unit], unit: unit === 'deg' ? '°' : unit, example };
 }
+
+/** How a measure's unit is said in messages, with an example value. */
+const MEASURE_UNIT_WORDS: Record<Exclude<(typeof MEASURES)[Measure], ''>, { in: string; example: string }> = {
+  dB: { in: 'in dB', example: '-3 dB' },
+  deg: { in: 'in degrees', example: '45°' },
+  s: { in: 'a time, in s', example: '1m' },
+  Hz: { in: 'a frequency, in Hz', example: '1k' },
+  '%': { in: 'in %', example: '5%' },
+};

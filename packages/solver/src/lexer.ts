@@ -6,7 +6,7 @@
 import type { SourceRange } from './circuit.js';
 import type { Diagnostic } from './result.js';
 import { readSuffix } from './units.js';
-import { LINE_STARTS, PREFIX_LIST, SI_PREFIXES, UNIT_LIST, UNIT_SPELLINGS } from './vocabulary.js';
+import { LINE_STARTS, MEASURE_WORDS, PREFIX_LIST, SI_PREFIXES, UNIT_LIST, UNIT_SPELLINGS } from './vocabulary.js';
 import type { SuffixProblem } from './units.js';
 import type { Unit } from './vocabulary.js';
 
@@ -67,6 +67,9 @@ export interface LexResult {
   diagnostics: Diagnostic[];
 }
 
+
+/** Measures whose name holds a hyphen, read as one word. */
+const HYPHENATED = MEASURE_WORDS.filter((m) => m.includes('-'));
 
 function isDigit(c: string | undefined): boolean {
   return c !== undefined && c >= '0' && c <= '9';
@@ -133,10 +136,11 @@ function lexLine(text: string, line: number, diagnostics: Diagnostic[]): Line {
       // A prefixed unit standing apart from its number: `kΩ`, `MΩ`, `µF`.
       if (text[j] === 'Ω' && j === i + 1 && SI_PREFIXES[c] !== undefined) j++;
       let word = text.slice(i, j);
-      // `phase-margin` and `gain-margin` are one word each.
-      if ((word === 'phase' || word === 'gain') && text.startsWith('-margin', j) && !isNameChar(text[j + 7])) {
-        j += 7;
-        word = text.slice(i, j);
+      // A measure written with a hyphen (`phase-margin`) is one word.
+      const joined = text[j] !== '-' ? undefined : HYPHENATED.find((m) => m.startsWith(`${word}-`) && text.startsWith(m.slice(word.length), j) && !isNameChar(text[i + m.length]));
+      if (joined !== undefined) {
+        j = i + joined.length;
+        word = joined;
       }
       push({ kind: 'name', text: word }, j);
       continue;
