@@ -3,6 +3,8 @@
  * thread's long tasks (and the long animation frames, whose scripts say who ran), when the
  * circuit editor, the readouts and the Bode plot first appear, and when the editor accepts
  * the first keystroke. Times are `performance.now()`, milliseconds since navigation start.
+ * The moment the editor appears, the page tells the benchmark where its first line is, so the
+ * click and the key are sent at once, not after a round trip of polling.
  */
 
 export interface LongTask {
@@ -24,13 +26,22 @@ export interface PageTimings {
   editorShownAt: number | null;
   readoutsAt: number | null;
   plotAt: number | null;
-  keyDownAt: number | null;
+  /** When the browser took the click into the editor (the event's time stamp). */
+  clickAt: number | null;
   keyAcceptedAt: number | null;
+}
+
+/** A point on the page, in CSS pixels of the viewport. */
+export interface Point {
+  x: number;
+  y: number;
 }
 
 declare global {
   interface Window {
     __rolloffBench?: PageTimings;
+    /** Exposed by the benchmark: clicks at the point and types a key. */
+    __rolloffBenchEditorShown?: (point: Point) => void;
   }
 }
 
@@ -45,7 +56,7 @@ export function installProbe(): void {
     editorShownAt: null,
     readoutsAt: null,
     plotAt: null,
-    keyDownAt: null,
+    clickAt: null,
     keyAcceptedAt: null,
   };
   window.__rolloffBench = timings;
@@ -78,7 +89,7 @@ export function installProbe(): void {
     }).observe({ type: 'long-animation-frame', buffered: true });
   }
 
-  // The length of the editor's text when the key went down: the key is accepted once it grows.
+  // The key is accepted once the editor's text is longer than when the editor appeared.
   // (Callbacks stay anonymous: tsx would wrap named ones in a helper the page does not have.)
   let lengthAtKey = -1;
   let editor: Element | null = null;
@@ -86,18 +97,25 @@ export function installProbe(): void {
     const now = performance.now();
     if (!editor) {
       editor = document.querySelector('[data-cell-index="0"] .cm-content');
-      if (editor) timings.editorShownAt = now;
+      const line = editor?.querySelector('.cm-line');
+      if (editor && line) {
+        timings.editorShownAt = now;
+        lengthAtKey = (editor.textContent ?? '').length;
+        // The right end of the first line, a comment: typing there changes no part or value.
+        const box = line.getBoundingClientRect();
+        window.__rolloffBenchEditorShown?.({ x: box.right - 4, y: box.top + box.height / 2 });
+      } else {
+        editor = null;
+      }
     }
     if (timings.readoutsAt === null && document.querySelector('[data-cell-index="0"] [data-readout]')) timings.readoutsAt = now;
     if (timings.plotAt === null && document.querySelector('[data-cell-index="0"] [data-testid="plot-bode"] .main-svg')) timings.plotAt = now;
     if (editor && lengthAtKey >= 0 && timings.keyAcceptedAt === null && (editor.textContent ?? '').length > lengthAtKey) timings.keyAcceptedAt = now;
   }).observe(document, { subtree: true, childList: true, characterData: true });
   document.addEventListener(
-    'keydown',
-    () => {
-      if (timings.keyDownAt !== null || !editor) return;
-      timings.keyDownAt = performance.now();
-      lengthAtKey = (editor.textContent ?? '').length;
+    'mousedown',
+    (event) => {
+      if (timings.clickAt === null && editor) timings.clickAt = event.timeStamp;
     },
     { capture: true },
   );

@@ -43,10 +43,27 @@ export function PlotlyChart({ figure, label, className, onPointClick, ref }: Plo
   const clicked = useRef(onPointClick);
   clicked.current = onPointClick;
 
+  const drawn = useRef(false);
+  const generation = useRef(0);
+
   // Plotly writes zoom and pan into the layout it is given: it gets a copy, so the figure's
   // own ranges stay as they were and resetting the zoom is drawing the figure again.
   const draw = async (target: HTMLDivElement) => {
-    const plot = await Plotly.react(target, figure.data, structuredClone(figure.layout), chartConfig);
+    const layout = structuredClone(figure.layout);
+    const current = ++generation.current;
+    let plot: Plotly.PlotlyHTMLElement;
+    if (drawn.current) {
+      plot = await Plotly.react(target, figure.data, layout, chartConfig);
+    } else {
+      // The first draw is the heaviest: the axes and curves, then in a task of their own the
+      // shapes and annotations, so neither half holds the main thread as long as the whole.
+      drawn.current = true;
+      plot = await Plotly.react(target, figure.data, { ...layout, shapes: [], annotations: [] }, chartConfig);
+      await new Promise((resolve) => setTimeout(resolve, 0));
+      // A newer figure drawn meanwhile has its own shapes and annotations.
+      if (current !== generation.current) return;
+      plot = await Plotly.relayout(target, { shapes: layout.shapes ?? [], annotations: layout.annotations ?? [] });
+    }
     plot.removeAllListeners('plotly_click');
     plot.on('plotly_click', (event) => clicked.current?.(event.points));
   };
