@@ -28,6 +28,19 @@ export function checkCircuitText(text: string): DiagnosticCounts {
   }
 }
 
+/**
+ * The labels of the traces a circuit cell's text shows (as its plots name them), or null when
+ * the text has errors and so shows none.
+ */
+export function shownTraces(text: string): string[] | null {
+  try {
+    return compile(text, { maxPoints }).circuit?.traces.map((trace) => trace.label) ?? null;
+  } catch (error) {
+    console.error('cell check failed:', error);
+    return null;
+  }
+}
+
 /** Diagnostic counts for a cell of either kind: null for note cells, which are not checked. */
 export function checkCell(kind: 'circuit' | 'note', text: string): DiagnosticCounts | null {
   return kind === 'circuit' ? checkCircuitText(text) : null;

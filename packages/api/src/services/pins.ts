@@ -4,6 +4,7 @@
  * the notebook reads its pins; pinning, replying, resolving and reopening need `review`.
  */
 import type { EntityManager } from 'typeorm';
+import { shownTraces } from '../cell-check.js';
 import { cellName } from '../contract/cells.js';
 import type { Pin, PinComment, PinList } from '../contract/pins.js';
 import { Pin as PinEntity, PinComment as PinCommentEntity } from '../db/entities/pin.js';
@@ -103,6 +104,13 @@ export async function createPin(
     const revisionNumber = input.revisionNumber ?? cell.revision;
     if (revisionNumber > cell.revision) {
       throw fieldError('revisionNumber', `${name} has no revision ${revisionNumber}; its latest is revision ${cell.revision}.`);
+    }
+    const revisions: { text: string }[] = await manager.query('SELECT text FROM cell_revisions WHERE cellId = ? AND number = ?', [input.cellId, revisionNumber]);
+    const traces = shownTraces(revisions[0]?.text ?? '');
+    if (!traces) throw fieldError('revisionNumber', `Revision ${revisionNumber} of ${name} has errors, so it shows no trace to pin on.`);
+    if (!traces.includes(input.trace)) {
+      const shown = traces.length > 0 ? `it shows ${traces.map((t) => `“${t}”`).join(', ')}` : 'it shows no trace';
+      throw fieldError('trace', `Revision ${revisionNumber} of ${name} does not show a trace “${input.trace}”; ${shown}.`);
     }
     const now = new Date();
     const inserted = await manager.insert(PinEntity, {

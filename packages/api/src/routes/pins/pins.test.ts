@@ -101,6 +101,7 @@ describe('/api/notebooks/:id/pins', () => {
       [{ ...good, cellId: 999999 }, 'cellId', /no cell with id 999999/],
       [{ ...good, cellId: notebook.cells[0]!.id }, 'cellId', /cellId: Note 1 is a note cell/],
       [{ ...good, revisionNumber: 4 }, 'revisionNumber', /no revision 4; its latest is revision 1/],
+      [{ ...good, trace: 'nowhere' }, 'trace', /Revision 1 of Circuit 2 does not show a trace “nowhere”; it shows “out”/],
       [{ ...good, colour: 'red' }, '', /colour/],
     ];
     for (const [body, path, message] of cases) {
