@@ -662,8 +662,10 @@ function checkCount(cur: Cursor, nodes: NodeList, want: number, what: string, ex
   cur.report(nodes.range, 'node-count', `${what} connects ${want} nodes; this has ${has === 0 ? 'none' : has}`, `write it like ${example}`);
 }
 
+/** The earlier spelling of `noise off`. */
+const NOISELESS: keyof typeof RETIRED = 'noiseless';
 /** Words after which a passive's value has ended. */
-const PASSIVE_STOP_WORDS = [...PASSIVE_OPTIONS, 'noiseless'];
+const PASSIVE_STOP_WORDS = [...PASSIVE_OPTIONS, NOISELESS];
 
 function passive(cur: Cursor, part: PassiveKind, designator: Ident, nodes: NodeList): PassiveStatement {
   const { letter, unit, example, options: words, optionText } = PASSIVES[part];
@@ -711,10 +713,10 @@ function passive(cur: Cursor, part: PassiveKind, designator: Ident, nodes: NodeL
       options.push({ kind: 'tolerance', value: tol, range });
       continue;
     }
-    if (t.kind === 'name' && (t.text === 'noise' || t.text === 'noiseless')) {
+    if (t.kind === 'name' && (t.text === 'noise' || t.text === NOISELESS)) {
       cur.next();
       let range = t.range;
-      if (t.text === 'noiseless') {
+      if (t.text === NOISELESS) {
         retired(cur, t.range, t.text, RETIRED.noiseless);
       } else {
         const off = cur.peek();
@@ -1118,7 +1120,7 @@ function spreadStatement(cur: Cursor): SpreadStatement {
  * `spread`: an error whose quick fix rewrites the line; read as the spread it stands for.
  */
 function retiredToleranceStatement(cur: Cursor): SpreadStatement {
-  const keyword = cur.next() as Token;
+  cur.next();
   const word = cur.next();
   const range = cur.whole();
   const source = (v: Value) => cur.line.text.slice(v.range.column - 1, v.range.endColumn - 1);

@@ -38,7 +38,7 @@ export const partKindWords: readonly string[] = [OPAMP_WORD, ...CONTROLLED_MODE_
 export const partOptionWords: readonly string[] = [...PASSIVE_OPTIONS, ...OPAMP_OPTION_WORDS, ...CONNECTIVES.part];
 
 /** Words inside show, drive, sweep, time, spread and use statements. */
-export const modifierWords: readonly string[] = [
+const modifierWords: readonly string[] = [
   ...new Set<string>([...SHOW_MODES, ...TRACE_WORDS, ...Object.values(CONNECTIVES).flat(), NOISE_OFF]),
 ];
 
@@ -47,7 +47,7 @@ export const measureWords: readonly string[] = MEASURE_WORDS;
 
 /** Functions and constants of value expressions. */
 export const functionWords: readonly string[] = FUNCTION_WORDS;
-export const constantWords: readonly string[] = Object.keys(CONSTANTS);
+const constantWords: readonly string[] = Object.keys(CONSTANTS);
 
 const has = (list: readonly string[], word: string) => list.includes(word);
 
