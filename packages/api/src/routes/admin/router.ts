@@ -1,9 +1,9 @@
 import { Router } from 'express';
 import { actorOf, requireUser } from '../../auth/require-user.js';
+import { AdminUserUpdateSchema } from '../../contract/users.js';
 import { connect } from '../../db/connection.js';
 import { listUsers, updateUser } from '../../services/users.js';
 import { validate } from '../../validate.js';
-import { AdminUserUpdateSchema } from '../../contract/users.js';
 import { UserParamsSchema } from '../params.js';
 
 /** `/api/admin/users`: site admins list people, change site roles, disable and enable. */

@@ -1,11 +1,11 @@
 /** `/api/notebooks/:id/cells`: add, save (a new revision), move, delete, restore; revisions. */
 import { Router } from 'express';
 import { actorOf } from '../../auth/require-user.js';
+import { CellCreateSchema, CellMoveSchema, CellSaveSchema, RevisionRestoreSchema } from '../../contract/cells.js';
+import { PageQuerySchema } from '../../contract/common.js';
 import { connect } from '../../db/connection.js';
 import { createCell, deleteCell, getRevision, listRevisions, moveCell, restoreCell, restoreRevision, saveCell } from '../../services/cells.js';
 import { validate } from '../../validate.js';
-import { CellCreateSchema, CellMoveSchema, CellSaveSchema, RevisionRestoreSchema } from '../../contract/cells.js';
-import { PageQuerySchema } from '../../contract/common.js';
 import { CellParamsSchema, NotebookParamsSchema, RevisionParamsSchema } from '../params.js';
 
 export const cellsRouter = Router({ mergeParams: true });

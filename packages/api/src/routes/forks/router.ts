@@ -1,10 +1,10 @@
 /** `/api/notebooks/:id/forks`: fork the notebook (or one of its versions); list its forks. */
 import { Router } from 'express';
 import { actorOf } from '../../auth/require-user.js';
+import { ForkCreateSchema } from '../../contract/forks.js';
 import { connect } from '../../db/connection.js';
 import { forkNotebook, listForks } from '../../services/forks.js';
 import { validate } from '../../validate.js';
-import { ForkCreateSchema } from '../../contract/forks.js';
 import { NotebookParamsSchema } from '../params.js';
 
 export const forksRouter = Router({ mergeParams: true });

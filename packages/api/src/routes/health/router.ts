@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { version } from '../../config.js';
-import { pingDatabase } from '../../db/connection.js';
 import type { Health } from '../../contract/health.js';
+import { pingDatabase } from '../../db/connection.js';
 
 /** `GET /api/health`: ok only after a real query; 503 with db "down" otherwise. */
 export const healthRouter = Router();

@@ -1,11 +1,11 @@
 /** `/api/notebooks/:id/members`: who has which role; the owner gives, changes and removes roles (a newcomer gets an e-mail). */
 import { Router } from 'express';
 import { actorOf } from '../../auth/require-user.js';
+import { MemberPutSchema } from '../../contract/members.js';
 import { connect } from '../../db/connection.js';
 import { mailFor } from '../../mail/notifier.js';
 import { listMembers, putMember, removeMember } from '../../services/members.js';
 import { validate } from '../../validate.js';
-import { MemberPutSchema } from '../../contract/members.js';
 import { MemberParamsSchema, NotebookParamsSchema } from '../params.js';
 
 export const membersRouter = Router({ mergeParams: true });

@@ -1,6 +1,7 @@
 /** `/api/notebooks`: the list, create, read, rename / link sharing, delete and restore. */
 import { Router } from 'express';
 import { actorOf, requireUser } from '../../auth/require-user.js';
+import { NotebookCreateSchema, NotebookListQuerySchema, NotebookUpdateSchema } from '../../contract/notebooks.js';
 import { connect } from '../../db/connection.js';
 import {
   createNotebook,
@@ -15,11 +16,10 @@ import { activityRouter } from '../activity/router.js';
 import { cellsRouter } from '../cells/router.js';
 import { forksRouter } from '../forks/router.js';
 import { membersRouter } from '../members/router.js';
+import { NotebookParamsSchema } from '../params.js';
 import { pinsRouter } from '../pins/router.js';
 import { reviewsRouter } from '../reviews/router.js';
 import { versionsRouter } from '../versions/router.js';
-import { NotebookCreateSchema, NotebookListQuerySchema, NotebookUpdateSchema } from '../../contract/notebooks.js';
-import { NotebookParamsSchema } from '../params.js';
 
 export const notebooksRouter = Router();
 notebooksRouter.use(requireUser);

@@ -1,11 +1,11 @@
 /** `/api/notebooks/:id/pins`: pins at a frequency, their threads, resolve and reopen. */
 import { Router } from 'express';
 import { actorOf } from '../../auth/require-user.js';
+import { PinCommentCreateSchema, PinCreateSchema, PinListQuerySchema } from '../../contract/pins.js';
 import { connect } from '../../db/connection.js';
 import { mailFor } from '../../mail/notifier.js';
 import { addPinComment, createPin, listPins, setPinResolved } from '../../services/pins.js';
 import { validate } from '../../validate.js';
-import { PinCommentCreateSchema, PinCreateSchema, PinListQuerySchema } from '../../contract/pins.js';
 import { NotebookParamsSchema, PinParamsSchema } from '../params.js';
 
 export const pinsRouter = Router({ mergeParams: true });

@@ -1,11 +1,11 @@
 /** `/api/notebooks/:id/reviews`: ask for a review of a version, read the rounds, decide. */
 import { Router } from 'express';
 import { actorOf } from '../../auth/require-user.js';
+import { ReviewCreateSchema, ReviewDecisionCreateSchema } from '../../contract/reviews.js';
 import { connect } from '../../db/connection.js';
 import { mailFor } from '../../mail/notifier.js';
 import { decideReview, getReview, listReviews, requestReview } from '../../services/reviews.js';
 import { validate } from '../../validate.js';
-import { ReviewCreateSchema, ReviewDecisionCreateSchema } from '../../contract/reviews.js';
 import { NotebookParamsSchema, ReviewParamsSchema } from '../params.js';
 
 export const reviewsRouter = Router({ mergeParams: true });

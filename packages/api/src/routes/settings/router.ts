@@ -1,10 +1,10 @@
 /** `/api/me/settings`: the signed-in person's own settings (which e-mails they get). */
 import { Router } from 'express';
 import { actorOf, requireUser } from '../../auth/require-user.js';
+import { SettingsUpdateSchema } from '../../contract/settings.js';
 import { connect } from '../../db/connection.js';
 import { getSettings, updateSettings } from '../../services/settings.js';
 import { validate } from '../../validate.js';
-import { SettingsUpdateSchema } from '../../contract/settings.js';
 
 export const settingsRouter = Router();
 settingsRouter.use(requireUser);

@@ -1,9 +1,9 @@
 import { Router } from 'express';
 import { requireUser } from '../../auth/require-user.js';
+import { UserSearchQuerySchema } from '../../contract/users.js';
 import { connect } from '../../db/connection.js';
 import { searchUsers } from '../../services/users.js';
 import { validate } from '../../validate.js';
-import { UserSearchQuerySchema } from '../../contract/users.js';
 
 /** `GET /api/users?q=`: people a notebook can be shared with (login and name only). */
 export const usersRouter = Router();

@@ -1,10 +1,10 @@
 /** `/api/notebooks/:id/versions`: make a labelled snapshot, list them, read one. */
 import { Router } from 'express';
 import { actorOf } from '../../auth/require-user.js';
+import { VersionCreateSchema } from '../../contract/versions.js';
 import { connect } from '../../db/connection.js';
 import { createVersion, getVersion, listVersions } from '../../services/versions.js';
 import { validate } from '../../validate.js';
-import { VersionCreateSchema } from '../../contract/versions.js';
 import { NotebookParamsSchema, VersionParamsSchema } from '../params.js';
 
 export const versionsRouter = Router({ mergeParams: true });
