@@ -1,4 +1,4 @@
-import type { Member, MemberList, UserDirectory } from '@rolloff/api/contract';
+import type { Member, MemberList, MemberRole, UserDirectory } from '@rolloff/api/contract';
 import { cleanup, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
@@ -54,7 +54,7 @@ function stubApi() {
   return calls;
 }
 
-function renderDialog(props: { canShare: boolean; onVisibilityChange?: (v: 'private' | 'link') => void; initialRole?: Member['role'] }) {
+function renderDialog(props: { canShare: boolean; onVisibilityChange?: (v: 'private' | 'link') => void; initialRole?: MemberRole }) {
   renderWithQuery(
     <ShareDialog
       notebookId={notebookId}
