@@ -65,7 +65,7 @@ function isPunct(t: Token | undefined, ...puncts: Punct[]): boolean {
 export function parseExpression(tokens: readonly Token[], range: SourceRange): ParsedExpression {
   if (tokens.some((t) => t.kind === 'error' || t.bad === true)) return { ok: false, diagnostics: [] };
   if (tokens.length === 0) {
-    return { ok: false, diagnostics: [diagnostic(range, 'bad-expression', 'the parentheses hold nothing', { hint: 'write an expression inside them, like (2*Cb)' })] };
+    return { ok: false, diagnostics: [nothingInside(range).diagnostic] };
   }
   try {
     return { ok: true, tree: new Reader(tokens).whole() };
@@ -157,7 +157,7 @@ class Reader {
     if (isPunct(t, '(')) {
       this.pos++;
       const empty = this.take(')');
-      if (empty !== undefined) throw problem(spanning(t.range, empty.range), 'the parentheses hold nothing', { hint: 'write an expression inside them, like (2*Cb)' });
+      if (empty !== undefined) throw nothingInside(spanning(t.range, empty.range));
       const inner = this.sum();
       const close = this.close(t);
       return { ...inner, range: spanning(t.range, close.range) };
@@ -213,7 +213,10 @@ class Reader {
     if (t !== undefined) return t;
     const next = this.peek();
     if (next === undefined) {
-      throw problem(open.range, 'this `(` is never closed', { code: 'unclosed-parenthesis', hint: 'an expression in parentheses ends with `)` on the same line' });
+      throw problem(open.range, 'this `(` is never closed', {
+        code: 'unclosed-parenthesis',
+        hint: 'an expression in parentheses ends with `)` on the same line',
+      });
     }
     throw this.unexpected(next);
   }
@@ -221,7 +224,10 @@ class Reader {
   /** `t` follows a complete value where an operator, `,` or `)` belongs. */
   private unexpected(t: Token): Problem {
     if (t.kind === 'number' || t.kind === 'name' || isPunct(t, '(')) {
-      return problem(t.range, `two values side by side: \`${this.tokens[this.pos - 1].text}\` and \`${t.text}\``, { hint: 'put an operator between them, such as * for a product' });
+      const before = this.tokens[this.pos - 1];
+      return problem(t.range, `two values side by side: \`${before.text}\` and \`${t.text}\``, {
+        hint: 'put an operator between them, such as * for a product',
+      });
     }
     if (isPunct(t, ',')) return problem(t.range, 'a comma only separates the arguments of a function, as in min(a, b)');
     if (isPunct(t, ')')) return problem(t.range, 'this `)` has no `(` to close');
@@ -231,6 +237,10 @@ class Reader {
 
 function binary(op: Token, left: ExprNode, right: ExprNode): ExprNode {
   return { kind: 'binary', operator: op.punct as BinaryOperator, left, right, range: spanning(left.range, right.range) };
+}
+
+function nothingInside(range: SourceRange): Problem {
+  return problem(range, 'the parentheses hold nothing', { hint: 'write an expression inside them, like (2*Cb)' });
 }
 
 function cannotAppear(t: Token): Problem {

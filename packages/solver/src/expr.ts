@@ -143,7 +143,8 @@ function combine(node: Extract<ExprNode, { kind: 'binary' }>, a: Quantity, b: Qu
     case '-': {
       const unit = sameUnit(a.unit, b.unit);
       if (unit === undefined) {
-        return diagnostic(node.range, 'unit-mismatch', `cannot ${node.operator === '+' ? 'add' : 'subtract'} ${describeUnit(a.unit)} and ${describeUnit(b.unit)}`);
+        const verb = node.operator === '+' ? 'add' : 'subtract';
+        return diagnostic(node.range, 'unit-mismatch', `cannot ${verb} ${describeUnit(a.unit)} and ${describeUnit(b.unit)}`);
       }
       return { value: node.operator === '+' ? a.value + b.value : a.value - b.value, unit };
     }
