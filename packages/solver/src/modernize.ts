@@ -32,6 +32,8 @@ export interface RenamePlan {
   node(digits: string): string;
   /** The block an instance of `scope` places, for names reaching into it (`B1.R3`). */
   blockOf(scope: string, instance: string): string | undefined;
+  /** The lines where a name is written, in order. */
+  linesOf(name: string): number[];
 }
 
 const key = (scope: string, name: string) => `${scope}\u0000${name}`;
@@ -84,8 +86,15 @@ export function planRenames(lines: readonly Line[]): RenamePlan {
   const highest = new Map<string, number>();
   const written: { scope: string; name: string; letter: string }[] = [];
   const blocks = new Map<string, string>();
+  const uses = new Map<string, number[]>();
   eachLine(lines, (line, scope) => {
-    for (const t of line.tokens) if (t.kind === 'name') for (const part of t.text.split('.')) taken.add(part);
+    for (const t of line.tokens) {
+      if (t.kind !== 'name') continue;
+      for (const part of t.text.split('.')) taken.add(part);
+      const at = uses.get(t.text) ?? [];
+      if (at[at.length - 1] !== line.line) at.push(line.line);
+      uses.set(t.text, at);
+    }
     const tokens = line.tokens;
     const instance = instanceOf(tokens);
     const designator = isPartLine(tokens) ? { token: tokens[0], letter: tokens[0].text[0] } : instance !== undefined ? { token: instance, letter: INSTANCE_LETTER } : null;
@@ -116,6 +125,7 @@ export function planRenames(lines: readonly Line[]): RenamePlan {
       return `${base}_${k}`;
     },
     blockOf: (scope, instance) => blocks.get(key(scope, instance)),
+    linesOf: (name) => uses.get(name) ?? [],
   };
 }
 

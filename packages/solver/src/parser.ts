@@ -65,9 +65,9 @@ import { planRenames } from './modernize.js';
 import type { RenamePlan } from './modernize.js';
 
 const STATEMENT_LIST = STATEMENT_WORDS.filter((w) => w !== 'end').join(', ');
-/** `a, b or c`. */
-function orList(words: readonly string[]): string {
-  return words.length <= 1 ? words.join('') : `${words.slice(0, -1).join(', ')} or ${words[words.length - 1]}`;
+/** `a, b or c` (or `a, b and c`). */
+function orList(words: readonly string[], last: 'or' | 'and' = 'or'): string {
+  return words.length <= 1 ? words.join('') : `${words.slice(0, -1).join(', ')} ${last} ${words[words.length - 1]}`;
 }
 const PART_LIST = orList(PART_LETTERS.map((l) => `${l} (${PART_CLASSES[l].kind})`));
 const MEASURE_LIST = MEASURE_WORDS.join(', ');
@@ -640,13 +640,17 @@ function partStatement(cur: Cursor, letter: PartClassLetter): Statement | null {
  */
 function checkDesignator(cur: Cursor, d: Token, letter: string): void {
   if (isDesignator(d.text, letter)) return;
-  const renamed = cur.plan().designator(cur.scope, d.text);
+  const plan = cur.plan();
+  const renamed = plan.designator(cur.scope, d.text);
   const what = letter === INSTANCE_LETTER ? 'a block instance’s designator' : 'a designator';
+  // The quick fix renames the part where it is defined; say where other lines name it.
+  const others = plan.linesOf(d.text).filter((line) => line !== d.range.line);
+  const alsoNamed = others.length === 0 ? '' : `; rename it on line${others.length === 1 ? '' : 's'} ${orList(others.map(String), 'and')} too`;
   cur.report(
     d.range,
     'bad-designator',
     `\`${d.text}\` is not a reference designator: ${what} is ${letter}, a number and an optional lower-case suffix, like ${letter}1 or ${letter}4b`,
-    `number the part, and say what it does in a comment, like  # ${d.text}`,
+    `number the part, and say what it does in a comment, like  # ${d.text}${alsoNamed}`,
     renamed === undefined ? undefined : { title: `Replace with ${renamed}`, replacement: renamed },
   );
 }
