@@ -60,7 +60,7 @@ export function PlotlyChart({ figure, label, className, onPointClick, ref }: Plo
       drawn.current = true;
       plot = await Plotly.react(target, figure.data, { ...layout, shapes: [], annotations: [] }, chartConfig);
       await new Promise((resolve) => setTimeout(resolve, 0));
-      // A newer figure drawn meanwhile has its own shapes and annotations.
+      // A newer figure drawn meanwhile has its own shapes and annotations (or the chart is gone).
       if (current !== generation.current) return;
       plot = await Plotly.relayout(target, { shapes: layout.shapes ?? [], annotations: layout.annotations ?? [] });
     }
@@ -80,6 +80,8 @@ export function PlotlyChart({ figure, label, className, onPointClick, ref }: Plo
   useEffect(() => {
     const target = element.current;
     return () => {
+      // A first draw still halfway through must not finish on a purged chart.
+      generation.current += 1;
       if (target) Plotly.purge(target);
     };
   }, []);
