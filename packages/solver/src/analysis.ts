@@ -401,7 +401,7 @@ function maxActivity(f: number, v: PointValues): number {
 
 /** Phase (degrees) of H, unwrapped against a neighbouring phase `near`. */
 export function phaseNear(re: number, im: number, near: number): number {
-  if (!(re * re + im * im > 0) || !Number.isFinite(re) || !Number.isFinite(im)) return NaN;
+  if ((re === 0 && im === 0) || !Number.isFinite(re) || !Number.isFinite(im)) return NaN;
   const raw = Math.atan2(im, re) * DEG;
   if (!Number.isFinite(near)) return raw <= -180 ? raw + 360 : raw;
   return raw + 360 * Math.round((near - raw) / 360);
@@ -409,9 +409,21 @@ export function phaseNear(re: number, im: number, near: number): number {
 
 /** Group delay −dφ/dω (s) from H and dH/dω. */
 export function groupDelayOf(re: number, im: number, dRe: number, dIm: number): number {
-  const m = re * re + im * im;
-  if (!(m > 0)) return NaN;
-  return -(re * dIm - im * dRe) / m;
+  // Scaled by the larger part, so that a response far below 1e-154 does not square to 0.
+  const s = Math.max(Math.abs(re), Math.abs(im));
+  if (!(s > 0) || !Number.isFinite(s)) return NaN;
+  const r = re / s;
+  const i = im / s;
+  return -(r * dIm - i * dRe) / s / (r * r + i * i);
+}
+
+/** d(ln|H|)/dω (1/rad·s) from H and dH/dω, scaled like `groupDelayOf`; its sign is the sign of d|H|/dω. */
+export function logSlopeOf(re: number, im: number, dRe: number, dIm: number): number {
+  const s = Math.max(Math.abs(re), Math.abs(im));
+  if (!(s > 0) || !Number.isFinite(s)) return NaN;
+  const r = re / s;
+  const i = im / s;
+  return (r * dRe + i * dIm) / s / (r * r + i * i);
 }
 
 /** An exact solve of one trace at f, for unwrapping between grid points. */

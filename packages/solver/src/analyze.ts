@@ -10,6 +10,7 @@ import { solveCircuit } from './analysis.js';
 import type { SolveOptions } from './analysis.js';
 import { computeReadouts } from './readouts.js';
 import { checkRequirements } from './requirements.js';
+import { traceDiagnostics } from './trace-checks.js';
 
 export interface AnalyzeOptions {
   /** The most sweep points a cell may ask for (and the default sweep may use). */
@@ -46,7 +47,7 @@ export function analyzeCircuit(circuit: Circuit, options: AnalyzeOptions & Solve
     const perTrace = analysis.traces.map((t) => computeReadouts(analysis, t));
     const checked = checkRequirements(circuit, analysis, perTrace);
     return {
-      diagnostics: [...diagnostics, ...checked.diagnostics],
+      diagnostics: [...diagnostics, ...traceDiagnostics(circuit, analysis), ...checked.diagnostics],
       frequencies: analysis.frequencies,
       traces: analysis.traces.map((t) => t.result),
       readouts: perTrace.flatMap((r) => r.readouts),

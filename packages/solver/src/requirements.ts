@@ -1,15 +1,21 @@
 /**
  * Checking `require` lines. Pointwise measures (gain, phase, delay, magnitude) are checked
- * at every sweep point inside the range and, by exact solves, at the range's ends (or at
- * the one `at` frequency); single-number measures compare the trace's readout.
+ * at the true worst value over the range (`extremeOver`: the ends and every extremum,
+ * between grid points too, from exact solves), or at the one `at` frequency; single-number
+ * measures compare the trace's readout. A value that does not exist (a trace that is zero
+ * everywhere, a singular point, a readout the trace does not have) is never a pass: the
+ * requirement is not applicable, and says why.
  */
 import type { Circuit, Measure, RequirementSpec } from './circuit.js';
 import type { Diagnostic, Readout, ReadoutId, RequirementResult } from './result.js';
 import { MEASURES } from './vocabulary.js';
 import type { AcAnalysis, TraceData } from './analysis.js';
-import { groupDelayOf } from './analysis.js';
-import { TraceView, stabilityReadouts } from './readouts.js';
-import type { TraceReadouts } from './readouts.js';
+import { stabilityReadouts } from './readouts.js';
+import type { Shape, TraceReadouts } from './readouts.js';
+import { TraceView } from './trace-view.js';
+import { extremeOver, measureAt } from './extremes.js';
+import type { Extreme } from './extremes.js';
+import { formatQuantity } from './format.js';
 
 /** `=` without a written tolerance: equal within this relative amount. */
 const DEFAULT_RELATIVE_TOLERANCE = 1e-6;
@@ -34,18 +40,23 @@ export function checkRequirements(
   for (const req of circuit.requirements) {
     const r = checkOne(circuit, req, analysis, readouts);
     results.push(r.result);
-    if (r.warning) {
-      diagnostics.push({
-        severity: 'warning',
-        line: req.range.line,
-        column: req.range.column,
-        endColumn: req.range.endColumn,
-        message: r.warning,
-        code: 'requirement-not-checked',
-      });
+    const where = { line: req.range.line, column: req.range.column, endColumn: req.range.endColumn };
+    if (r.warning) diagnostics.push({ severity: 'warning', ...where, message: r.warning, code: 'requirement-not-checked' });
+    const m = r.result.measured;
+    if (r.result.status !== 'not-applicable' && !Number.isFinite(m)) {
+      diagnostics.push({ severity: 'info', ...where, message: infiniteReason(r.result), code: 'requirement-infinite' });
     }
   }
   return { results, diagnostics };
+}
+
+/** Why a requirement measured ±∞, in its own words (the check itself is sound: ∞ compares). */
+function infiniteReason(q: RequirementResult): string {
+  const value = q.measured > 0 ? '+∞' : '−∞';
+  if (q.measure === 'gain-margin') return `the gain margin of ${q.trace} is ${value}: its phase never reaches −180° in the sweep`;
+  const where = q.worstAt !== null ? ` at ${formatQuantity(q.worstAt, 'Hz')}` : '';
+  if (q.measured < 0 && q.measure === 'gain') return `the worst gain is −∞ dB${where}: ${q.trace} is exactly 0 there (an exact null)`;
+  return `the measured ${q.measure} is ${value}${where}`;
 }
 
 type Outcome = { result: RequirementResult; warning?: string };
@@ -57,14 +68,14 @@ function checkOne(circuit: Circuit, req: RequirementSpec, analysis: AcAnalysis |
   const base = structure(circuit, req, analysis);
   const measured = measure(circuit, req, base.band, analysis, readouts);
   if ('notApplicable' in measured) {
-    return { result: { ...base, status: 'not-applicable', measured: NaN, worstAt: null }, warning: measured.notApplicable };
+    return { result: { ...base, status: 'not-applicable', measured: NaN, worstAt: null, reason: measured.notApplicable }, warning: `${measured.notApplicable}; this requirement is not checked` };
   }
   const status = passes(base.band, measured.value) ? 'pass' : 'fail';
-  return { result: { ...base, status, measured: measured.value, worstAt: measured.worstAt } };
+  return { result: { ...base, status, measured: measured.value, worstAt: measured.worstAt, reason: null } };
 }
 
 /** The requirement as read: its trace, measure, limit, band, range and unit. */
-function structure(circuit: Circuit, req: RequirementSpec, analysis: AcAnalysis | null): Omit<RequirementResult, 'status' | 'measured' | 'worstAt'> {
+function structure(circuit: Circuit, req: RequirementSpec, analysis: AcAnalysis | null): Omit<RequirementResult, 'status' | 'measured' | 'worstAt' | 'reason'> {
   const trace = circuit.traces[req.trace];
   const grid = analysis?.frequencies;
   const sweepEnd = (k: number): number => (grid && grid.length > 0 ? grid[k < 0 ? grid.length - 1 : k] : NaN);
@@ -105,7 +116,7 @@ function passes(band: RequirementResult['band'], m: number): boolean {
 }
 
 function measure(circuit: Circuit, req: RequirementSpec, band: RequirementResult['band'], analysis: AcAnalysis | null, readouts: TraceReadouts[]): Measured {
-  const notApplicable = (why: string): Measured => ({ notApplicable: `${why}; this requirement is not checked` });
+  const notApplicable = (why: string): Measured => ({ notApplicable: why });
   if (req.measure === 'settling' || req.measure === 'overshoot') {
     return notApplicable(`${req.measure} needs the step response, which is not computed yet`);
   }
@@ -120,79 +131,60 @@ function measure(circuit: Circuit, req: RequirementSpec, band: RequirementResult
   if (!found && (req.measure === 'crossover' || req.measure === 'phase-margin' || req.measure === 'gain-margin')) {
     found = stabilityReadouts(analysis, trace).find((r) => r.name === name);
   }
-  if (!found) {
-    const shape = readouts.find((r) => r.trace === trace)?.shape;
-    return notApplicable(
-      req.measure === 'corner' && (shape === 'band-pass' || shape === 'band-stop')
-        ? `${spec.label} is ${shape}: it has a lower and an upper corner, not one corner`
-        : `${spec.label} has no ${req.measure} in the sweep`,
-    );
-  }
+  if (!found) return notApplicable(missingReason(req.measure, spec.label, trace, readouts.find((r) => r.trace === trace)?.shape));
   return { value: found.value, worstAt: null };
 }
 
-/** How bad a measured value is for this requirement: larger is worse. */
-function badness(req: RequirementSpec, m: number): number {
-  if (Number.isNaN(m)) return Infinity;
-  switch (req.op) {
-    case '>=':
-      return -m;
-    case '<=':
-      return m;
-    case '=':
-      return Math.abs(m - req.value);
+/** Why a trace has no such readout, in words the user can act on. */
+function missingReason(measure: Measure, label: string, trace: TraceData, shape: Shape | undefined): string {
+  if (zeroEverywhere(trace)) return `${label} is zero at every frequency of the sweep, so it has no ${measure}`;
+  if (measure === 'corner') {
+    if (trace.result.kind === 'loop') return `${label} is a loop gain, which has no corner: require its crossover`;
+    if (trace.result.kind === 'impedance') return `${label} is an impedance, which has no corner`;
+    if (shape === 'band-pass' || shape === 'band-stop') return `${label} is ${shape}: it has a lower and an upper corner, not one corner`;
+    return `${label} does not fall 3 dB below its passband level anywhere in the sweep`;
   }
+  if (measure === 'peak') return `${label} has no peak in the sweep`;
+  if (measure === 'crossover' || measure === 'phase-margin') return `the magnitude of ${label} never falls through 1 (0 dB) in the sweep`;
+  return `${label} has no ${measure} in the sweep`;
 }
 
+/** A pointwise requirement's worst value: the largest for `<=`, the smallest for `>=`, the farther from the limit for `=`. */
 function pointwise(req: RequirementSpec, band: RequirementResult['band'], analysis: AcAnalysis, trace: TraceData): Measured {
   const view = new TraceView(analysis, trace);
+  const label = trace.result.label;
+  const measure = req.measure as 'gain' | 'phase' | 'delay' | 'magnitude';
   const grid = analysis.frequencies;
-  const points: { f: number; m: number }[] = [];
-  const measureExact = (f: number): number => {
-    const v = view.value(f);
-    if (!v) return NaN;
-    switch (req.measure) {
-      case 'gain':
-        return 20 * Math.log10(Math.hypot(v.re, v.im));
-      case 'magnitude':
-        return Math.hypot(v.re, v.im);
-      case 'delay':
-        return groupDelayOf(v.re, v.im, v.dRe, v.dIm);
-      default:
-        return view.phaseAt(f);
-    }
-  };
-  const r = trace.result;
-  const measureGrid = (k: number): number => {
-    switch (req.measure) {
-      case 'gain':
-        return r.magnitudeDb[k] as number;
-      case 'magnitude':
-        return r.magnitude[k] as number;
-      case 'delay':
-        return r.groupDelay[k] as number;
-      default:
-        return r.phaseDeg[k] as number;
-    }
-  };
+  const zero = zeroEverywhere(trace);
+  if (zero && measure !== 'magnitude') return { notApplicable: `${label} is zero at every frequency of the sweep, so it has no ${measure}` };
+  let worst: Extreme | null;
   if (req.at !== undefined) {
-    points.push({ f: req.at, m: measureExact(req.at) });
+    worst = { value: measureAt(view, measure, req.at), at: req.at };
   } else {
     const from = req.over?.from ?? grid[0];
     const to = req.over?.to ?? grid[grid.length - 1];
-    if (!(from <= to)) return { notApplicable: 'the range of this requirement is empty; it is not checked' };
-    points.push({ f: from, m: measureExact(from) });
-    for (let k = 0; k < grid.length; k++) {
-      if (grid[k] > from && grid[k] < to) points.push({ f: grid[k], m: measureGrid(k) });
+    if (!(from <= to)) return { notApplicable: 'the range of this requirement is empty' };
+    const high = req.op === '>=' ? null : extremeOver(view, measure, from, to, 'max');
+    const low = req.op === '<=' ? null : extremeOver(view, measure, from, to, 'min');
+    worst = high ?? low;
+    if (high && low) {
+      // Both ends of an `=` band: a failing side first, else the one farther from the limit.
+      const failHigh = !passes(band, high.value);
+      const failLow = !passes(band, low.value);
+      worst = failHigh !== failLow ? (failHigh ? high : low) : Math.abs(high.value - req.value) >= Math.abs(low.value - req.value) ? high : low;
     }
-    if (to !== from) points.push({ f: to, m: measureExact(to) });
   }
-  // The worst point decides the status, so a failing point always comes before a passing one.
-  const worse = (a: { m: number }, b: { m: number }): boolean => {
-    const fa = !passes(band, a.m);
-    return fa !== !passes(band, b.m) ? fa : badness(req, a.m) > badness(req, b.m);
-  };
-  let worst = points[0];
-  for (const p of points) if (worse(p, worst)) worst = p;
-  return { value: worst.m, worstAt: worst.f };
+  if (!worst) return { notApplicable: 'the range of this requirement is empty' };
+  if (Number.isNaN(worst.value)) {
+    return { notApplicable: `${label} has no ${measure} at ${formatQuantity(worst.at, 'Hz')}: the network is singular there` };
+  }
+  return { value: worst.value, worstAt: worst.at };
+}
+
+/** True when every point of the trace is exactly 0 (a difference of two equal voltages, say). */
+export function zeroEverywhere(trace: TraceData): boolean {
+  const m = trace.result.magnitude;
+  if (m.length === 0) return false;
+  for (let k = 0; k < m.length; k++) if (m[k] !== 0) return false;
+  return true;
 }

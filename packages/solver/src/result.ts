@@ -103,7 +103,7 @@ export interface Readout {
   at: number | null;
 }
 
-/** `not-applicable`: the requirement could not be checked (a warning says why). */
+/** `not-applicable`: the requirement could not be checked (its `reason`, and a warning on its line, say why). */
 export type RequirementStatus = 'pass' | 'fail' | 'not-applicable';
 
 /** How a requirement's status reads everywhere: screens, badges, the command line. */
@@ -142,6 +142,8 @@ export interface RequirementResult {
   measured: number;
   /** Hz where the worst value was found; null for single-number measures. */
   worstAt: number | null;
+  /** Why it could not be checked (status `not-applicable`), in plain words; null otherwise. */
+  reason: string | null;
 }
 
 export interface StepResult {

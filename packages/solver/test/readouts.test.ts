@@ -68,12 +68,10 @@ describe('phase', () => {
 });
 
 describe('readouts', () => {
-  it('high-pass corner from the settled high-frequency level; rolloff of a flat end is 0 dB/decade [RC1-g]', () => {
+  it('high-pass corner from the settled high-frequency level; the rolloff of a flat end is 0 dB/decade [RC1-g]', () => {
     const r = run('drive in\nC1 [in out] 470n\nR1 [out gnd] 2.2k\nshow out\nsweep 1 .. 100k');
     expect(rel(readout(r, 'out', 'corner').value, 1 / (2 * Math.PI * 2.2e3 * 470e-9))).toBeLessThan(1e-9);
-    const fc = 1 / (2 * Math.PI * 2.2e3 * 470e-9);
-    const db = (f: number): number => -10 * Math.log10(1 + Math.pow(fc / f, 2));
-    expect(Math.abs(readout(r, 'out', 'rolloff').value - (db(1e5) - db(1e4)))).toBeLessThan(1e-12);
+    expect(readout(r, 'out', 'rolloff').value).toBe(0);
   });
 
   it('a Q = 10 000 resonance on a 20/decade grid: peak, corners, bandwidth and Q are still exact [RLC-1 formulas, DER]', () => {

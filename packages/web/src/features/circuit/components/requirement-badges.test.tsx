@@ -17,7 +17,8 @@ describe('requirement badges', () => {
     expect(words).toEqual([STATUS_WORDS.fail, STATUS_WORDS.pass, STATUS_WORDS.pass, STATUS_WORDS['not-applicable']]);
     expect(items[0].textContent).toMatch(/worst -0\.\d+ dB at /);
     expect(items[1].textContent).toMatch(/\d kHz$|\d Hz$/);
-    expect(items[3].textContent).toContain('could not be checked in this sweep');
+    expect(items[3].textContent).toContain(`not checked: ${result.requirements[3].reason}`);
+    expect(result.requirements[3].reason).toMatch(/step response/);
     expect(screen.getByRole('heading').textContent).toBe(`Requirements · 1 of 4 ${STATUS_WORDS.fail}, 1 ${STATUS_WORDS['not-applicable']}`);
   });
 });

@@ -9,7 +9,7 @@ const BADGE_STYLE: Record<RequirementStatus, string> = {
 };
 
 function measuredText(requirement: RequirementResult): string {
-  if (requirement.status === 'not-applicable') return 'could not be checked in this sweep';
+  if (requirement.status === 'not-applicable') return `not checked: ${requirement.reason ?? 'the solver gave no reason'}`;
   const value = formatValue(requirement.measured, requirement.unit);
   return requirement.worstAt === null ? value : `worst ${value} at ${formatSi(requirement.worstAt, 'Hz')}`;
 }
