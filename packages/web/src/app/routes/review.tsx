@@ -169,9 +169,9 @@ function ReviewPage({ notebook, review, version, meId }: ReviewPageProps) {
         <div className="min-w-0 space-y-4" data-testid="review-cells">
           {version.cells.map((cell, index) => (
             <article key={cell.cellId} className="rounded-xl border border-rule bg-panel/60 p-3" aria-label={nameOfCell(cell)} data-cell-id={cell.cellId}>
-              <p className="mb-2 text-xs font-semibold uppercase tracking-wide text-ink-faint">
+              <h2 className="mb-2 text-xs font-semibold uppercase tracking-wide text-ink-faint">
                 {nameOfCell(cell)} · revision {cell.revision}
-              </p>
+              </h2>
               {cell.kind === 'circuit' ? (
                 <CircuitReader
                   cellKey={`${id}:review:v${version.number}:${cell.cellId}`}

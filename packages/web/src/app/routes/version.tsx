@@ -74,9 +74,9 @@ export function Component() {
       <div className="space-y-4" data-testid="version-cells">
         {v.cells.map((cell, index) => (
           <article key={cell.cellId} className="rounded-xl border border-rule bg-panel/60 p-3" aria-label={cellName(cell)}>
-            <p className="mb-2 text-xs font-semibold uppercase tracking-wide text-ink-faint">
+            <h2 className="mb-2 text-xs font-semibold uppercase tracking-wide text-ink-faint">
               {cellName(cell)} · revision {cell.revision}
-            </p>
+            </h2>
             {cell.kind === 'circuit' ? (
               <CircuitWorkbench
                 cellKey={`${id}:v${v.number}:${cell.cellId}`}

@@ -31,6 +31,8 @@ export function Dialog({ open, title, onClose, children, width = 'max-w-lg' }: D
     if (open && !dialog.open) {
       if (typeof dialog.showModal === 'function') dialog.showModal();
       else dialog.setAttribute('open', '');
+      // The first field takes the typing (showModal alone would focus the close button).
+      dialog.querySelector<HTMLElement>('input:not([type="hidden"], [type="checkbox"], [type="radio"]), textarea, select')?.focus();
     }
     if (!open && dialog.open) {
       if (typeof dialog.close === 'function') dialog.close();

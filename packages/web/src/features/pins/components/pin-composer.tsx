@@ -127,11 +127,10 @@ export function PinComposer({ notebookId, cellId, cellName, revisionNumber, trac
       />
       {problem ? <FieldError id={`${ids[problem.field]}-problem`}>{problem.message}</FieldError> : null}
       {create.error ? <ErrorMessage error={create.error} /> : null}
-      {made ? (
-        <p role="status" className="text-sm text-pass">
-          {made}
-        </p>
-      ) : null}
+      {/* Always there, so a screen reader hears the confirmation when it appears. */}
+      <p role="status" className="text-sm text-pass empty:hidden">
+        {made}
+      </p>
       <Button type="submit" variant="primary" size="sm" disabled={create.isPending}>
         {create.isPending ? 'Pinning…' : 'Pin comment'}
       </Button>
