@@ -115,4 +115,9 @@ function main(argv: string[]): number {
   return exitCode(result);
 }
 
+// A reader that stops early (`rolloff solve --csv | head`) closes the pipe: that is not an error.
+process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+  if (error.code !== 'EPIPE') throw error;
+  process.exit(process.exitCode ?? 0);
+});
 process.exitCode = main(process.argv.slice(2));

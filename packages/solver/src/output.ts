@@ -22,17 +22,28 @@ export function selectTrace(result: Result, label: string | undefined): Result {
   };
 }
 
+/**
+ * Fields whose infinite value is a result in its own right (a gain margin of +∞ when the
+ * phase never reaches −180°, the −∞ dB of an exact null): JSON writes them as the strings
+ * `"Infinity"` and `"-Infinity"`, so they differ from null, "no value".
+ */
+const INFINITE_AS_TEXT = new Set(['value', 'measured']);
+
 /** One JSON object of the contract's shape. */
 export function toJson(result: Result, options: OutputOptions = {}): string {
   const r = selectTrace(result, options.trace);
-  // JSON.stringify already writes NaN and ±Infinity as null; typed arrays need turning into arrays.
-  return JSON.stringify(r, (_key, value: unknown) => (ArrayBuffer.isView(value) ? Array.from(value as Float64Array) : value));
+  // JSON.stringify writes NaN and ±Infinity as null; typed arrays need turning into arrays.
+  return JSON.stringify(r, (key, value: unknown) => {
+    if (ArrayBuffer.isView(value)) return Array.from(value as Float64Array);
+    if (INFINITE_AS_TEXT.has(key) && (value === Infinity || value === -Infinity)) return value > 0 ? 'Infinity' : '-Infinity';
+    return value;
+  });
 }
 
 /**
- * One row per frequency: `frequency (Hz)`, then for each trace `LABEL · gain (dB)` and
- * `LABEL · phase (°)`; an impedance trace has `LABEL · magnitude (dBΩ)`, its phase and
- * `LABEL · magnitude (Ω)` instead.
+ * One row per frequency: `frequency (Hz)`, then for each trace `LABEL · gain (dB)`,
+ * `LABEL · phase (°)` and `LABEL · group delay (s)`; an impedance trace has
+ * `LABEL · magnitude (dBΩ)` in place of the gain and `LABEL · magnitude (Ω)` after them.
  */
 export function toCsv(result: Result, options: OutputOptions = {}): string {
   const r = selectTrace(result, options.trace);
@@ -40,8 +51,8 @@ export function toCsv(result: Result, options: OutputOptions = {}): string {
   const columns: ArrayLike<number>[] = [r.frequencies];
   for (const t of r.traces) {
     const impedance = t.kind === 'impedance';
-    header.push(`${t.label} · ${impedance ? 'magnitude (dBΩ)' : 'gain (dB)'}`, `${t.label} · phase (°)`);
-    columns.push(t.magnitudeDb, t.phaseDeg);
+    header.push(`${t.label} · ${impedance ? 'magnitude (dBΩ)' : 'gain (dB)'}`, `${t.label} · phase (°)`, `${t.label} · group delay (s)`);
+    columns.push(t.magnitudeDb, t.phaseDeg, t.groupDelay);
     if (impedance) {
       header.push(`${t.label} · magnitude (${t.unit})`);
       columns.push(t.magnitude);
@@ -68,10 +79,10 @@ function readoutText(r: Readout): string {
   return r.at !== null ? `${value} at ${formatQuantity(r.at, 'Hz')}` : value;
 }
 
-/** "pass  line 17: require … (measured 1.0002 kHz)"; the status reads as on every screen. */
+/** "pass  line 17: require … (measured 1.0002 kHz)", or why it was not checked; the status reads as on every screen. */
 export function requirementText(q: RequirementResult): string {
   const status = STATUS_WORDS[q.status].padEnd(4);
-  let measured = '';
+  let measured = q.reason !== null ? `  (not checked: ${q.reason})` : '';
   if (q.status !== 'not-applicable') {
     const v = valueText(q.measured, q.unit);
     measured = `  (${q.worstAt !== null ? `worst ${v} at ${formatQuantity(q.worstAt, 'Hz')}` : `measured ${v}`})`;

@@ -1,7 +1,9 @@
 /**
  * What `analyze()` returns: plain data that every screen draws from. The shape follows
  * the solver contract; arrays of numbers may be typed arrays inside the library, and the
- * command line turns them into plain JSON (non-finite values become null). Readouts and
+ * command line turns them into plain JSON: a non-finite number in an array becomes null (no
+ * value), but an infinite `Readout.value` or `RequirementResult.measured` (a gain margin of
+ * +∞, the −∞ dB of an exact null) is written as the string "Infinity" or "-Infinity". Readouts and
  * requirement results carry everything a screen needs to draw them (ids, units, limits,
  * frequencies), so no screen reads the cell's text again.
  */
@@ -45,7 +47,7 @@ export interface TraceResult {
   magnitudeDb: NumberArray;
   /** Unwrapped along the sweep; the first point lies in (−180°, 180°]. */
   phaseDeg: NumberArray;
-  /** Seconds, −dφ/dω from exact solves. */
+  /** Seconds, −dφ/dω from exact solves (a column of the command line's CSV too). */
   groupDelay: NumberArray;
 }
 
@@ -93,6 +95,7 @@ export interface Readout {
   /** The trace's label, as in `TraceResult.label`. */
   trace: string;
   name: ReadoutId;
+  /** Always finite, except a `gain-margin` of +∞ (JSON: "Infinity"). */
   value: number;
   unit: string;
   /**
@@ -138,7 +141,10 @@ export interface RequirementResult {
   at: number | null;
   /** Unit of `limit`, `band` and `measured`: "dB", "deg", "s", "Hz", "%", or the trace's unit for `magnitude`. */
   unit: string;
-  /** The worst measured value (or the value of a single-number measure); NaN when not applicable. */
+  /**
+   * The worst measured value (or the value of a single-number measure); NaN when not
+   * applicable; ±∞ when that is the value (JSON: "Infinity", "-Infinity"; a note says why).
+   */
   measured: number;
   /** Hz where the worst value was found; null for single-number measures. */
   worstAt: number | null;

@@ -90,17 +90,38 @@ describe('rolloff CLI', { timeout: 60_000 }, () => {
     const r = rolloff(['solve', file('good.cell', GOOD), '--csv']);
     expect(r.code).toBe(0);
     const lines = r.stdout.trim().split('\n');
-    expect(lines[0]).toBe('frequency (Hz),out · gain (dB),out · phase (°),zin · magnitude (dBΩ),zin · phase (°),zin · magnitude (Ω)');
+    expect(lines[0]).toBe(
+      'frequency (Hz),out · gain (dB),out · phase (°),out · group delay (s),zin · magnitude (dBΩ),zin · phase (°),zin · group delay (s),zin · magnitude (Ω)',
+    );
     expect(lines).toHaveLength(6);
     expect(lines[1].split(',')[0]).toBe('0');
+    // The group delay of R·C = 2.2 kΩ · 470 nF at 0 Hz is RC = 1.034 ms [RC1-a, GD: τ(0) = RC].
+    expect(Number(lines[1].split(',')[3])).toBeCloseTo(1.034e-3, 12);
     const hp = rolloff(['solve', '-', '--csv'], 'drive in\nC1 [in out] 1u\nR1 [out gnd] 1k\nshow out\nsweep 0 .. 100, 2 linear\n');
-    // −∞ dB and an undefined phase are left empty.
-    expect(hp.stdout.trim().split('\n')[1]).toBe('0,,');
+    // −∞ dB, an undefined phase and its delay are left empty.
+    expect(hp.stdout.trim().split('\n')[1]).toBe('0,,,');
+  });
+
+  it('--json writes an infinite readout or measured value as "Infinity", apart from null (no value)', () => {
+    // One real pole: the phase never reaches −180°, so the gain margin is +∞ [OA-PM1].
+    const r = rolloff(['solve', '-', '--json'], 'drive in\nA1 [a gnd in gnd] vgain 10k\nR1 [a b] 1k\nC1 [b gnd] (1/(2*pi*10*1k))\nshow loop b\nrequire loop b gain-margin >= 10 dB\n');
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.stdout);
+    expect(j.readouts.find((x: { name: string }) => x.name === 'gain-margin')).toMatchObject({ value: 'Infinity', at: null });
+    expect(j.requirements[0]).toMatchObject({ status: 'pass', measured: 'Infinity', reason: null });
+  });
+
+  it('a reader that closes the pipe early (`| head`) ends the output quietly, without a crash', () => {
+    const cell = file('long.cell', 'drive in\nR1 [in out] 1k\nC1 [out gnd] 1u\nshow out\nsweep 1 .. 1G, 2000/decade\n');
+    const r = spawnSync('bash', ['-c', `set -o pipefail; "${process.execPath}" --import tsx src/cli.ts solve "${cell}" --csv | head -n 2`], { cwd: packageDir, encoding: 'utf8' });
+    expect(r.stdout.trim().split('\n')).toHaveLength(2);
+    expect(r.stderr).toBe('');
+    expect(r.status).toBe(0);
   });
 
   it('--trace LABEL keeps one trace; an unknown label is a bad argument (3)', () => {
     const r = rolloff(['solve', file('good.cell', GOOD), '--csv', '--trace', 'zin']);
-    expect(r.stdout.split('\n')[0]).toBe('frequency (Hz),zin · magnitude (dBΩ),zin · phase (°),zin · magnitude (Ω)');
+    expect(r.stdout.split('\n')[0]).toBe('frequency (Hz),zin · magnitude (dBΩ),zin · phase (°),zin · group delay (s),zin · magnitude (Ω)');
     const bad = rolloff(['solve', file('good.cell', GOOD), '--trace', 'nope']);
     expect(bad.code).toBe(3);
     expect(bad.stderr).toContain('"zin"');
