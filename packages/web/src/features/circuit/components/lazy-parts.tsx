@@ -3,9 +3,9 @@
  * editor and the Plotly plots. Their fallbacks keep the layout while they load.
  *
  * The plots never stand between the designer and the editor: their chunk is fetched only
- * once an editor on the page has shown and the browser has been idle after it (at once on a
- * page without an editor), so the editor takes keys while Plotly loads, and the readouts,
- * which need no Plotly, show first.
+ * once an editor on the page has shown and the browser has been idle after it (on a page
+ * without an editor, once the browser is idle), so the editor takes keys while Plotly loads,
+ * and the readouts, which need no Plotly, show first.
  */
 import { lazy, Suspense, useEffect } from 'react';
 import type { ComponentProps } from 'react';
