@@ -83,7 +83,7 @@ export const READOUT_NAMES: Readonly<Record<ReadoutId, string>> = {
   q: 'Q',
   peak: 'peak',
   'peak-frequency': 'peak frequency',
-  rolloff: 'roll-off',
+  rolloff: 'asymptotic slope',
   crossover: 'crossover',
   'phase-margin': 'phase margin',
   'phase-crossover': 'phase crossover',

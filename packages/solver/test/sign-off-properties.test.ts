@@ -1,0 +1,85 @@
+/**
+ * Properties of the numbers a designer signs (fast-check): a range check's worst value is
+ * never better than what a 10× finer sweep sees, and a trace's readouts do not move when
+ * the sweep widens past its features.
+ */
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { analyze } from '../src/analyze.js';
+import type { Result } from '../src/result.js';
+
+const num = (x: number): string => x.toPrecision(17);
+const TWO_PI = 2 * Math.PI;
+
+interface Network {
+  /** The cell without its sweep and requirements. */
+  body: string;
+  /** Its resonance, Hz. */
+  f0: number;
+}
+
+/** A series RLC read across R (band-pass), C (low-pass) or L (high-pass), Q from 0.3 to 300. */
+const network: fc.Arbitrary<Network> = fc
+  .record({
+    l: fc.double({ min: -4, max: -1, noNaN: true }),
+    c: fc.double({ min: -9, max: -6, noNaN: true }),
+    q: fc.double({ min: Math.log10(0.3), max: Math.log10(300), noNaN: true }),
+    across: fc.constantFrom('R', 'C', 'L'),
+  })
+  .map(({ l, c, q, across }) => {
+    const L = Math.pow(10, l);
+    const C = Math.pow(10, c);
+    const R = Math.sqrt(L / C) / Math.pow(10, q);
+    const order = across === 'R' ? ['L', 'C', 'R'] : across === 'C' ? ['R', 'L', 'C'] : ['R', 'C', 'L'];
+    const value: Record<string, number> = { R, L, C };
+    const nodes = ['in', 'a', 'out', 'gnd'];
+    const parts = order.map((kind, k) => `${kind}1 [${nodes[k]} ${nodes[k + 1]}] ${num(value[kind])}`);
+    return { body: `drive in\n${parts.join('\n')}\nshow out\n`, f0: 1 / (TWO_PI * Math.sqrt(L * C)) };
+  });
+
+function solved(text: string): Result {
+  const r = analyze(text);
+  expect(r.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+  return r;
+}
+
+describe('sign-off properties', { timeout: 120_000 }, () => {
+  it("a range check's worst value is never better than a 10× finer sweep's worst", () => {
+    fc.assert(
+      fc.property(network, fc.double({ min: 0.05, max: 0.5, noNaN: true }), ({ body, f0 }, width) => {
+        const from = f0 * Math.pow(10, -width);
+        const to = f0 * Math.pow(10, width * 1.3);
+        const range = `over ${num(from)} .. ${num(to)}`;
+        const reqs = `require out gain <= -400 dB ${range}\nrequire out gain >= 400 dB ${range}\nrequire out phase <= -400 ${range}\nrequire out phase >= 400 ${range}\n`;
+        const coarse = solved(`${body}sweep ${num(f0 / 100)} .. ${num(f0 * 100)}, 10/decade\n${reqs}`);
+        const fine = solved(`${body}sweep ${num(f0 / 100)} .. ${num(f0 * 100)}, 100/decade\n${reqs}`);
+        const t = fine.traces[0];
+        const inside = Array.from(fine.frequencies.keys()).filter((k) => fine.frequencies[k] >= from && fine.frequencies[k] <= to);
+        const gains = inside.map((k) => t.magnitudeDb[k]);
+        const phases = inside.map((k) => t.phaseDeg[k]);
+        const [maxGain, minGain, maxPhase, minPhase] = coarse.requirements.map((q) => q.measured);
+        expect(maxGain).toBeGreaterThanOrEqual(Math.max(...gains) - 1e-9);
+        expect(minGain).toBeLessThanOrEqual(Math.min(...gains) + 1e-9);
+        expect(maxPhase).toBeGreaterThanOrEqual(Math.max(...phases) - 1e-9);
+        expect(minPhase).toBeLessThanOrEqual(Math.min(...phases) + 1e-9);
+      }),
+      { numRuns: 40 },
+    );
+  });
+
+  it('the readouts of a trace do not change when the sweep widens past its features', () => {
+    fc.assert(
+      fc.property(network, fc.double({ min: 1, max: 4, noNaN: true }), ({ body, f0 }, extra) => {
+        const narrow = solved(`${body}sweep ${num(f0 / 1e3)} .. ${num(f0 * 1e3)}\n`);
+        const wide = solved(`${body}sweep ${num(f0 / Math.pow(10, 3 + extra))} .. ${num(f0 * Math.pow(10, 3 + extra))}\n`);
+        expect(wide.readouts.map((r) => r.name)).toEqual(narrow.readouts.map((r) => r.name));
+        narrow.readouts.forEach((r, k) => {
+          const w = wide.readouts[k];
+          expect(Math.abs(w.value - r.value), r.name).toBeLessThanOrEqual(1e-7 * Math.abs(r.value) + 1e-9);
+          if (r.at !== null) expect(Math.abs(w.at! - r.at)).toBeLessThanOrEqual(1e-7 * r.at);
+        });
+      }),
+      { numRuns: 40 },
+    );
+  });
+});
