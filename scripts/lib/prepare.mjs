@@ -1,4 +1,5 @@
 // What both `npm start` and `npm test` do first: packages, build, database, migrations.
+import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ensureNodeModules } from './system.mjs';
@@ -9,7 +10,7 @@ import { info, step } from './log.mjs';
 export const root = path.resolve(fileURLToPath(new URL('../..', import.meta.url)));
 export const apiDist = path.join(root, 'packages/api/dist');
 
-/** npm packages (npm ci when missing or stale), then a turbo build of every package. */
+/** npm packages (npm ci when missing or stale), then a turbo build of every package and the `rolloff` command. */
 export async function installAndBuild() {
   await ensureNodeModules(root);
   step('Building (turbo run build)');
@@ -17,6 +18,11 @@ export async function installAndBuild() {
     cwd: root,
     env: { ...process.env, TURBO_TELEMETRY_DISABLED: '1', TURBO_NO_UPDATE_NOTIFIER: '1' },
   });
+  // npm links a workspace's command only if its file exists at install time, which a fresh
+  // clone's first install precedes: link `rolloff` now that the solver is built.
+  if (!existsSync(path.join(root, 'node_modules/.bin/rolloff'))) {
+    await mustRun('Linking the rolloff command', 'npm', ['rebuild', '@rolloff/solver', '--ignore-scripts'], { cwd: root });
+  }
 }
 
 /**
