@@ -5,17 +5,28 @@ export const CellKindSchema = z.enum(['circuit', 'note']);
 export type CellKind = z.infer<typeof CellKindSchema>;
 
 /**
- * A cell's name wherever one is named (review, history, activity, e-mail, messages): its kind
- * and its 1-based place, "Circuit 2", "Note 3"; a deleted cell keeps the place it had.
+ * A cell's name wherever one is named (review, history, activity, e-mail, messages): the title
+ * its people chose, else its kind and 1-based place, "Circuit 2", "Note 3"; a deleted cell
+ * keeps the place it had.
  */
-export function cellName(cell: { kind: CellKind; position: number; deleted?: boolean }): string {
-  return `${cell.kind === 'circuit' ? 'Circuit' : 'Note'} ${cell.position + 1}${cell.deleted ? ' (deleted)' : ''}`;
+export function cellName(cell: { kind: CellKind; position: number; title?: string | null; deleted?: boolean }): string {
+  return `${cell.title || `${cell.kind === 'circuit' ? 'Circuit' : 'Note'} ${cell.position + 1}`}${cell.deleted ? ' (deleted)' : ''}`;
 }
+
+/** A title chosen for a cell: one line, trimmed, not empty. */
+export const CellTitleSchema = z
+  .string()
+  .trim()
+  .min(1, 'A title cannot be empty; send null to go back to "Circuit 2" or "Note 3".')
+  .max(LIMITS.cellTitleLength, `A cell title has at most ${LIMITS.cellTitleLength} characters.`)
+  .regex(/^[^\n\r]*$/, 'A cell title is one line.');
 
 /** A cell at its current revision. `diagnostics` is null for note cells. */
 export const CellSchema = z.object({
   id: z.number().int(),
   kind: CellKindSchema,
+  /** The title its people chose; null: named by kind and place (see cellName). */
+  title: z.string().nullable(),
   /** 0-based place among the notebook's live cells. */
   position: z.number().int().nonnegative(),
   text: z.string(),
@@ -54,6 +65,10 @@ export const CellSaveSchema = z.strictObject({
   baseRevision: z.number().int().positive(),
 });
 export type CellSave = z.infer<typeof CellSaveSchema>;
+
+/** `PATCH /api/notebooks/:id/cells/:cellId`: a title for the cell (editor or owner), or null for none. Not a revision: titles have no history. */
+export const CellTitleUpdateSchema = z.strictObject({ title: CellTitleSchema.nullable() });
+export type CellTitleUpdate = z.infer<typeof CellTitleUpdateSchema>;
 
 /** `POST /api/notebooks/:id/cells/:cellId/move`: the cell's new 0-based position. */
 export const CellMoveSchema = z.strictObject({

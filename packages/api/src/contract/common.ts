@@ -19,6 +19,8 @@ export const LIMITS = {
   descriptionLength: 2000,
   /** Version label, in characters. */
   versionLabelLength: 200,
+  /** A cell's title, in characters. */
+  cellTitleLength: 80,
   /** Search text of the notebook list. */
   searchLength: 200,
   /** Default and largest page of a paged list. */

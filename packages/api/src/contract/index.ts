@@ -9,7 +9,7 @@
  * - `GET /api/notebooks` (NotebookListQuerySchema → NotebookListSchema; `sort=changed|title|created`,
  *   `order=desc|asc`, keyset cursors), `POST /api/notebooks`,
  *   `GET|PATCH|DELETE /api/notebooks/:id`, `POST /api/notebooks/:id/restore`.
- * - `POST /api/notebooks/:id/cells`, `PUT|DELETE /api/notebooks/:id/cells/:cellId`,
+ * - `POST /api/notebooks/:id/cells`, `PUT|PATCH|DELETE /api/notebooks/:id/cells/:cellId`,
  *   `POST …/cells/:cellId/move`, `POST …/cells/:cellId/restore`,
  *   `GET …/cells/:cellId/revisions`, `GET …/cells/:cellId/revisions/:number`,
  *   `POST …/cells/:cellId/revisions/:number/restore`.

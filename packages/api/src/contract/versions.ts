@@ -30,6 +30,8 @@ export type VersionSummary = z.infer<typeof VersionSummarySchema>;
 export const VersionCellSchema = z.object({
   cellId: z.number().int(),
   kind: CellKindSchema,
+  /** The cell's title now (titles have no history), or null. */
+  title: z.string().nullable(),
   position: z.number().int().nonnegative(),
   revision: z.number().int().positive(),
   text: z.string(),

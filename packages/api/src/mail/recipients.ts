@@ -29,8 +29,11 @@ export async function mailNotebook(manager: EntityManager, notebookId: string): 
 
 /** A cell's name as every screen gives it ("Circuit 2"). */
 export async function mailCellName(manager: EntityManager, cellId: number): Promise<string> {
-  const [cell]: { kind: CellKind; position: number; deletedAt: Date | null }[] = await manager.query('SELECT kind, position, deletedAt FROM cells WHERE id = ?', [cellId]);
-  return cell ? cellName({ kind: cell.kind, position: cell.position, deleted: cell.deletedAt !== null }) : 'a deleted cell';
+  const [cell]: { kind: CellKind; title: string | null; position: number; deletedAt: Date | null }[] = await manager.query(
+    'SELECT kind, title, position, deletedAt FROM cells WHERE id = ?',
+    [cellId],
+  );
+  return cell ? cellName({ ...cell, deleted: cell.deletedAt !== null }) : 'a deleted cell';
 }
 
 /** The owner and the editors of a notebook. */

@@ -6,6 +6,7 @@ export function presentCell(row: CellRow): Cell {
   return {
     id: row.id,
     kind: row.kind,
+    title: row.title,
     position: row.position,
     text: row.text,
     revision: row.revision,

@@ -20,6 +20,7 @@ function presentVersionCell(row: VersionCellRow): VersionCell {
   return {
     cellId: row.cellId,
     kind: row.kind,
+    title: row.title,
     position: row.position,
     revision: row.revision,
     text: row.text,

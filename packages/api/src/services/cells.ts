@@ -26,6 +26,7 @@ export interface CellRow {
   id: number;
   notebookId: string;
   kind: 'circuit' | 'note';
+  title: string | null;
   position: number;
   revision: number;
   updatedAt: Date;
@@ -58,7 +59,7 @@ export interface RevisionRow {
 
 /** A cell with its current revision and that revision's author. */
 export const cellSelect = `
-  SELECT c.id, c.notebookId, c.kind, c.position, c.revision, c.updatedAt, c.deletedAt,
+  SELECT c.id, c.notebookId, c.kind, c.title, c.position, c.revision, c.updatedAt, c.deletedAt,
          r.id AS revisionId, r.text, r.diagnosticErrors, r.diagnosticWarnings, r.authorId,
          u.login AS authorLogin, u.name AS authorName, r.message AS revisionMessage, r.createdAt AS revisionCreatedAt
     FROM cells c
@@ -96,6 +97,7 @@ function requireRoom(count: number, adding: number): void {
 export interface NewCell {
   notebookId: string;
   kind: 'circuit' | 'note';
+  title?: string | null;
   position: number;
   text: string;
   authorId: number | null;
@@ -108,6 +110,7 @@ export async function insertCell(manager: EntityManager, cell: NewCell): Promise
   const inserted = await manager.insert(Cell, {
     notebookId: cell.notebookId,
     kind: cell.kind,
+    title: cell.title ?? null,
     position: cell.position,
     revision: 1,
     createdAt: cell.now,
@@ -228,6 +231,16 @@ export async function saveCell(
     await manager.update(Cell, { id: cellId }, { revision: number, updatedAt: now });
     await touchNotebook(manager, notebookId, now);
     return { created: true, body: saved(await mustFindCell(manager, notebookId, cellId), diagnostics) };
+  });
+}
+
+/** `PATCH …/cells/:cellId`: sets or clears the cell's title (no revision: titles have no history). */
+export async function setCellTitle(db: Database, actor: Actor, notebookId: string, cellId: number, title: string | null): Promise<CellSaved> {
+  return inTransaction(db, async (manager) => {
+    await loadNotebookFor(manager, actor, notebookId, 'edit', { lock: true });
+    await mustFindCell(manager, notebookId, cellId);
+    await manager.update(Cell, { id: cellId }, { title });
+    return saved(await mustFindCell(manager, notebookId, cellId));
   });
 }
 

@@ -34,16 +34,16 @@ export async function forkNotebook(db: Database, actor: Actor, sourceId: string,
   return inTransaction(db, async (manager) => {
     const source = await loadNotebookFor(manager, actor, sourceId, 'fork');
     let versionId: number | null = null;
-    let cells: { kind: 'circuit' | 'note'; text: string; diagnostics: { errors: number; warnings: number } | null }[];
+    let cells: { kind: 'circuit' | 'note'; title: string | null; text: string; diagnostics: { errors: number; warnings: number } | null }[];
     const counts = (e: number | null, w: number | null) => (e === null || w === null ? null : { errors: e, warnings: w });
     if (input.version !== undefined) {
       const version = await versionRow(manager, sourceId, input.version);
       versionId = version.id;
-      cells = (await versionCells(manager, version.id)).map((c) => ({ kind: c.kind, text: c.text, diagnostics: counts(c.diagnosticErrors, c.diagnosticWarnings) }));
+      cells = (await versionCells(manager, version.id)).map((c) => ({ kind: c.kind, title: c.title, text: c.text, diagnostics: counts(c.diagnosticErrors, c.diagnosticWarnings) }));
     } else {
       cells = (await cellsOf(manager, sourceId))
         .filter((c) => c.deletedAt === null)
-        .map((c) => ({ kind: c.kind, text: c.text, diagnostics: counts(c.diagnosticErrors, c.diagnosticWarnings) }));
+        .map((c) => ({ kind: c.kind, title: c.title, text: c.text, diagnostics: counts(c.diagnosticErrors, c.diagnosticWarnings) }));
     }
     const id = await insertNotebook(
       manager,

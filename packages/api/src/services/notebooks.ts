@@ -133,7 +133,8 @@ export interface NotebookSeed {
   title: string;
   /** Plain text under the title; empty when left out. */
   description?: string;
-  cells: { kind: 'circuit' | 'note'; text: string }[];
+  /** A fork's cells keep their titles. */
+  cells: { kind: 'circuit' | 'note'; text: string; title?: string | null }[];
 }
 
 /** The origin a new notebook records when it is a fork. */
@@ -168,7 +169,7 @@ export async function insertNotebook(
     deletedAt: null,
   });
   for (const [position, cell] of seed.cells.entries()) {
-    await insertCell(manager, { notebookId: id, kind: cell.kind, position, text: cell.text, authorId: actor.id, diagnostics: seed.diagnostics[position] ?? null, now });
+    await insertCell(manager, { notebookId: id, kind: cell.kind, title: cell.title ?? null, position, text: cell.text, authorId: actor.id, diagnostics: seed.diagnostics[position] ?? null, now });
     await afterCell?.(position);
   }
   return id;

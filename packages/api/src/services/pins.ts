@@ -93,13 +93,13 @@ export async function createPin(
 ): Promise<Pin> {
   return inTransaction(db, async (manager) => {
     await loadNotebookFor(manager, actor, notebookId, 'review', { lock: true });
-    const cells: { kind: 'circuit' | 'note'; position: number; revision: number; deletedAt: Date | null }[] = await manager.query(
-      'SELECT kind, position, revision, deletedAt FROM cells WHERE id = ? AND notebookId = ?',
+    const cells: { kind: 'circuit' | 'note'; title: string | null; position: number; revision: number; deletedAt: Date | null }[] = await manager.query(
+      'SELECT kind, title, position, revision, deletedAt FROM cells WHERE id = ? AND notebookId = ?',
       [input.cellId, notebookId],
     );
     const cell = cells[0];
     if (!cell) throw fieldError('cellId', `This notebook has no cell with id ${input.cellId}.`);
-    const name = cellName({ kind: cell.kind, position: cell.position, deleted: cell.deletedAt !== null });
+    const name = cellName({ ...cell, deleted: cell.deletedAt !== null });
     if (cell.kind !== 'circuit') throw fieldError('cellId', `${name} is a note cell; pins go on the plot of a circuit cell.`);
     const revisionNumber = input.revisionNumber ?? cell.revision;
     if (revisionNumber > cell.revision) {

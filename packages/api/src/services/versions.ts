@@ -24,6 +24,7 @@ export interface VersionRow {
 export interface VersionCellRow {
   cellId: number;
   kind: 'circuit' | 'note';
+  title: string | null;
   position: number;
   revision: number;
   text: string;
@@ -40,7 +41,7 @@ const versionSelect = `
 /** The cells of a version in order, each with the text of the revision it had then. */
 export async function versionCells(manager: EntityManager, versionId: number): Promise<VersionCellRow[]> {
   return manager.query(
-    `SELECT vc.cellId, c.kind, vc.position, r.number AS revision, r.text, r.diagnosticErrors, r.diagnosticWarnings
+    `SELECT vc.cellId, c.kind, c.title, vc.position, r.number AS revision, r.text, r.diagnosticErrors, r.diagnosticWarnings
        FROM notebook_version_cells vc
        JOIN cells c ON c.id = vc.cellId
        JOIN cell_revisions r ON r.id = vc.revisionId

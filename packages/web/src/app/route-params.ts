@@ -13,11 +13,11 @@ export function notebookIdOf(params: { id?: string }): string {
   return parsed.data;
 }
 
-/** A notebook cell's name by its id ("Circuit 2", the contract's cellName), or "a deleted cell" for one no longer listed. */
-export function cellNamer(cells: readonly { id: number; kind: CellKind; position: number; deletedAt: string | null }[]): (cellId: number) => string {
+/** A notebook cell's name by its id (its title or "Circuit 2": the contract's cellName), or "a deleted cell" for one no longer listed. */
+export function cellNamer(cells: readonly { id: number; kind: CellKind; title: string | null; position: number; deletedAt: string | null }[]): (cellId: number) => string {
   const byId = new Map(cells.map((cell) => [cell.id, cell]));
   return (cellId) => {
     const cell = byId.get(cellId);
-    return cell ? cellName({ kind: cell.kind, position: cell.position, deleted: cell.deletedAt !== null }) : 'a deleted cell';
+    return cell ? cellName({ ...cell, deleted: cell.deletedAt !== null }) : 'a deleted cell';
   };
 }

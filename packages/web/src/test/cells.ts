@@ -9,6 +9,7 @@ export function buildCell(revision: number, text: string, overrides: Partial<Cel
   return {
     id: 7,
     kind: 'circuit',
+    title: null,
     position: 0,
     text,
     revision,

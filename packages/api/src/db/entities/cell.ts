@@ -14,6 +14,10 @@ export class Cell {
   @Column({ type: 'varchar', length: 10 })
   kind!: CellKind;
 
+  /** The title its people chose, or null: then it is named by kind and place ("Circuit 2"). */
+  @Column({ type: 'varchar', length: 80, nullable: true })
+  title!: string | null;
+
   /** 0-based among the live cells; deleted cells keep the place they had. */
   @Column({ type: 'int', unsigned: true })
   position!: number;

@@ -12,6 +12,7 @@ import { AddNotebookSortKeys1764633600010 } from './1764633600010-add-notebook-s
 import { RenameChangesAsked1764633600011 } from './1764633600011-rename-changes-asked.js';
 import { AddRevisionMessage1764633600012 } from './1764633600012-add-revision-message.js';
 import { LanguageUpdate1764633600013 } from './1764633600013-language-update.js';
+import { AddCellTitle1764633600014 } from './1764633600014-add-cell-title.js';
 
 /**
  * Every migration, oldest first. Listed by class rather than found by a file glob, so the
@@ -32,4 +33,5 @@ export const migrations = [
   RenameChangesAsked1764633600011,
   AddRevisionMessage1764633600012,
   LanguageUpdate1764633600013,
+  AddCellTitle1764633600014,
 ];

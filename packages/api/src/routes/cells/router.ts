@@ -1,10 +1,10 @@
 /** `/api/notebooks/:id/cells`: add, save (a new revision), move, delete, restore; revisions. */
 import { Router } from 'express';
 import { actorOf } from '../../auth/require-user.js';
-import { CellCreateSchema, CellMoveSchema, CellSaveSchema, RevisionRestoreSchema } from '../../contract/cells.js';
+import { CellCreateSchema, CellMoveSchema, CellSaveSchema, CellTitleUpdateSchema, RevisionRestoreSchema } from '../../contract/cells.js';
 import { PageQuerySchema } from '../../contract/common.js';
 import { connect } from '../../db/connection.js';
-import { createCell, deleteCell, getRevision, listRevisions, moveCell, restoreCell, restoreRevision, saveCell } from '../../services/cells.js';
+import { createCell, deleteCell, getRevision, listRevisions, moveCell, restoreCell, restoreRevision, saveCell, setCellTitle } from '../../services/cells.js';
 import { validate } from '../../validate.js';
 import { CellParamsSchema, NotebookParamsSchema, RevisionParamsSchema } from '../params.js';
 
@@ -21,6 +21,12 @@ cellsRouter.put('/:cellId', save, async (req, res) => {
   const { params, body } = save.input(req);
   const outcome = await saveCell(await connect(), actorOf(req), params.id, params.cellId, body);
   res.status(outcome.created ? 201 : 200).json(outcome.body);
+});
+
+const title = validate({ params: CellParamsSchema, body: CellTitleUpdateSchema });
+cellsRouter.patch('/:cellId', title, async (req, res) => {
+  const { params, body } = title.input(req);
+  res.json(await setCellTitle(await connect(), actorOf(req), params.id, params.cellId, body.title));
 });
 
 const move = validate({ params: CellParamsSchema, body: CellMoveSchema });

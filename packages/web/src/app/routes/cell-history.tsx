@@ -42,7 +42,7 @@ export function Component() {
   const cells = [...notebook.data.cells, ...notebook.data.deletedCells];
   const cell = cells.find((c) => c.id === cellId);
   if (!cell) return <ErrorMessage error={new Error('This cell is not in the notebook any more.')} />;
-  const title = `History of ${cellName({ kind: cell.kind, position: cell.position, deleted: cell.deletedAt !== null })}`;
+  const title = `History of ${cellName({ ...cell, deleted: cell.deletedAt !== null })}`;
   return (
     <SubPage backTo={appPaths.notebook(id)} backLabel={notebook.data.title} title={title}>
       <CellHistory
