@@ -166,7 +166,34 @@ function ReviewPage({ notebook, review, version, meId }: ReviewPageProps) {
         ) : null}
       </header>
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
-        <div className="min-w-0 space-y-4" data-testid="review-cells">
+        {/* The panel comes first, so on a phone the decision sits near the top; wide screens put it beside the cells. */}
+        <aside aria-label="Review panel" className="space-y-6 self-start lg:col-start-2 lg:row-start-1 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:overflow-y-auto lg:pr-1">
+          <DecisionControls notebookId={id} review={review} meId={meId} onDecided={onDecided} />
+          <PanelSection title="Reviewers">
+            <ReviewersList review={review} />
+          </PanelSection>
+          <PanelSection title="Pins">
+            {pins.isPending ? <Loading text="Loading the pins…" /> : null}
+            {pins.isError ? <ErrorMessage error={pins.error} retry={() => void pins.refetch()} /> : null}
+            {pins.data ? (
+              <PinList
+                notebookId={id}
+                pins={items}
+                labels={labels}
+                cellName={cellName}
+                shownRevision={(cellId) => cellsById.get(cellId)?.revision}
+                canComment={canPin}
+                focusedPinId={focusedPin}
+                emptyText={canPin ? 'Click a trace on a plot, or type a frequency under it, to pin a comment there.' : 'Nobody has pinned a comment yet.'}
+              />
+            ) : null}
+          </PanelSection>
+          <PanelSection title={`History of round ${review.round}`}>
+            <ReviewHistory review={review} />
+          </PanelSection>
+          <Rounds notebookId={id} current={review} />
+        </aside>
+        <div className="min-w-0 space-y-4 lg:col-start-1 lg:row-start-1" data-testid="review-cells">
           {version.cells.map((cell, index) => (
             <article key={cell.cellId} className="rounded-xl border border-rule bg-panel/60 p-3" aria-label={nameOfCell(cell)} data-cell-id={cell.cellId}>
               <h2 className="mb-2 text-xs font-semibold uppercase tracking-wide text-ink-faint">
@@ -206,32 +233,6 @@ function ReviewPage({ notebook, review, version, meId }: ReviewPageProps) {
             </article>
           ))}
         </div>
-        <aside aria-label="Review panel" className="space-y-6 self-start lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:overflow-y-auto lg:pr-1">
-          <DecisionControls notebookId={id} review={review} meId={meId} onDecided={onDecided} />
-          <PanelSection title="Reviewers">
-            <ReviewersList review={review} />
-          </PanelSection>
-          <PanelSection title="Pins">
-            {pins.isPending ? <Loading text="Loading the pins…" /> : null}
-            {pins.isError ? <ErrorMessage error={pins.error} retry={() => void pins.refetch()} /> : null}
-            {pins.data ? (
-              <PinList
-                notebookId={id}
-                pins={items}
-                labels={labels}
-                cellName={cellName}
-                shownRevision={(cellId) => cellsById.get(cellId)?.revision}
-                canComment={canPin}
-                focusedPinId={focusedPin}
-                emptyText={canPin ? 'Click a trace on a plot, or type a frequency under it, to pin a comment there.' : 'Nobody has pinned a comment yet.'}
-              />
-            ) : null}
-          </PanelSection>
-          <PanelSection title={`History of round ${review.round}`}>
-            <ReviewHistory review={review} />
-          </PanelSection>
-          <Rounds notebookId={id} current={review} />
-        </aside>
       </div>
     </section>
   );
