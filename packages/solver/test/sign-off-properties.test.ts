@@ -82,4 +82,37 @@ describe('sign-off properties', { timeout: 120_000 }, () => {
       { numRuns: 40 },
     );
   });
+
+  it('no random network shows a non-finite number without a diagnostic on its line (a gain margin of +∞ is a value)', () => {
+    const part = fc.record({
+      kind: fc.constantFrom('R', 'C', 'L'),
+      a: fc.integer({ min: 0, max: 5 }),
+      b: fc.integer({ min: 0, max: 5 }),
+      v: fc.double({ min: 0, max: 1, noNaN: true }),
+    });
+    const node = (i: number): string => (i === 0 ? 'gnd' : i === 1 ? 'in' : `n${i}`);
+    const shows = ['n3', 'n4 - n5', 'n2 / n3', 'impedance n4', 'loop n5', 'n2 - n2b'];
+    fc.assert(
+      fc.property(fc.array(part, { minLength: 1, maxLength: 10 }), fc.integer({ min: -2, max: 6 }), fc.integer({ min: 1, max: 8 }), (parts, start, decades) => {
+        const lines = ['drive in', 'R90 [in n2] 1k', 'R91 [n2 n3] 1k', 'R92 [n3 n4] 1k', 'R93 [n4 n5] 1k', 'R94 [n5 gnd] 1k', 'R95 [n2b n2] 1k'];
+        parts.forEach((p, i) => {
+          const b = p.a === p.b ? (p.b + 1) % 6 : p.b;
+          const value = p.kind === 'R' ? Math.pow(10, 6 * p.v) : p.kind === 'C' ? Math.pow(10, -12 + 6 * p.v) : Math.pow(10, -6 + 5 * p.v);
+          lines.push(`${p.kind}${i + 1} [${node(p.a)} ${node(b)}] ${num(value)}`);
+        });
+        const first = lines.length + 1;
+        lines.push(...shows.map((x) => `show ${x}`), `sweep ${num(Math.pow(10, start))} .. ${num(Math.pow(10, start + decades))}, 20/decade`);
+        lines.push('require n3 gain <= 0 dB', 'require "loop n5" gain-margin >= 0 dB', 'require n3 peak <= 100 dB');
+        const r = analyze(lines.join('\n'));
+        expect(r.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+        const said = (line: number): boolean => r.diagnostics.some((d) => d.line === line || d.code === 'singular');
+        for (const x of r.readouts) expect(Number.isFinite(x.value) || (x.name === 'gain-margin' && x.value === Infinity), `${x.trace} ${x.name} ${x.value}`).toBe(true);
+        r.traces.forEach((t, k) => {
+          if (Array.from(t.magnitudeDb).some((x) => !Number.isFinite(x))) expect(said(first + k), t.label).toBe(true);
+        });
+        for (const q of r.requirements) if (!Number.isFinite(q.measured)) expect(said(q.line) || q.measured === Infinity, q.text).toBe(true);
+      }),
+      { numRuns: 60 },
+    );
+  });
 });
