@@ -4,9 +4,9 @@
  */
 import type { Circuit } from './circuit.js';
 import type { Diagnostic } from './result.js';
-import { parse, internalError } from './parser.js';
+import { parse } from './parser/index.js';
 import { elaborate } from './elaborate.js';
-import { tidyDiagnostics } from './diagnostic.js';
+import { internalError, tidyDiagnostics } from './diagnostic.js';
 import { cautions } from './cautions.js';
 
 export interface CompileOptions {

@@ -33,6 +33,22 @@ export function diagnostic(
   return d;
 }
 
+/** The code of `internalError`. */
+export const INTERNAL_ERROR = 'internal-error';
+
+/**
+ * The one diagnostic for a fault of Rolloff's own (an exception or a broken invariant), so
+ * that a caller still gets an answer, not a throw: at `range` when the fault belongs to one
+ * line, else at the cell's start.
+ */
+export function internalError(e: unknown, range?: SourceRange): Diagnostic {
+  const why = e instanceof Error ? e.message : String(e);
+  const what = range === undefined ? 'the cell' : 'this line';
+  return diagnostic(range ?? { line: 1, column: 1, endColumn: 1 }, INTERNAL_ERROR, `${what} could not be read because of a fault in Rolloff (${why})`, {
+    hint: 'please report this cell to the Rolloff team',
+  });
+}
+
 /**
  * Clamps every range into the text (lines 1..n, columns 1..length+1), widens an empty
  * range on a non-empty line to one character so that an editor can show it, drops exact

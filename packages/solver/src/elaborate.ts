@@ -52,7 +52,7 @@ import type { Suggestion } from './suggest.js';
 import { formatSi } from './units.js';
 import { CONSTANTS, DEFAULT_TEMPERATURE, GROUND, MEASURES, PART_CLASSES, PASSIVES, isFunctionName } from './vocabulary.js';
 import type { Unit } from './vocabulary.js';
-import { internalError } from './parser.js';
+import { internalError } from './diagnostic.js';
 
 export interface ElaborateOptions {
   /** Most frequency points a sweep may have (default 20 000). */

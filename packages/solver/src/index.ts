@@ -8,7 +8,7 @@ export type * from './result.js';
 export { READOUT_NAMES, STATUS_WORDS } from './result.js';
 export type { Program } from './ast.js';
 export type { Line, Token, TokenKind } from './lexer.js';
-export { parse } from './parser.js';
+export { parse } from './parser/index.js';
 export { lex, separateUnit } from './lexer.js';
 export * from './vocabulary.js';
 export { modernizeCellText } from './modernize.js';

@@ -1,7 +1,7 @@
 /** compile() and parse() as the rest of Rolloff calls them. */
 import { describe, expect, it } from 'vitest';
 import { compile } from '../src/compile.js';
-import { parse } from '../src/parser.js';
+import { parse } from '../src/parser/index.js';
 import { elaborate } from '../src/elaborate.js';
 
 const RC = 'drive in\nR1 [in out] 1k\nC1 [out gnd] 1u\nshow out\n';

@@ -8,7 +8,7 @@ import { fileURLToPath } from 'node:url';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { compile } from '../src/compile.js';
-import { parse } from '../src/parser.js';
+import { parse } from '../src/parser/index.js';
 import { formatSi, parseSi } from '../src/units.js';
 import type { Diagnostic } from '../src/result.js';
 
