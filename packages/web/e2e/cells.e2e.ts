@@ -32,9 +32,9 @@ describe('working with cells', () => {
     await note.getByRole('heading', { name: 'Loop goals' }).waitFor();
     await waitSaved(page, 1);
 
-    await page.getByRole('button', { name: 'Move Note cell 2 up' }).click();
+    await page.getByRole('button', { name: 'Move Note 2 up' }).click();
     await cellAt(page, 0).and(page.locator('[data-kind="note"]')).waitFor();
-    await page.getByRole('button', { name: 'Delete Note cell 1' }).click();
+    await page.getByRole('button', { name: 'Delete Note 1' }).click();
     await page.getByRole('button', { name: 'Undo' }).waitFor();
     await expect.poll(() => page.locator('[data-kind="note"]').count(), { timeout: 15_000 }).toBe(0);
     await page.getByRole('button', { name: 'Undo' }).click();

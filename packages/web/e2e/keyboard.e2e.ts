@@ -81,13 +81,13 @@ describe('the designer’s path with the keyboard only', () => {
 
   it('types a cell and it is saved', async () => {
     const { page } = session;
-    await tabTo(page, /^Circuit cell 1, circuit text$/);
+    await tabTo(page, /^Circuit 1, circuit text$/);
     for (const [n, line] of CELL.entries()) {
       await page.keyboard.type(line);
       if (n < CELL.length - 1) await page.keyboard.press('Enter');
     }
     await waitSaved(page, 0);
-    expect((await focused(page)).name).toBe('Circuit cell 1, circuit text');
+    expect((await focused(page)).name).toBe('Circuit 1, circuit text');
   });
 
   it('shares it with a reviewer, and focus comes back to Share when the dialog closes', async () => {

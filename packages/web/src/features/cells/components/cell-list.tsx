@@ -4,6 +4,7 @@
  * cell to cell (Shift-Enter). The body of a circuit cell is drawn by the page, which knows
  * the editor and the plots; this list keeps texts, saves and order.
  */
+import { cellName } from '@rolloff/api/contract';
 import type { Cell, CellKind, CellSaved } from '@rolloff/api/contract';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { ReactNode } from 'react';
@@ -92,7 +93,8 @@ interface CellItemProps {
 function CellItem({ notebookId, cell, index, count, editable, autoFocus, renderCircuit, onSaved, onMove, onDelete, onLeave, historyHref, busy }: CellItemProps) {
   const autosave = useCellAutosave({ notebookId, cell, editable, onSaved });
   const [conflictOpen, setConflictOpen] = useState(true);
-  const label = `${cell.kind === 'circuit' ? 'Circuit cell' : 'Note cell'} ${index + 1}`;
+  // The one name a cell has everywhere: its title, or "Circuit 2" / "Note 3".
+  const label = cellName({ kind: cell.kind, position: index, title: cell.title });
   const conflict = autosave.state.kind === 'conflict' ? autosave.state.theirs : null;
   return (
     <article
