@@ -94,7 +94,8 @@ export function computeReadouts(analysis: AcAnalysis, trace: TraceData): TraceRe
     out.push(readout(label, 'low-frequency-gain', info.lowDb, 'dB'));
     out.push(...stabilityReadouts(analysis, trace));
   } else if (kind === 'impedance') {
-    if (info.shape === 'band-pass') out.push(...shapeReadouts(view, idx, info, label));
+    // A tank's band readouts; its peak in dB would be in dBΩ, which no requirement reads.
+    if (info.shape === 'band-pass') out.push(...shapeReadouts(view, idx, info, label).filter((r) => r.name !== 'peak'));
     const m = extremeOver(view, 'magnitude', view.f[0], view.f[view.f.length - 1], 'min');
     if (m && Number.isFinite(m.value)) out.push(readout(label, 'min-impedance', m.value, trace.result.unit, m.at));
   } else {

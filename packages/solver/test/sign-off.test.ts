@@ -103,6 +103,15 @@ describe('readouts follow what the trace is', () => {
     expect(r.requirements[0]).toMatchObject({ status: 'not-applicable', reason: expect.stringContaining('impedance, which has no corner') });
   });
 
+  it('a parallel tank’s impedance has its resonance readouts, no corner and no peak in dB [RLC-2: f₀ = 1591.54943 Hz, Q = 10, −3 dB points 1513.960 / 1673.115 Hz]', () => {
+    const r = run('R1 [a gnd] 1k\nL1 [a gnd] 10m\nC1 [a gnd] 1u\nshow impedance a');
+    expect(r.readouts.map((x) => x.name)).toEqual(['corner-low', 'corner-high', 'bandwidth', 'center', 'q', 'peak-frequency', 'min-impedance']);
+    expect(rel(readout(r, 'impedance a', 'center').value, 1591.54943)).toBeLessThan(1e-6);
+    expect(rel(readout(r, 'impedance a', 'q').value, 10)).toBeLessThan(1e-6);
+    expect(rel(readout(r, 'impedance a', 'corner-low').value, 1513.96)).toBeLessThan(1e-6);
+    expect(rel(readout(r, 'impedance a', 'corner-high').value, 1673.115)).toBeLessThan(1e-6);
+  });
+
   it('rolloff is the asymptotic slope, n × 20 dB/decade: −100 for a 5th-order low-pass wherever its sweep ends [LAD-1g, MYJ: Butterworth g = 0.618, 1.618, 2, 1.618, 0.618]', () => {
     // The doubly terminated LC ladder, 1 Ω and ω_c = 1 rad/s scaled to 1 kΩ and 1 kHz.
     const z = 1e3;
