@@ -168,13 +168,15 @@ function analyseShape(view: TraceView, idx: number[]): ShapeInfo {
     else if (lowSlope < 0 && highSlope < 0) shape = 'low-pass';
     else if (lowSlope > 0 && highSlope > 0) shape = 'high-pass';
     else shape = interiorMin ? 'band-stop' : 'unknown';
-  } else if (Math.abs(lowDb - highDb) < SAME_LEVEL_DB) {
-    if (interiorMin && db[minK] < Math.min(lowDb, highDb) - HALF_POWER_DB) shape = 'band-stop';
-    else if (interiorMax && db[maxK] > Math.max(lowDb, highDb) + HALF_POWER_DB) shape = 'band-pass';
-    else shape = 'flat';
   } else {
-    // Two plateaus at different levels: the higher one is the passband, the lower a floor.
-    shape = highDb < lowDb ? 'low-pass' : 'high-pass';
+    // Two plateaus: a dip or a peak between two at about one level is a band; otherwise the
+    // higher plateau is the passband and the lower one a floor (an op-amp's feed-through, say).
+    const sameLevel = Math.abs(lowDb - highDb) < SAME_LEVEL_DB;
+    if (sameLevel && interiorMin && db[minK] < Math.min(lowDb, highDb) - HALF_POWER_DB) shape = 'band-stop';
+    else if (sameLevel && interiorMax && db[maxK] > Math.max(lowDb, highDb) + HALF_POWER_DB) shape = 'band-pass';
+    else if (highDb < lowDb - HALF_POWER_DB) shape = 'low-pass';
+    else if (lowDb < highDb - HALF_POWER_DB) shape = 'high-pass';
+    else shape = 'flat';
   }
   if (shape === 'band-pass' && !interiorMax) shape = 'unknown';
   return { shape, lowDb, highDb, lowFlat };

@@ -142,6 +142,8 @@ function missingReason(measure: Measure, label: string, trace: TraceData, shape:
     if (trace.result.kind === 'loop') return `${label} is a loop gain, which has no corner: require its crossover`;
     if (trace.result.kind === 'impedance') return `${label} is an impedance, which has no corner`;
     if (shape === 'band-pass' || shape === 'band-stop') return `${label} is ${shape}: it has a lower and an upper corner, not one corner`;
+    if (shape === 'flat') return `${label} stays within 3 dB of its level across the sweep, so it has no corner`;
+    if (shape === 'unknown') return `neither end of ${label} settles to a passband level in the sweep, so it has no corner`;
     return `${label} does not fall 3 dB below its passband level anywhere in the sweep`;
   }
   if (measure === 'peak') return `${label} has no peak in the sweep`;

@@ -85,6 +85,14 @@ describe('levels come from the network, not from the end of the sweep', () => {
 });
 
 describe('readouts follow what the trace is', () => {
+  it('a shelf that falls 4 dB between two plateaus is a low-pass with its corner [DER: |H|² = (1 + ω²a²)/(1 + ω²b²) = ½ at ω² = 1/(b² − 2a²), a = R2·C, b = (R1 + R2)·C]', () => {
+    const r = run('drive in\nR1 [in out] 1k\nR2 [out m] 1.7k\nC1 [m gnd] 100n\nshow out\nrequire out corner = 1.3k ± 1%');
+    const a = 1.7e3 * 100e-9;
+    const b = 2.7e3 * 100e-9;
+    expect(rel(readout(r, 'out', 'corner').value, 1 / (TWO_PI * Math.sqrt(b * b - 2 * a * a)))).toBeLessThan(1e-9);
+    expect(r.requirements[0].status).toBe('pass');
+  });
+
   it('a loop gain has no corner, Q or band readouts; asking for its corner says why, in the requirement itself', () => {
     const r = analyze(
       'drive in\nA1 [a gnd in gnd] vgain 100k\nR1 [a b] 1k\nC1 [b gnd] (1/(2*pi*10*1k))\nA2 [c gnd b gnd] vgain 1\nR2 [c d] 1k\nC2 [d gnd] (1/(2*pi*1M*1k))\nshow loop d\nsweep 1 .. 100M\nrequire loop d corner >= 1',
@@ -94,6 +102,11 @@ describe('readouts follow what the trace is', () => {
     const q = r.requirements[0];
     expect(q.status).toBe('not-applicable');
     expect(q.reason).toMatch(/loop gain, which has no corner/);
+  });
+
+  it('a flat response asked for a corner says so in the requirement', () => {
+    const r = analyze('drive in\nR1 [in a] 1k\nR2 [a gnd] 1k\nshow a\nrequire a corner >= 1k');
+    expect(r.requirements[0]).toMatchObject({ status: 'not-applicable', reason: 'a stays within 3 dB of its level across the sweep, so it has no corner' });
   });
 
   it('a bare capacitor’s impedance has no corner, only its minimum [XC-1: |Z| = 1/(2πfC)]', () => {
