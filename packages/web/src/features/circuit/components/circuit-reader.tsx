@@ -7,12 +7,14 @@ import type { ReactNode } from 'react';
 import { useMemo } from 'react';
 import type { PlotPick, PlotPin } from '../plot/plot-pins';
 import { cautionsOf, problemsOf } from '../lib/cautions';
+import { plotSummary } from '../lib/readout-labels';
 import { useAnalysis } from '../worker/use-analysis';
 import { DiagnosticsList } from './diagnostics-list';
 import { HazardCaution, SmallSignalNote } from './hazard-caution';
 import { LazyCircuitEditor, LazyCircuitPlots, PlotPlaceholder } from './lazy-parts';
 import { ReadoutsPanel } from './readouts-panel';
 import { RequirementBadges } from './requirement-badges';
+import { TraceData } from './trace-data';
 
 export interface CircuitReaderProps {
   /** Separates this cell's analyses from other cells'. */
@@ -47,6 +49,7 @@ export function CircuitReader({ cellKey, text, label, filename, pins, onPick, fo
           The solver could not run this cell: {outcome.message}
         </p>
       ) : null}
+      {result && result.traces.length > 0 ? <p className="sr-only">{plotSummary(result.traces, result.readouts)}</p> : null}
       {result && result.traces.length > 0 ? (
         <LazyCircuitPlots series={series} filename={filename} pins={pins} onPick={onPick} />
       ) : (
@@ -58,6 +61,7 @@ export function CircuitReader({ cellKey, text, label, filename, pins, onPick, fo
             <>
               <ReadoutsPanel readouts={result.readouts} />
               <RequirementBadges requirements={result.requirements} />
+              <TraceData result={result} />
             </>
           ) : null}
           <SmallSignalNote />

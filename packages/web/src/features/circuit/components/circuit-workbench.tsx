@@ -8,6 +8,7 @@ import type { Result } from '@rolloff/solver';
 import { useMemo, useRef, useState } from 'react';
 import type { PlotPin } from '../plot/plot-pins';
 import { cautionsOf, problemsOf } from '../lib/cautions';
+import { plotSummary } from '../lib/readout-labels';
 import { useAnalysis } from '../worker/use-analysis';
 import { DiagnosticsAnnouncement } from './diagnostics-announcement';
 import { DiagnosticsList } from './diagnostics-list';
@@ -15,6 +16,7 @@ import { HazardCaution, SmallSignalNote } from './hazard-caution';
 import { LazyCircuitEditor, LazyCircuitPlots, PlotPlaceholder } from './lazy-parts';
 import { ReadoutsPanel } from './readouts-panel';
 import { RequirementBadges } from './requirement-badges';
+import { TraceData } from './trace-data';
 
 export interface CircuitWorkbenchProps {
   /** Separates this cell's analyses from other cells'. */
@@ -73,12 +75,14 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
         ) : null}
         {stale ? <p className="text-xs text-warn">The cell has errors: showing the last result that solved.</p> : null}
         <div className={stale ? 'opacity-60' : ''}>
+          {shown ? <p className="sr-only">{plotSummary(shown.traces, shown.readouts)}</p> : null}
           {shown ? <LazyCircuitPlots series={series} filename={filename} pins={pins} /> : <PlotPlaceholder text={outcome ? 'Nothing to plot: fix the errors or add a show line.' : 'Solving…'} />}
         </div>
         {shown ? (
           <>
             <ReadoutsPanel readouts={shown.readouts} stale={stale} />
             <RequirementBadges requirements={shown.requirements} stale={stale} />
+            <TraceData result={shown} />
           </>
         ) : null}
         <SmallSignalNote />

@@ -2,7 +2,7 @@
  * How readout and requirement values are written on screen: in the unit the solver gives
  * them, with SI prefixes. Their names come from the solver (`READOUT_NAMES`).
  */
-import { formatSi } from '@rolloff/solver';
+import { READOUT_NAMES, formatSi } from '@rolloff/solver';
 import type { Readout } from '@rolloff/solver';
 
 /** Levels and angles to a hundredth: finer digits are below anything a bench can see. */
@@ -23,4 +23,17 @@ export function formatValue(value: number, unit: string): string {
 export function formatReadout(readout: Readout): string {
   const value = formatValue(readout.value, readout.unit);
   return readout.at === null ? value : `${value} at ${formatSi(readout.at, 'Hz')}`;
+}
+
+/**
+ * What the plots show, in words, for someone who cannot see them: each trace's readouts
+ * ("out: corner 1 kHz, roll-off -20 dB/decade").
+ */
+export function plotSummary(traces: readonly { label: string }[], readouts: readonly Readout[]): string {
+  if (traces.length === 0) return 'Nothing is plotted.';
+  const lines = traces.map((trace) => {
+    const own = readouts.filter((r) => r.trace === trace.label).map((r) => `${READOUT_NAMES[r.name]} ${formatReadout(r)}`);
+    return `${trace.label}: ${own.length > 0 ? own.join(', ') : 'no readouts'}`;
+  });
+  return `The plots show ${lines.join('; ')}.`;
 }

@@ -10,7 +10,7 @@ import { Button } from '../../../components/ui/button';
 import { FieldError, fieldProblem } from '../../../components/ui/field-error';
 import { ErrorMessage } from '../../../components/ui/status-message';
 import { useCreatePin } from '../api/create-pin';
-import { readFrequency } from './pin-labels';
+import { readFrequency } from '../../../lib/frequency';
 
 /** Where the next pin goes, as the form shows it. */
 export interface PinDraft {

@@ -1,10 +1,8 @@
 /**
  * How pins are named and drawn: "P1", "P2"… in the order they were made (the list comes
- * oldest first, so a pin keeps its name), the marks a plot needs for one cell revision, and
- * how a typed frequency is read.
+ * oldest first, so a pin keeps its name), and the marks a plot needs for one cell revision.
  */
 import type { Pin } from '@rolloff/api/contract';
-import { parseSi } from '@rolloff/solver';
 
 /** Each pin's short name, by id. */
 export function pinLabels(pins: readonly Pin[]): Map<number, string> {
@@ -48,17 +46,4 @@ export function pinMarks(pins: readonly Pin[], labels: ReadonlyMap<number, strin
     groups.set(key, [...(groups.get(key) ?? []), mark]);
   }
   return (cellId, revision) => groups.get(`${cellId}:${revision}`) ?? NO_MARKS;
-}
-
-/** A frequency as typed: `27k`, `27 kHz`, `1.5M`, `800` (Hz); or what is wrong with it. */
-export function readFrequency(text: string): { ok: true; hz: number } | { ok: false; message: string } {
-  const trimmed = text.trim();
-  if (!trimmed) return { ok: false, message: 'Type a frequency, e.g. 27k or 27 kHz, or click the plot.' };
-  const letters = /[A-Za-zµμ]+$/.exec(trimmed)?.[0] ?? '';
-  const value = parseSi(trimmed);
-  if (value === null || (letters !== '' && !/^[fpnuµμmkMGT]?(Hz)?$/.test(letters))) {
-    return { ok: false, message: `“${trimmed}” is not a frequency: write a number of Hz with an optional prefix, e.g. 27k or 27 kHz.` };
-  }
-  if (!(value > 0) || !Number.isFinite(value)) return { ok: false, message: 'A frequency must be above 0 Hz.' };
-  return { ok: true, hz: value };
 }
