@@ -5,7 +5,7 @@
 import type { Circuit } from './circuit.js';
 import type { Diagnostic } from './result.js';
 import { parse } from './parser/index.js';
-import { elaborate } from './elaborate.js';
+import { elaborate } from './elaborate/index.js';
 import { internalError, tidyDiagnostics } from './diagnostic.js';
 import { cautions } from './cautions.js';
 

@@ -1,0 +1,118 @@
+/** `show` lines: what each trace reads, and its label. */
+import type { Probe, TraceKind, TraceSpec } from '../circuit.js';
+import type { ShowStatement } from '../ast.js';
+import type { Elaboration } from './context.js';
+import { checkTwoTerminal } from './parts.js';
+
+/** The trace a `show` line reads, or null (with the reason reported). */
+export function showStatement(cx: Elaboration, st: ShowStatement): TraceSpec | null {
+  const e = st.expr;
+  let probe: Probe | null = null;
+  switch (e.kind) {
+    case 'node': {
+      const p = cx.existingNode(e.node);
+      if (p === null) return null;
+      if (p === 0) {
+        cx.error(e.node.range, 'bad-trace', 'gnd is 0 V by definition, so there is nothing to show', 'show another node');
+        return null;
+      }
+      probe = { kind: 'voltage', p, n: 0 };
+      break;
+    }
+    case 'difference': {
+      const p = cx.existingNode(e.p);
+      const n = cx.existingNode(e.n);
+      if (p === null || n === null) return null;
+      if (p === n) {
+        cx.error(st.exprRange, 'bad-trace', `${e.p.name} - ${e.n.name} is 0 by definition`, 'show the difference of two different nodes');
+        return null;
+      }
+      probe = { kind: 'voltage', p, n };
+      break;
+    }
+    case 'ratio': {
+      const num = cx.existingNode(e.num);
+      const den = cx.existingNode(e.den);
+      if (num === null || den === null) return null;
+      if (den === 0) {
+        cx.error(e.den.range, 'bad-trace', 'the ratio divides by V(gnd), which is 0', 'divide by the voltage of another node');
+        return null;
+      }
+      probe = { kind: 'ratio', num, den };
+      break;
+    }
+    case 'current': {
+      const full = e.element.name;
+      if (!cx.elementNames.has(full) && cx.top.designators.has(full)) return null;
+      if (!checkTwoTerminal(cx, cx.top, e.element, full, 'show current')) return null;
+      probe = { kind: 'current', element: full };
+      break;
+    }
+    case 'impedance': {
+      const p = cx.existingNode(e.p);
+      const n = e.n === null ? 0 : cx.existingNode(e.n);
+      if (p === null || n === null) return null;
+      if (p === n) {
+        cx.error(st.exprRange, 'bad-trace', p === 0 ? 'the impedance from gnd to gnd is 0 by definition' : `the impedance between ${e.p.name} and itself is 0 by definition`, 'name two different nodes');
+        return null;
+      }
+      probe = { kind: 'impedance', p, n };
+      break;
+    }
+  }
+  const current = cx.drive?.kind === 'current';
+  let kind: TraceKind;
+  let unit: string;
+  switch (st.mode) {
+    case 'loop':
+      kind = 'loop';
+      unit = e.kind === 'ratio' || !current ? 'V/V' : 'V/A';
+      break;
+    case 'noise':
+      kind = 'noise';
+      unit = 'V/√Hz';
+      cx.warn(st.range, 'not-available', 'noise results are not available yet: this trace is checked but not computed', 'a later version adds output noise');
+      break;
+    case 'step':
+      kind = 'step';
+      unit = e.kind === 'ratio' ? 'V/V' : e.kind === 'current' ? (current ? 'A/A' : 'A/V') : current ? 'V/A' : 'V/V';
+      cx.warn(st.range, 'not-available', 'step responses are not available yet: this trace is checked but not computed', 'a later version adds the time domain');
+      break;
+    default:
+      if (e.kind === 'impedance') {
+        kind = 'impedance';
+        unit = 'Ω';
+      } else if (e.kind === 'current') {
+        kind = 'current';
+        unit = current ? 'A/A' : 'A/V';
+      } else if (e.kind === 'ratio') {
+        kind = 'ratio';
+        unit = 'V/V';
+      } else {
+        kind = current ? 'transimpedance' : 'ratio';
+        unit = current ? 'V/A' : 'V/V';
+      }
+  }
+  const label = st.label?.text ?? (st.mode === 'plain' ? st.exprText : `${st.mode} ${st.exprText}`);
+  return { label, expr: st.exprText, kind, probe, unit, range: st.range };
+}
+
+/** Two traces with the same label. */
+export function checkLabels(cx: Elaboration, shows: ShowStatement[], traces: (TraceSpec | null)[]): void {
+  const seen = new Map<string, number>();
+  traces.forEach((t, i) => {
+    if (t === null) return;
+    const before = seen.get(t.label);
+    if (before !== undefined) {
+      const st = shows[i];
+      cx.error(st.label?.range ?? st.exprRange, 'duplicate-label', `a trace called ${t.label} is shown already, on line ${before}`, st.label === null ? `give one of them a label: show "${t.label} 2" ${st.exprText}` : 'give each trace a label of its own');
+      return;
+    }
+    seen.set(t.label, t.range.line);
+  });
+}
+
+/** A trace’s label as written or as its show line names it. */
+export function labelOf(st: ShowStatement): string {
+  return st.label?.text ?? (st.mode === 'plain' ? st.exprText : `${st.mode} ${st.exprText}`);
+}
