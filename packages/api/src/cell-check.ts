@@ -3,11 +3,11 @@
  * migration that rewrites old forms (so it sits below both services and db). A save is never
  * refused for what the solver finds: the counts only travel with the answer and the revision.
  */
-import { compile } from '@rolloff/solver';
+import { DEFAULT_MAX_POINTS, compile } from '@rolloff/solver';
 import type { DiagnosticCounts } from './contract/common.js';
 
-/** Caps a sweep the check elaborates, so a save never waits on a huge frequency list. */
-const maxPoints = 20_000;
+/** Caps a sweep the check elaborates (the solver's own limit), so a save never waits on a huge frequency list. */
+const maxPoints = DEFAULT_MAX_POINTS;
 
 /** Error and warning counts of `text` as a circuit cell (compile: parse + elaborate, no solve). */
 export function checkCircuitText(text: string): DiagnosticCounts {

@@ -10,7 +10,7 @@ import { internalError, tidyDiagnostics } from './diagnostic.js';
 import { cautions } from './cautions.js';
 
 export interface CompileOptions {
-  /** Most frequency points a sweep may have (default 20 000). */
+  /** Most frequency points a sweep may have (default `DEFAULT_MAX_POINTS`). */
   maxPoints?: number;
 }
 

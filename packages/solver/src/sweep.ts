@@ -5,7 +5,7 @@
  */
 import type { SweepSpec } from './circuit.js';
 
-/** The point limit when the caller gives none. */
+/** The most frequency points a sweep may have when the caller gives no limit (the API's cell check uses it too). */
 export const DEFAULT_MAX_POINTS = 20_000;
 
 export const DEFAULT_SWEEP = { from: 1, to: 1e6, perDecade: 100 } as const;

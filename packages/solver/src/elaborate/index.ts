@@ -21,7 +21,7 @@ import { requireStatement } from './require.js';
 import { wholeCellChecks } from './checks.js';
 
 export interface ElaborateOptions {
-  /** Most frequency points a sweep may have (default 20 000). */
+  /** Most frequency points a sweep may have (default `DEFAULT_MAX_POINTS`). */
   maxPoints?: number;
   /** Most parts a network may have after blocks are flattened (default 500 000). */
   maxParts?: number;
