@@ -7,6 +7,7 @@
 import type { Circuit, SourceRange } from './circuit.js';
 import type { Diagnostic } from './result.js';
 import { formatSi } from './units.js';
+import { diagnostic } from './diagnostic.js';
 
 /** The code of the hazardous-voltage caution. */
 export const HAZARDOUS_VOLTAGE = 'hazardous-voltage';
@@ -54,15 +55,6 @@ export function cautions(text: string, circuit: Circuit | null): Diagnostic[] {
   });
   if (found.length === 0) return [];
   const { range } = found[0];
-  return [
-    {
-      severity: 'info',
-      line: range.line,
-      column: range.column,
-      endColumn: range.endColumn,
-      message: `this cell looks like a circuit at mains or another hazardous voltage: ${found.map((f) => f.reason).join('; ')}`,
-      hint: ADVICE,
-      code: HAZARDOUS_VOLTAGE,
-    },
-  ];
+  const message = `this cell looks like a circuit at mains or another hazardous voltage: ${found.map((f) => f.reason).join('; ')}`;
+  return [diagnostic(range, HAZARDOUS_VOLTAGE, message, { severity: 'info', hint: ADVICE })];
 }

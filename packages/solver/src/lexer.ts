@@ -6,6 +6,7 @@
 import type { SourceRange } from './circuit.js';
 import type { Diagnostic } from './result.js';
 import { readSuffix } from './units.js';
+import { diagnostic } from './diagnostic.js';
 import { LINE_STARTS, MEASURE_WORDS, PREFIX_LIST, SI_PREFIXES, UNIT_LIST, UNIT_SPELLINGS } from './vocabulary.js';
 import type { SuffixProblem } from './units.js';
 import type { Unit } from './vocabulary.js';
@@ -102,12 +103,8 @@ function lexLine(text: string, line: number, diagnostics: Diagnostic[]): Line {
   const n = text.length;
   const at = (start: number, end: number): SourceRange => ({ line, column: start + 1, endColumn: end + 1 });
   const report = (start: number, end: number, code: string, message: string, hint?: string, fix?: { title: string; replacement: string; start?: number; end?: number }) => {
-    const d: Diagnostic = { severity: 'error', line, column: start + 1, endColumn: end + 1, message, code };
-    if (hint !== undefined) d.hint = hint;
-    if (fix !== undefined) {
-      d.fix = { title: fix.title, line, column: (fix.start ?? start) + 1, endColumn: (fix.end ?? end) + 1, replacement: fix.replacement };
-    }
-    diagnostics.push(d);
+    const quickFix = fix === undefined ? undefined : { title: fix.title, replacement: fix.replacement, range: at(fix.start ?? start, fix.end ?? end) };
+    diagnostics.push(diagnostic(at(start, end), code, message, { hint, fix: quickFix }));
   };
 
   while (i < n) {
@@ -272,7 +269,6 @@ export type Report = (start: number, end: number, code: string, message: string,
 
 /** Lexes one number starting at `start` and pushes it; returns the index after it. */
 function lexNumber(text: string, start: number, line: number, tokens: Token[], spaced: boolean, report: Report): number {
-  const n = text.length;
   let j = start;
   while (isDigit(text[j])) j++;
   const intEnd = j;

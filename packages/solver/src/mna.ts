@@ -8,6 +8,7 @@
  */
 import type { Circuit, Element, NodeIndex, SourceRange } from './circuit.js';
 import type { Diagnostic } from './result.js';
+import { internalError } from './diagnostic.js';
 
 /** A current as a linear form over the unknowns: I = Σ (c0[k] + s·c1[k])·x[index[k]]. */
 export interface LinearForm {
@@ -42,11 +43,15 @@ export interface MnaSystem {
   currentForm(name: string): LinearForm | undefined;
 }
 
-/** Builds the system of a circuit; problems become error diagnostics and a null system. */
+/**
+ * Builds the system of a circuit and a null system when it breaks an invariant. The
+ * elaborator has checked every value and name of a cell, so a broken invariant is a fault of
+ * Rolloff's own and becomes the one internal-error diagnostic, at the element's line.
+ */
 export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnostics: Diagnostic[] } {
   const diagnostics: Diagnostic[] = [];
-  const fail = (range: SourceRange, message: string, code = 'invalid-network'): void => {
-    diagnostics.push({ severity: 'error', line: range.line, column: range.column, endColumn: range.endColumn, message, code });
+  const fail = (range: SourceRange, message: string): void => {
+    diagnostics.push(internalError(new Error(message), range));
   };
   const nodeCount = circuit.nodeNames.length;
   const nodeUnknown = new Int32Array(Math.max(nodeCount, 1));

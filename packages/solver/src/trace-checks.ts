@@ -9,14 +9,14 @@ import type { Circuit } from './circuit.js';
 import type { Diagnostic } from './result.js';
 import type { AcAnalysis, TraceData } from './analysis.js';
 import { formatFrequencyList, formatNumber } from './format.js';
+import { diagnostic } from './diagnostic.js';
 
 /** Diagnostics for every solved trace of the analysis. */
 export function traceDiagnostics(circuit: Circuit, analysis: AcAnalysis): Diagnostic[] {
   const singular = new Set(analysis.singular);
   return analysis.traces.flatMap((trace) => {
     const spec = circuit.traces[trace.plan.specIndex];
-    const where = { line: spec.range.line, column: spec.range.column, endColumn: spec.range.endColumn };
-    return checkTrace(trace, analysis.frequencies, singular).map((d) => ({ ...where, ...d }));
+    return checkTrace(trace, analysis.frequencies, singular).map(({ severity, code, message, hint }) => diagnostic(spec.range, code, message, { severity, hint }));
   });
 }
 
