@@ -49,6 +49,15 @@ async function mainPages(page: Page): Promise<[string, string][]> {
     ['not found', '/no-such-page'],
   ];
   if (versions.items.length > 0) pages.push(['version', `/notebooks/${notebookId}/versions/${versions.items[0].number}`]);
+  // The demo data holds a review in progress, with pins and a reply.
+  for (const { id } of list.items) {
+    const reviews = (await fetchFromPage(page, `/api/notebooks/${id}/reviews`, { method: 'GET' })).body as { items: { id: number }[] };
+    if (reviews.items.length > 0) {
+      pages.push(['review', `/notebooks/${id}/reviews/${reviews.items[0].id}`]);
+      break;
+    }
+  }
+  expect(pages.map(([name]) => name)).toContain('review');
   return pages;
 }
 

@@ -27,11 +27,12 @@ export function ReviewStatusLink({ status, href }: { status: ReviewStatus; href:
       data-testid="review-status"
       data-state={status.state}
       data-version={status.versionNumber}
-      aria-label={`Review round ${status.round}: ${REVIEW_STATE_WORDS[status.state]}, version ${status.versionNumber}`}
     >
       <span className="text-ink-soft">Review</span>
       <ReviewStateBadge state={status.state} />
       <span className="text-ink-soft">version {status.versionNumber}</span>
+      {/* The name read out is the visible words, plus the round for those who cannot see the colour. */}
+      <span className="sr-only">, round {status.round}</span>
     </Link>
   );
 }
