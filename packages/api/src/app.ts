@@ -23,6 +23,7 @@ import { meRouter } from './routes/me/router.js';
 import { notebooksRouter } from './routes/notebooks/router.js';
 import { settingsRouter } from './routes/settings/router.js';
 import { usersRouter } from './routes/users/router.js';
+import { securityHeaders } from './security-headers.js';
 
 export interface AppOptions {
   /** Folder of the built web app to serve, or null to serve none. */
@@ -39,6 +40,7 @@ export function createApp({ webDist, auth: settings = authConfig(), notifier, ma
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
+  app.use(securityHeaders());
   const mail: AppMail = { notifier: notifier ?? createNotifier({ smtp: mailConfig(), database: connect }), publicUrl: settings.publicUrl };
   app.locals.mail = mail;
   app.use(csrfCookie);
