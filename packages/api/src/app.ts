@@ -1,6 +1,6 @@
 /**
  * The Express application: sign-in under /auth, the JSON API under /api, the development
- * mailbox at /dev/mail when the SMTP stand-in is in use, and in production the built web app
+ * mailbox at /dev/mail for site admins when the SMTP stand-in is in use, and in production the built web app
  * with a fallback to index.html for the client-side routes.
  */
 import { existsSync } from 'node:fs';
@@ -50,7 +50,7 @@ export function createApp({ webDist, auth: settings = authConfig(), notifier, ma
 
   const auth = createAuth(settings, connect);
   const checkCsrf = csrfCheck(settings.publicUrl);
-  app.use(['/api', '/auth'], auth.session, auth.passport.initialize(), auth.passport.session());
+  app.use(['/api', '/auth', '/dev/mail'], auth.session, auth.passport.initialize(), auth.passport.session());
   app.use('/auth/logout', checkCsrf);
   app.use('/auth', authRouter(auth));
 

@@ -32,7 +32,8 @@ export interface NotebookAccess {
  * - delete: delete the notebook, and restore it
  */
 export type NotebookAction = keyof NotebookPermissions;
-export type SiteAction = 'manage-users';
+/** Site actions: managing people, and reading the development mailbox (everyone's mail). */
+export type SiteAction = 'manage-users' | 'read-dev-mail';
 
 /** A column of the role table. A link-shared notebook puts every signed-in user in `viewer`. */
 type Column = NotebookRole | 'site-admin';
@@ -65,7 +66,7 @@ export function can(actor: Actor | null | undefined, action: SiteAction): boolea
 export function can(actor: Actor | null | undefined, action: NotebookAction, notebook: NotebookAccess): boolean;
 export function can(actor: Actor | null | undefined, action: NotebookAction | SiteAction, notebook?: NotebookAccess): boolean {
   if (!actor || actor.disabled) return false;
-  if (action === 'manage-users') return actor.siteRole === 'admin';
+  if (action === 'manage-users' || action === 'read-dev-mail') return actor.siteRole === 'admin';
   if (!notebook) return false;
   const columns = columnsOf(actor, notebook);
   if (notebook.deletedAt) return columns.includes('owner') && onDeleted.includes(action);
@@ -99,8 +100,13 @@ export function authorize(actor: Actor | null | undefined, action: NotebookActio
 
 /** Throws 403 unless `actor` may do the site action. */
 export function authorizeSite(actor: Actor | null | undefined, action: SiteAction): void {
-  if (!can(actor, action)) throw forbidden('Only a site admin may manage users.');
+  if (!can(actor, action)) throw forbidden(`Only a site admin may ${describeSite[action]}.`);
 }
+
+const describeSite: Record<SiteAction, string> = {
+  'manage-users': 'manage users',
+  'read-dev-mail': 'read the development mailbox',
+};
 
 const describe: Record<NotebookAction, string> = {
   read: 'read it',

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { disconnect } from '../../db/connection.js';
 import { Client, signedIn } from '../../../test/client.js';
 import { buildNotebook, buildUser } from '../../../test/factories.js';
-import { startTestServer } from '../../../test/http.js';
+import { startTestServer, testAdminLogins } from '../../../test/http.js';
 import type { TestServer } from '../../../test/http.js';
 
 describe('GET /dev/mail', () => {
@@ -19,9 +19,19 @@ describe('GET /dev/mail', () => {
   });
 
   it('is not there unless the server runs with the mail stand-in', async () => {
-    const reply = await new Client(without.url).get('/dev/mail');
+    const reply = await (await signedIn(without.url, testAdminLogins[0]!)).get('/dev/mail');
     expect(reply.status).toBe(404);
     expect(reply.text).not.toContain('Mailbox');
+  });
+
+  it('is not there signed out, and is for site admins only when signed in', async () => {
+    const signedOut = await new Client(withMailbox.url).get('/dev/mail');
+    expect(signedOut.status).toBe(404);
+    expect(signedOut.text).not.toContain('Mailbox');
+    const member = await buildUser();
+    const asMember = await (await signedIn(withMailbox.url, member.login)).get('/dev/mail');
+    expect(asMember.status).toBe(403);
+    expect(asMember.body).toMatchObject({ error: 'forbidden', message: 'Only a site admin may read the development mailbox.' });
   });
 
   it('lists what the stand-in received, newest first, with every value escaped and links made links', async () => {
@@ -33,8 +43,8 @@ describe('GET /dev/mail', () => {
     await owner.put(`/api/notebooks/${other.id}/members/${newcomer.id}`, { role: 'editor' });
     await withMailbox.mailbox();
 
-    // Signed out is fine: it is the stand-in's mailbox on this machine, not anyone's account.
-    const page = await new Client(withMailbox.url).get('/dev/mail');
+    const admin = await signedIn(withMailbox.url, testAdminLogins[0]!);
+    const page = await admin.get('/dev/mail');
     expect(page.status).toBe(200);
     expect(page.headers.get('content-type')).toMatch(/^text\/html/);
     expect(page.headers.get('content-security-policy')).toContain("default-src 'none'");
@@ -50,7 +60,7 @@ describe('GET /dev/mail', () => {
 
   it('says so when the stand-in does not answer', async () => {
     await withMailbox.smtp.close();
-    const reply = await new Client(withMailbox.url).get('/dev/mail');
+    const reply = await (await signedIn(withMailbox.url, testAdminLogins[0]!)).get('/dev/mail');
     expect(reply.status).toBe(502);
     expect(reply.text).toContain('does not answer');
   });

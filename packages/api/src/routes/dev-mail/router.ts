@@ -1,15 +1,22 @@
 /**
  * `GET /dev/mail`: the development mailbox, mounted only when the server runs with the SMTP
  * stand-in (MAIL_STANDIN_URL names its HTTP mailbox). It reads the stand-in on every request.
+ * It holds everyone's mail (reviews of private notebooks too), so only a signed-in site admin
+ * reads it: signed out it is not there (404, as without the stand-in), and a signed-in member
+ * is told it is for admins (403).
  */
 import { Router } from 'express';
+import { notFound } from '../../errors.js';
+import { authorizeSite } from '../../policy.js';
 import { MailboxReplySchema } from './mailbox.js';
 import type { MailboxMessage } from './mailbox.js';
 import { mailboxDownPage, mailboxPage } from './page.js';
 
 export function devMailRouter(standinUrl: string): Router {
   const router = Router();
-  router.get('/', async (_req, res) => {
+  router.get('/', async (req, res) => {
+    if (!req.user || req.user.disabled) throw notFound('That page');
+    authorizeSite(req.user, 'read-dev-mail');
     res.set('cache-control', 'no-store');
     // The page is static markup: no script may run in it, whatever a message holds.
     res.set('content-security-policy', "default-src 'none'; style-src 'unsafe-inline'");
