@@ -53,8 +53,10 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
   const [editing, setEditing] = useState(false);
 
   return (
+    // Wide screens: the editor beside its plots. Narrow ones (a phone, 200 % zoom): the plots
+    // first and sticky, so they stay in view while the text under them is edited.
     <div className="grid gap-4 lg:grid-cols-2" data-testid="circuit-workbench" data-busy={busy}>
-      <div className="min-w-0 space-y-2" onFocus={() => setEditing(!readOnly)} onBlur={() => setEditing(false)}>
+      <div className="min-w-0 space-y-2 max-lg:order-3" onFocus={() => setEditing(!readOnly)} onBlur={() => setEditing(false)}>
         <LazyCircuitEditor value={text} onChange={onChange} diagnostics={diagnostics} readOnly={readOnly} label={label} onLeave={onLeave} autoFocus={autoFocus} />
         {result ? <DiagnosticsList diagnostics={problemsOf(result.diagnostics)} /> : null}
         <DiagnosticsAnnouncement diagnostics={diagnostics?.items ?? null} editing={editing} />
@@ -66,26 +68,30 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
           {outcome?.ok ? <span data-testid="solve-time"> · solved in {Math.max(1, Math.round(outcome.elapsedMs))} ms</span> : null}
         </p>
       </div>
-      <div className="min-w-0 space-y-3">
-        <HazardCaution cautions={cautions} />
-        {outcome && !outcome.ok ? (
-          <p role="alert" className="rounded-lg border border-fail bg-fail-soft p-3 text-sm text-fail">
-            The solver could not run this cell: {outcome.message}
-          </p>
-        ) : null}
-        {stale ? <p className="text-xs text-warn">The cell has errors: showing the last result that solved.</p> : null}
-        <div className={stale ? 'opacity-60' : ''}>
+      <div className="min-w-0 space-y-3 max-lg:contents">
+        <div className="space-y-3 empty:hidden max-lg:order-1">
+          <HazardCaution cautions={cautions} />
+          {outcome && !outcome.ok ? (
+            <p role="alert" className="rounded-lg border border-fail bg-fail-soft p-3 text-sm text-fail">
+              The solver could not run this cell: {outcome.message}
+            </p>
+          ) : null}
+          {stale ? <p className="text-xs text-warn">The cell has errors: showing the last result that solved.</p> : null}
+        </div>
+        <div className={`max-lg:sticky max-lg:top-0 max-lg:z-10 max-lg:order-2 max-lg:max-h-[45vh] max-lg:overflow-y-auto max-lg:bg-paper ${stale ? 'opacity-60' : ''}`} data-testid="workbench-plots">
           {shown ? <p className="sr-only">{plotSummary(shown.traces, shown.readouts)}</p> : null}
           {shown ? <LazyCircuitPlots series={series} filename={filename} pins={pins} /> : <PlotPlaceholder text={outcome ? 'Nothing to plot: fix the errors or add a show line.' : 'Solving…'} />}
         </div>
-        {shown ? (
-          <>
-            <ReadoutsPanel readouts={shown.readouts} stale={stale} />
-            <RequirementBadges requirements={shown.requirements} stale={stale} />
-            <TraceData result={shown} />
-          </>
-        ) : null}
-        <SmallSignalNote />
+        <div className="space-y-3 max-lg:order-4">
+          {shown ? (
+            <>
+              <ReadoutsPanel readouts={shown.readouts} stale={stale} />
+              <RequirementBadges requirements={shown.requirements} stale={stale} />
+              <TraceData result={shown} />
+            </>
+          ) : null}
+          <SmallSignalNote />
+        </div>
       </div>
     </div>
   );

@@ -31,7 +31,8 @@ const NO_PINS: readonly PlotPin[] = [];
 function FigurePanel({ figure, filename, compact, onPick }: { figure: Figure; filename: string; compact: boolean; onPick?: (pick: PlotPick) => void }) {
   const chart = useRef<ChartHandle>(null);
   const stem = `${filename}-${figure.kind}`;
-  const height = figure.kind === 'bode' || figure.kind === 'impedance' ? (compact ? 'h-80' : 'h-[26rem]') : compact ? 'h-56' : 'h-72';
+  // Narrow screens keep the plot short enough to stay in view above the text being edited.
+  const height = figure.kind === 'bode' || figure.kind === 'impedance' ? (compact ? 'h-80' : 'h-72 lg:h-[26rem]') : compact ? 'h-56' : 'h-60 lg:h-72';
   return (
     <figure className="rounded-lg border border-rule bg-panel">
       <figcaption className="flex items-center justify-between gap-2 border-b border-rule px-3 py-1.5 text-sm">
