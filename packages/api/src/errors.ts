@@ -3,6 +3,7 @@
  * them as `{ error, message, details }`. Anything unknown becomes `internal` without details.
  */
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { ACQUIRE_TIMEOUT } from './db/request-timeouts.js';
 
 export type ErrorId =
   | 'not_found'
@@ -72,11 +73,15 @@ function fromBodyParser(error: BodyParserError): ApiError | null {
 }
 
 const unreachable = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'PROTOCOL_CONNECTION_LOST', 'ER_CON_COUNT_ERROR']);
+/** The time limits of db/request-timeouts.ts: the pool's, the driver's and MariaDB's own. */
+const tooSlow = new Set([ACQUIRE_TIMEOUT, 'PROTOCOL_SEQUENCE_TIMEOUT', 'ER_STATEMENT_TIMEOUT']);
 
 /** A database that cannot be reached is a 503 the client may retry, not an internal error. */
 function fromDatabase(error: { code?: string; driverError?: { code?: string } } | null): ApiError | null {
   const code = error?.code ?? error?.driverError?.code;
-  return code && unreachable.has(code) ? unavailable('The database is not answering; try again in a moment.') : null;
+  if (code && unreachable.has(code)) return unavailable('The database is not answering; try again in a moment.');
+  if (code && tooSlow.has(code)) return unavailable('The database did not answer in time; try again in a moment.');
+  return null;
 }
 
 export const errorMiddleware: ErrorRequestHandler = (error: unknown, _req, res, _next) => {

@@ -3,27 +3,45 @@
  * trying, so a restarted database is picked up without restarting the API.
  */
 import type { DataSource } from 'typeorm';
-import { dataSource } from './data-source.js';
+import type { MysqlDriver } from 'typeorm/driver/mysql/MysqlDriver.js';
+import { createDataSource } from './data-source.js';
+import { limitPool } from './request-timeouts.js';
 
+const dataSource = createDataSource(process.env, { forRequests: true });
 let initializing: Promise<DataSource> | null = null;
 
 /** Resolves with an initialised DataSource, retrying the first connection on each call. */
 export function connect(): Promise<DataSource> {
   if (dataSource.isInitialized) return Promise.resolve(dataSource);
-  initializing ??= dataSource.initialize().finally(() => {
-    initializing = null;
-  });
+  initializing ??= dataSource
+    .initialize()
+    .then((db) => {
+      limitPool((db.driver as MysqlDriver).pool);
+      return db;
+    })
+    .finally(() => {
+      initializing = null;
+    });
   return initializing;
 }
 
-/** True when a real query answers. */
+/** How long health waits for MariaDB: it answers in under a second whatever the database does. */
+const pingBudgetMs = 500;
+
+/** True when a real query answers within the health check's budget. */
 export async function pingDatabase(): Promise<boolean> {
+  let timer: NodeJS.Timeout | undefined;
+  const late = new Promise<false>((resolve) => {
+    timer = setTimeout(() => resolve(false), pingBudgetMs);
+  });
+  const ping = connect()
+    .then((db) => db.query('SELECT 1'))
+    .then(() => true)
+    .catch(() => false);
   try {
-    const db = await connect();
-    await db.query('SELECT 1');
-    return true;
-  } catch {
-    return false;
+    return await Promise.race([ping, late]);
+  } finally {
+    clearTimeout(timer);
   }
 }
 
