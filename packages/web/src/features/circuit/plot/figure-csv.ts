@@ -6,6 +6,7 @@
  * other x values (an earlier revision swept differently) are left out too.
  */
 import type { Layout, ScatterData } from 'plotly.js-basic-dist-min';
+import { fromPlotText } from './result-figures';
 import type { Figure } from './result-figures';
 
 type AxisKey = 'xaxis' | 'yaxis' | 'yaxis2';
@@ -40,7 +41,7 @@ export function figureCsv(figure: Figure): string {
   if (curves.length === 0) return '';
   const x = curves[0].x;
   const shared = curves.filter((curve) => sameValues(curve.x, x));
-  const header = [axisTitle(figure.layout, 'xaxis') || 'x', ...shared.map((curve) => [curve.name, axisTitle(figure.layout, axisKey(curve.yaxis, 'yaxis'))].filter(Boolean).join(' '))];
+  const header = [axisTitle(figure.layout, 'xaxis') || 'x', ...shared.map((curve) => [curve.name && fromPlotText(curve.name), axisTitle(figure.layout, axisKey(curve.yaxis, 'yaxis'))].filter(Boolean).join(' '))];
   const rows = [header.map(field).join(',')];
   for (let i = 0; i < x.length; i++) rows.push([cell(x[i]), ...shared.map((curve) => cell(curve.y[i]))].join(','));
   return `${rows.join('\r\n')}\r\n`;

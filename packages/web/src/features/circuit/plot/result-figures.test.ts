@@ -3,6 +3,7 @@ import type { RequirementResult, Result } from '@rolloff/solver';
 import { describe, expect, it } from 'vitest';
 import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { bodeFigure, shapesOf, testTheme } from '../../../test/plot-figures';
+import { figureCsv } from './figure-csv';
 import { decibelRange, figuresFor, finiteOrNull, placeRequirements } from './result-figures';
 import type { Figure } from './result-figures';
 
@@ -143,6 +144,29 @@ describe('other figures', () => {
     expect(lines[0].line?.color).toBe(lines[1].line?.color);
     expect(lines[1].line?.dash).toBe('dash');
     expect(lines[1].y).toEqual(finiteOrNull(older.traces[0].magnitudeDb));
+  });
+
+  it('passes labels and series names to Plotly as text, never as the HTML Plotly reads in them', () => {
+    const result = analyze(FIRST_EXAMPLE);
+    const link = '<a href="x">click</a>';
+    const relabel = (label: string) => (label === result.traces[0].label ? link : label);
+    const labelled: Result = {
+      ...result,
+      traces: result.traces.map((t) => ({ ...t, label: relabel(t.label) })),
+      readouts: result.readouts.map((r) => ({ ...r, trace: relabel(r.trace) })),
+    };
+    const figure = bodeFigure([{ result: labelled, name: 'R&D <b>2</b>' }]);
+    const [magnitude] = figure.data;
+    // Plotly shows the entities &lt; &gt; &amp; as the characters < > &.
+    expect(magnitude.name).toBe('R&amp;D &lt;b&gt;2&lt;/b&gt; · &lt;a href="x"&gt;click&lt;/a&gt;');
+    // Nothing Plotly shows holds the markup: legend names, hover texts, annotations.
+    const shown = figuresFor([{ result: labelled, name: 'R&D <b>2</b>' }], testTheme).flatMap((f) => [
+      ...f.data.flatMap((d) => [d.name, d.hovertemplate, d.hovertext, d.text].flat()),
+      ...(f.layout.annotations ?? []).map((a) => a.text),
+    ]);
+    expect(shown.filter((text) => typeof text === 'string' && /<a |<b>/.test(text))).toEqual([]);
+    // The CSV is not HTML: it carries the label as the cell wrote it.
+    expect(figureCsv(figure).split('\r\n')[0]).toContain(`R&D <b>2</b> · ${link}`.replace(/"/g, '""'));
   });
 
   it('draws nothing for a cell whose text has errors', () => {

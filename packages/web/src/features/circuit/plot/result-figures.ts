@@ -101,8 +101,9 @@ function colourOf(theme: PlotTheme, index: number): string {
   return theme.traces[index % theme.traces.length];
 }
 
-function legendName(series: PlotSeries, trace: TraceResult): string {
-  return series.name ? `${series.name} · ${trace.label}` : trace.label;
+/** A trace's name in the legend and on hover, as text: Plotly reads names as a little HTML. */
+function legendName(series: PlotSeries, label: string): string {
+  return plotText(series.name ? `${series.name} · ${label}` : label);
 }
 
 /** The hover text of each point: frequency, magnitude and phase together. */
@@ -266,7 +267,7 @@ function requirementShapes(
         yaxis,
         showlegend: false,
         marker: { color: colour, size: 9, symbol: passed ? 'circle-open' : 'x', line: { width: 2, color: colour } },
-        hovertemplate: `${STATUS_WORDS[requirement.status]}: ${escapeHover(requirement.text)}<br>worst %{y} at %{x} Hz<extra>line ${requirement.line}</extra>`,
+        hovertemplate: `${STATUS_WORDS[requirement.status]}: ${plotText(requirement.text)}<br>worst %{y} at %{x} Hz<extra>line ${requirement.line}</extra>`,
       });
     }
   }
@@ -297,8 +298,18 @@ function frequencyRequirementShapes(placed: PlacedRequirement[], frequencies: Nu
   return shapes;
 }
 
-function escapeHover(text: string): string {
+/**
+ * Text from a cell (a label, a requirement's words) as Plotly shows it: Plotly reads names,
+ * hover text and annotations as a small subset of HTML, links included, so `<`, `>` and `&`
+ * become entities, which it shows as the characters themselves.
+ */
+function plotText(text: string): string {
   return text.replace(/[<>&]/g, (c) => ({ '<': '&lt;', '>': '&gt;', '&': '&amp;' })[c] ?? c);
+}
+
+/** A name of a figure back as the cell wrote it (for the CSV's header, which is not HTML). */
+export function fromPlotText(text: string): string {
+  return text.replace(/&(lt|gt|amp);/g, (_, entity: string) => ({ lt: '<', gt: '>', amp: '&' })[entity] ?? '');
 }
 
 interface TraceSlot {
@@ -337,7 +348,7 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
     data.push({
       type: 'scatter',
       mode: 'lines',
-      name: legendName(s, trace),
+      name: legendName(s, trace.label),
       legendgroup: group,
       x,
       y: finiteOrNull(kind === 'bode' ? trace.magnitudeDb : trace.magnitude),
@@ -350,7 +361,7 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
     data.push({
       type: 'scatter',
       mode: 'lines',
-      name: legendName(s, trace),
+      name: legendName(s, trace.label),
       legendgroup: group,
       showlegend: false,
       x,
@@ -451,7 +462,7 @@ function noiseFigure(series: PlotSeries[], theme: PlotTheme): Figure | null {
   const data: Partial<ScatterData>[] = slots.map(({ series: s, trace, colour }) => ({
     type: 'scatter',
     mode: 'lines',
-    name: legendName(s, trace),
+    name: legendName(s, trace.label),
     x: finiteOrNull(s.result.frequencies),
     y: finiteOrNull(trace.magnitude),
     line: { color: colour, width: 2, dash: s.dash ?? 'solid' },
@@ -475,7 +486,7 @@ function stepFigure(series: PlotSeries[], theme: PlotTheme): Figure | null {
       data.push({
         type: 'scatter',
         mode: 'lines',
-        name: s.name ? `${s.name} · ${step.label}` : step.label,
+        name: legendName(s, step.label),
         x: finiteOrNull(step.times),
         y: finiteOrNull(step.values),
         line: { color: colours.get(step.label), width: 2, dash: s.dash ?? 'solid' },
