@@ -9,6 +9,11 @@ export interface FixSpec {
   range?: SourceRange;
 }
 
+/** The quick fix that replaces the diagnostic's range (or `range`) with `replacement`. */
+export function replaceWith(replacement: string, range?: SourceRange): FixSpec {
+  return range === undefined ? { title: `Replace with ${replacement}`, replacement } : { title: `Replace with ${replacement}`, replacement, range };
+}
+
 /** One diagnostic at `range`. */
 export function diagnostic(
   range: SourceRange,

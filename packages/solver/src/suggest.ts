@@ -1,4 +1,5 @@
 /** "Did you mean …": the nearest known names to a misspelt one, as a hint and a quick fix. */
+import { replaceWith } from './diagnostic.js';
 import type { FixSpec } from './diagnostic.js';
 
 /** Optimal string alignment distance: edits, with a swap of two neighbours counting as one. */
@@ -61,7 +62,7 @@ export function didYouMean(name: string, candidates: Iterable<string>): Suggesti
   if (names.length === 0) return { names, question: undefined, fix: undefined };
   const shown = names.slice(0, 3).map((s) => `\`${s}\``);
   const list = shown.length === 1 ? shown[0] : `${shown.slice(0, -1).join(', ')} or ${shown[shown.length - 1]}`;
-  const fix = names.length === 1 ? { title: `Replace with ${names[0]}`, replacement: names[0] } : undefined;
+  const fix = names.length === 1 ? replaceWith(names[0]) : undefined;
   return { names, question: `did you mean ${list}?`, fix };
 }
 

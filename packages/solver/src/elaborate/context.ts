@@ -6,7 +6,7 @@ import type { Drive, Element, NodeIndex, SourceRange } from '../circuit.js';
 import type { Diagnostic } from '../result.js';
 import type { BlockStatement, Ident, Program, Statement } from '../ast.js';
 import type { ExprUnit } from '../expr.js';
-import { diagnostic } from '../diagnostic.js';
+import { diagnostic, replaceWith } from '../diagnostic.js';
 import type { FixSpec } from '../diagnostic.js';
 import { didYouMean, suggestionHint } from '../suggest.js';
 import type { Suggestion } from '../suggest.js';
@@ -137,7 +137,7 @@ export class Elaboration {
     let index = this.nodeIndex.get(full);
     if (index === undefined) {
       if (GROUND_LOOKALIKE.test(name)) {
-        this.warn(id.range, 'ground-name', `${name} is a node of its own, not ground`, `ground is written ${GROUND}, and names are case-sensitive`, { title: `Replace with ${GROUND}`, replacement: GROUND });
+        this.warn(id.range, 'ground-name', `${name} is a node of its own, not ground`, `ground is written ${GROUND}, and names are case-sensitive`, replaceWith(GROUND));
       }
       index = this.nodes.length;
       this.nodes.push({ name: full, range: id.range, local: name, block: scope.block?.name.name ?? null, touches: new Set() });

@@ -4,7 +4,7 @@ import type { Diagnostic } from '../result.js';
 import type { Ident, LetStatement, Statement, Value } from '../ast.js';
 import { evaluateTokens } from '../expr.js';
 import type { Quantity } from '../expr.js';
-import { diagnostic } from '../diagnostic.js';
+import { diagnostic, replaceWith } from '../diagnostic.js';
 import { suggestionHint } from '../suggest.js';
 import { formatSi } from '../units.js';
 import { CONSTANTS, GROUND, isFunctionName } from '../vocabulary.js';
@@ -193,7 +193,7 @@ export function read(cx: Elaboration, scope: Scope, v: Value, line: number, slot
   const range = v.kind === 'number' && v.unitRange !== undefined ? v.unitRange : v.range;
   const written = v.kind === 'number' ? `\`${v.text}\`` : v.kind === 'name' ? `${v.name} (in ${q.unit})` : `this expression (in ${q.unit})`;
   if (q.unit === 'K' && v.kind === 'number' && v.unitRange !== undefined && !slot.units.includes('K')) {
-    cx.error(range, 'unit-mismatch', `\`K\` is kelvin, not kilo`, 'use k for kilo', { title: 'Replace with k', replacement: 'k' });
+    cx.error(range, 'unit-mismatch', `\`K\` is kelvin, not kilo`, 'use k for kilo', replaceWith('k'));
     return null;
   }
   const quantity = QUANTITY_OF[q.unit] ?? q.unit;

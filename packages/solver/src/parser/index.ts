@@ -11,7 +11,7 @@ import type { BlockStatement, Program, Statement } from '../ast.js';
 import { LINE_STARTS, PART_CLASSES, PART_LETTERS, STATEMENT_WORDS, TOP_LEVEL_ONLY } from '../vocabulary.js';
 import type { PartClassLetter } from '../vocabulary.js';
 import { didYouMean, suggest, suggestionHint } from '../suggest.js';
-import { internalError, tidyDiagnostics } from '../diagnostic.js';
+import { internalError, replaceWith, tidyDiagnostics } from '../diagnostic.js';
 import { planRenames } from '../modernize.js';
 import type { RenamePlan } from '../modernize.js';
 import { Cursor, StatementError, orList, show } from './cursor.js';
@@ -220,7 +220,7 @@ function unknownStatement(cur: Cursor, first: Token): never {
   const upper = word[0].toUpperCase();
   if (bracket && word[0] !== upper && partLetter(upper) !== null) {
     const fixed = upper + word.slice(1);
-    return cur.error(first.range, 'unknown-statement', `\`${word}\` is not a statement or a part`, `designators start with a capital letter: ${fixed}`, { title: `Replace with ${fixed}`, replacement: fixed });
+    return cur.error(first.range, 'unknown-statement', `\`${word}\` is not a statement or a part`, `designators start with a capital letter: ${fixed}`, replaceWith(fixed));
   }
   if (bracket || /^[A-Z]/.test(word)) {
     const transistor = 'the language describes linear networks: model a transistor’s small signal with A (controlled source), R and C parts';

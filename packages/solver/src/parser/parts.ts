@@ -32,6 +32,7 @@ import {
 } from '../vocabulary.js';
 import type { ControlledMode, OpAmpOptionName, PartClassLetter } from '../vocabulary.js';
 import { merge, orList, show } from './cursor.js';
+import { replaceWith } from '../diagnostic.js';
 import type { Cursor } from './cursor.js';
 import { ident, nodeList, value } from './values.js';
 
@@ -72,13 +73,13 @@ function checkDesignator(cur: Cursor, d: Token, letter: string): void {
     'bad-designator',
     `\`${d.text}\` is not a reference designator: ${what} is ${letter}, a number and an optional lower-case suffix, like ${letter}1 or ${letter}4b`,
     `number the part, and say what it does in a comment, like  # ${d.text}${alsoNamed}`,
-    renamed === undefined ? undefined : { title: `Replace with ${renamed}`, replacement: renamed },
+    renamed === undefined ? undefined : replaceWith(renamed),
   );
 }
 
 /** Reports a word of the language's earlier forms, with the quick fix to its new form. */
 function retired(cur: Cursor, range: SourceRange, written: string, replacement: string): void {
-  cur.report(range, 'retired-word', `\`${written}\` is an earlier form of the language`, `write ${replacement}`, { title: `Replace with ${replacement}`, replacement });
+  cur.report(range, 'retired-word', `\`${written}\` is an earlier form of the language`, `write ${replacement}`, replaceWith(replacement));
 }
 
 function checkCount(cur: Cursor, nodes: NodeList, want: number, what: string, example: string): void {

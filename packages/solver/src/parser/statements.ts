@@ -20,6 +20,7 @@ import type { Punct, Token } from '../lexer.js';
 import { didYouMean, suggestionHint } from '../suggest.js';
 import { DEFAULT_TEMPERATURE, MEASURE_WORDS, RETIRED } from '../vocabulary.js';
 import { StatementError, merge } from './cursor.js';
+import { replaceWith } from '../diagnostic.js';
 import type { Cursor } from './cursor.js';
 import { ident, nodeList, nodeName, value } from './values.js';
 
@@ -32,7 +33,7 @@ export function letStatement(cur: Cursor): LetStatement | null {
   const name = ident(cur, 'the parameter’s name', 'let R = 10k');
   if (cur.isPunct('==')) {
     const t = cur.next() as Token;
-    cur.report(t.range, 'bad-operator', '`==` is not how a parameter is set', 'write let NAME = VALUE', { title: 'Replace with =', replacement: '=' });
+    cur.report(t.range, 'bad-operator', '`==` is not how a parameter is set', 'write let NAME = VALUE', replaceWith('='));
   } else {
     cur.expect('=', 'missing-equals', `\`=\` is missing after ${name.name}`, `write let ${name.name} = VALUE`);
   }
@@ -219,7 +220,7 @@ export function sweepStatement(cur: Cursor): SweepStatement {
     if (unit !== undefined && unit.kind === 'name' && unit.text === 'decade') {
       cur.next();
     } else if (unit !== undefined && unit.kind === 'name' && ['dec', 'decades', 'dekade', 'decad', 'decde'].includes(unit.text)) {
-      cur.report(unit.range, 'bad-sweep', `\`${unit.text}\` should be decade`, 'write N/decade', { title: 'Replace with decade', replacement: 'decade' });
+      cur.report(unit.range, 'bad-sweep', `\`${unit.text}\` should be decade`, 'write N/decade', replaceWith('decade'));
       cur.next();
     } else {
       cur.error(cur.here(), 'bad-sweep', 'a log sweep’s density is written N/decade', hint);
@@ -295,7 +296,7 @@ export function retiredToleranceStatement(cur: Cursor): SpreadStatement {
   const range = cur.whole();
   const source = (v: Value) => cur.line.text.slice(v.range.column - 1, v.range.endColumn - 1);
   const report = (replacement?: string) =>
-    cur.report(range, 'retired-word', '`tolerance` is an earlier form of the language', replacement === undefined ? SPREAD_HINT : `write ${replacement}`, replacement === undefined ? undefined : { title: `Replace with ${replacement}`, replacement });
+    cur.report(range, 'retired-word', '`tolerance` is an earlier form of the language', replacement === undefined ? SPREAD_HINT : `write ${replacement}`, replacement === undefined ? undefined : replaceWith(replacement));
   if (word !== undefined && word.kind === 'name' && word.text === 'worstcase') {
     report(`${RETIRED.tolerance} ${RETIRED.worstcase}`);
     return { kind: 'spread', mode: 'extremes', draws: null, seed: null, range };
@@ -360,10 +361,7 @@ export function requireStatement(cur: Cursor): RequireStatement {
   const opToken = cur.next() as Token;
   const opInfo = OPS[opToken.punct as Punct] as { op: '>=' | '<=' | '='; fix?: string };
   if (opInfo.fix !== undefined) {
-    cur.report(opToken.range, 'bad-operator', `\`${opToken.text}\` is not a comparison here`, `the comparisons are >=, <= and = VALUE ± TOL`, {
-      title: `Replace with ${opInfo.fix}`,
-      replacement: opInfo.fix,
-    });
+    cur.report(opToken.range, 'bad-operator', `\`${opToken.text}\` is not a comparison here`, `the comparisons are >=, <= and = VALUE ± TOL`, replaceWith(opInfo.fix));
   }
   const v = value(cur, 'the value to compare with', ['over', 'at']);
   if (v === null) throw new StatementError('require');

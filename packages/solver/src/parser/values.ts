@@ -5,6 +5,7 @@ import type { Token } from '../lexer.js';
 import { readSuffix } from '../units.js';
 import { SI_PREFIXES, isDigitsOnly } from '../vocabulary.js';
 import { merge, show } from './cursor.js';
+import { replaceWith } from '../diagnostic.js';
 import type { Cursor } from './cursor.js';
 
 /**
@@ -72,7 +73,7 @@ export function value(cur: Cursor, what: string, stopWords: readonly string[] = 
         const col = u.range.column - 1;
         describeSuffixProblem(reading.reason, '', col, col + u.text.length, (start, end, code, message, hint, fix) => {
           const range = { line: u.range.line, column: start + 1, endColumn: end + 1 };
-          const qf = fix === undefined ? undefined : { title: `Replace with ${fix.replacement}`, replacement: fix.replacement, range: { line: u.range.line, column: (fix.start ?? start) + 1, endColumn: (fix.end ?? end) + 1 } };
+          const qf = fix === undefined ? undefined : replaceWith(fix.replacement, { line: u.range.line, column: (fix.start ?? start) + 1, endColumn: (fix.end ?? end) + 1 });
           cur.report(range, code, message, hint, qf);
         });
         v.bad = true;
@@ -147,10 +148,7 @@ export function nodeName(cur: Cursor, what: string): Ident {
       cur.report(t.range, 'ground-is-gnd', 'ground is written gnd, not 0', 'the ground node has one name, gnd', { title: 'Replace with gnd', replacement: renamed });
       return { name: renamed, range: t.range };
     }
-    cur.report(t.range, 'digit-node', `\`${t.text}\` cannot be a node name: a node name starts with a letter or _`, `write ${renamed}, or a name that says what the node is, like out`, {
-      title: `Replace with ${renamed}`,
-      replacement: renamed,
-    });
+    cur.report(t.range, 'digit-node', `\`${t.text}\` cannot be a node name: a node name starts with a letter or _`, `write ${renamed}, or a name that says what the node is, like out`, replaceWith(renamed));
     return { name: t.text, range: t.range };
   }
   if (t !== undefined && t.kind === 'number') {
