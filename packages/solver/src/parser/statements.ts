@@ -94,7 +94,7 @@ export function driveStatement(cur: Cursor): DriveStatement {
 }
 
 /** The words of a trace expression in canonical spacing. */
-export function traceText(e: TraceExpr): string {
+function traceText(e: TraceExpr): string {
   switch (e.kind) {
     case 'node':
       return e.node.name;
