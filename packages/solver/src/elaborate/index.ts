@@ -75,7 +75,11 @@ export function elaborate(program: Program, options: ElaborateOptions = {}): { c
 }
 
 /** The one-of-a-kind lines (each at most once) and the requirements, in the order written. */
-function settingsAndRequirements(cx: Elaboration, shows: ShowStatement[], traces: (TraceSpec | null)[]) {
+function settingsAndRequirements(
+  cx: Elaboration,
+  shows: ShowStatement[],
+  traces: (TraceSpec | null)[],
+): Pick<Circuit, 'sweep' | 'time' | 'temperature' | 'tolerance' | 'requirements'> {
   let sweep: SweepSpec | null = null;
   let sweepLine = 0;
   let time: Circuit['time'] = null;
