@@ -85,6 +85,14 @@ function fromDatabase(error: { code?: string; driverError?: { code?: string } } 
 }
 
 export const errorMiddleware: ErrorRequestHandler = (error: unknown, _req, res, _next) => {
+  if (res.headersSent) {
+    // The answer has gone out already (a session write after it failed, say): there is no
+    // error to send. A finished answer stays as it is; an unfinished one is cut, so that a
+    // truncated body never looks whole.
+    console.error(error);
+    if (!res.writableEnded) res.destroy();
+    return;
+  }
   const known =
     error instanceof ApiError ? error : (fromBodyParser(error as BodyParserError) ?? fromDatabase(error as { code?: string }));
   if (!known) {

@@ -11,6 +11,13 @@ import { Session } from '../db/entities/session.js';
 
 type Callback<T = void> = (error?: unknown, value?: T) => void;
 
+/**
+ * How far a session's expiry must have moved before a request writes it again. express-session
+ * touches the session at the end of every signed-in request; writing each time cost one UPDATE
+ * and one fsync per read, for an expiry two weeks away that a few minutes do not change.
+ */
+export const TOUCH_EVERY_MS = 5 * 60_000;
+
 /** The user id passport keeps in a session, if any. */
 function userIdOf(data: SessionData): number | null {
   const user = (data as { passport?: { user?: unknown } }).passport?.user;
@@ -49,7 +56,8 @@ export class DatabaseSessionStore extends session.Store {
         await db.getRepository(Session).delete({ id: sid });
         return null;
       }
-      return JSON.parse(row.data) as SessionData;
+      // The stored expiry rides along (never saved: see set) for touch to compare against.
+      return { ...(JSON.parse(row.data) as SessionData), storedExpiry: row.expiresAt.getTime() };
     })().then(
       (data) => callback(null, data),
       (error: unknown) => callback(error),
@@ -63,7 +71,7 @@ export class DatabaseSessionStore extends session.Store {
       await db.query(
         `INSERT INTO sessions (id, userId, data, expiresAt) VALUES (?, ?, ?, ?)
          ON DUPLICATE KEY UPDATE userId = VALUES(userId), data = VALUES(data), expiresAt = VALUES(expiresAt)`,
-        [sid, userId, JSON.stringify(data), this.expiryOf(data)],
+        [sid, userId, JSON.stringify({ ...data, storedExpiry: undefined }), this.expiryOf(data)],
       );
       await this.pruneNow(db);
     })().then(
@@ -73,8 +81,13 @@ export class DatabaseSessionStore extends session.Store {
   }
 
   override touch(sid: string, data: SessionData, callback?: Callback): void {
+    const expiry = this.expiryOf(data);
+    if (data.storedExpiry !== undefined && expiry.getTime() - data.storedExpiry < TOUCH_EVERY_MS) {
+      callback?.();
+      return;
+    }
     void this.database()
-      .then((db) => db.getRepository(Session).update({ id: sid }, { expiresAt: this.expiryOf(data) }))
+      .then((db) => db.getRepository(Session).update({ id: sid }, { expiresAt: expiry }))
       .then(
         () => callback?.(),
         (error: unknown) => callback?.(error),

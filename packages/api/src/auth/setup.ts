@@ -14,6 +14,7 @@ import type { AuthConfig } from '../config.js';
 import { SESSION_COOKIE } from '../contract/common.js';
 import { activeUser, recordSignIn } from '../services/users.js';
 import type { GithubIdentity } from '../services/users.js';
+import { cookieStateStore } from './oauth-state.js';
 import { DatabaseSessionStore } from './session-store.js';
 import './types.js';
 
@@ -63,7 +64,7 @@ export function createAuth(config: AuthConfig, database: () => Promise<DataSourc
       userEmailURL: config.oauth.userEmailURL,
       scope: ['user:email'],
       userAgent: 'rolloff',
-      state: true,
+      store: cookieStateStore,
     } as unknown as StrategyOptions;
     const strategy = new GitHubStrategy(options, (_access: string, _refresh: string, profile: GithubProfile, done: (error: unknown, user?: Express.User | false, info?: { message: string }) => void) => {
       const identity: GithubIdentity = {

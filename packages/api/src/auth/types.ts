@@ -9,8 +9,8 @@ declare global {
 
 declare module 'express-session' {
   interface SessionData {
-    /** Where to go after sign-in (a path on this site). */
-    returnTo?: string;
+    /** The expiry of the session's row when it was read (ms), never saved: see session-store.ts. */
+    storedExpiry?: number;
   }
 }
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { SESSION_COOKIE } from '../../contract/common.js';
+import { CSRF_COOKIE, SESSION_COOKIE } from '../../contract/common.js';
 import { MeSchema } from '../../contract/users.js';
 import { connect } from '../../db/connection.js';
 import { Session } from '../../db/entities/session.js';
@@ -117,11 +117,13 @@ describe('sign-in through the OAuth stand-in', () => {
     expect((await client.get('/api/me')).status).toBe(401);
   });
 
-  it('marks the session cookie Secure when the request came over HTTPS through the proxy', async () => {
+  it('marks the sign-in start\'s cookie Secure when the request came over HTTPS through the proxy', async () => {
     const client = new Client(server.url);
     const start = await client.fetch('/auth/github?login=someone', { headers: { 'x-forwarded-proto': 'https' } });
-    const cookie = start.headers.getSetCookie().find((line) => line.startsWith(`${SESSION_COOKIE}=`));
-    expect(cookie).toMatch(/Secure/i);
+    const cookies = start.headers.getSetCookie().filter((line) => !line.startsWith(`${CSRF_COOKIE}=`));
+    // The OAuth state travels in a cookie of its own; the start makes no session.
+    expect(cookies.map((line) => line.split('=')[0])).toEqual(['rolloff_oauth_state']);
+    expect(cookies[0]).toMatch(/Secure/i);
   });
 
   it('signs out with POST /auth/logout, which ends the stored session', async () => {

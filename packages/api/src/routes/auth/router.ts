@@ -24,7 +24,8 @@ export function authRouter(auth: Auth): Router {
       return;
     }
     const { query } = start.input(req);
-    req.session.returnTo = query.returnTo;
+    // Kept with the OAuth state in its cookie (auth/oauth-state.ts), not in a session.
+    res.locals.returnTo = query.returnTo;
     auth.passport.authenticate('github', { login: query.login } as object)(req, res, next);
   });
 
@@ -44,7 +45,7 @@ export function authRouter(auth: Auth): Router {
           .send(messagePage(refusal?.title ?? 'Sign-in did not complete', refusal?.message ?? 'The sign-in was cancelled or has expired.', { href: '/auth/github', text: 'Sign in again' }));
         return;
       }
-      const returnTo = req.session.returnTo ?? '/notebooks';
+      const returnTo = (res.locals.returnTo as string | undefined) ?? '/notebooks';
       req.logIn(user, (loginError) => {
         if (loginError) return next(loginError);
         res.redirect(302, returnTo);
