@@ -35,6 +35,20 @@ function messageOf(issue: z.core.$ZodIssue, part: (typeof parts)[number], receiv
   return issue.message;
 }
 
+/** Matches a UTF-16 surrogate standing alone: half of a character, which UTF-8 cannot store. */
+const loneSurrogate = /\p{Cs}/u;
+
+/** The path of the first string in `value` that holds a lone surrogate, or null. */
+function loneSurrogateAt(value: unknown, path: PropertyKey[] = []): PropertyKey[] | null {
+  if (typeof value === 'string') return loneSurrogate.test(value) ? path : null;
+  if (typeof value !== 'object' || value === null) return null;
+  for (const [key, item] of Object.entries(value)) {
+    const found = loneSurrogateAt(item, [...path, Array.isArray(value) ? Number(key) : key]);
+    if (found) return found;
+  }
+  return null;
+}
+
 export interface Validator<S extends Schemas> extends RequestHandler {
   /** The parsed, typed input of a request that passed this validator. */
   input(req: Request): Input<S>;
@@ -50,6 +64,12 @@ export function validate<S extends Schemas>(schemas: S): Validator<S> {
       const schema = schemas[part];
       if (!schema) continue;
       const received: unknown = req[part];
+      // Refused rather than stored as U+FFFD: what is saved must be what was sent.
+      const broken = loneSurrogateAt(received);
+      if (broken) {
+        issues.push({ path: pathOf(part, broken), message: 'The text holds half of a character (a lone UTF-16 surrogate); send well-formed Unicode.' });
+        continue;
+      }
       const result = schema.safeParse(received);
       if (result.success) {
         parsed[part] = result.data;

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { CellTextSchema, DiagnosticCountsSchema, LIMITS, TimestampSchema, UserRefSchema } from './common.js';
+import { CellTextSchema, DiagnosticCountsSchema, LIMITS, TimestampSchema, UserRefSchema, isOneLine, oneLineMessage } from './common.js';
 
 export const CellKindSchema = z.enum(['circuit', 'note']);
 export type CellKind = z.infer<typeof CellKindSchema>;
@@ -19,7 +19,7 @@ export const CellTitleSchema = z
   .trim()
   .min(1, 'A title cannot be empty; send null to go back to "Circuit 2" or "Note 3".')
   .max(LIMITS.cellTitleLength, `A cell title has at most ${LIMITS.cellTitleLength} characters.`)
-  .regex(/^[^\n\r]*$/, 'A cell title is one line.');
+  .refine(isOneLine, oneLineMessage('A cell title'));
 
 /** A cell at its current revision. `diagnostics` is null for note cells. */
 export const CellSchema = z.object({

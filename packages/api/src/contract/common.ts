@@ -108,12 +108,22 @@ export function utf8Length(text: string): number {
 /** Marks a zod issue as "over a size limit", which the API answers with 413 `too_large`. */
 export const TOO_LARGE_PARAM = 'tooLarge';
 
-/** A notebook title: trimmed, 1 to 200 characters. */
+/** Control characters (C0, DEL, C1): none belongs in a one-line name. */
+const controlCharacter = /[\u0000-\u001F\u007F-\u009F]/;
+
+/** A one-line name (a title, a label) has no control characters: no NUL, ESC, CR or LF. */
+export const isOneLine = (text: string): boolean => !controlCharacter.test(text);
+
+/** The message for a name that fails `oneLine`. */
+export const oneLineMessage = (what: string) => `${what} is one line of plain text: no line breaks, tabs or other control characters.`;
+
+/** A notebook title: trimmed, 1 to 200 characters, one line. */
 export const TitleSchema = z
   .string()
   .trim()
   .min(1, 'A title cannot be empty.')
-  .max(LIMITS.titleLength, `A title has at most ${LIMITS.titleLength} characters.`);
+  .max(LIMITS.titleLength, `A title has at most ${LIMITS.titleLength} characters.`)
+  .refine(isOneLine, oneLineMessage('A title'));
 
 /**
  * A notebook's description: plain text, shown as written and never rendered as Markdown.

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { LIMITS, MarkdownSchema, TimestampSchema, UserRefSchema } from './common.js';
+import { LIMITS, MarkdownSchema, TimestampSchema, UserRefSchema, isOneLine, oneLineMessage } from './common.js';
 
 /** A comment's Markdown: trimmed, 1 to 10 000 characters. */
 export const CommentBodySchema = MarkdownSchema.min(1, 'A comment cannot be empty.');
@@ -16,7 +16,8 @@ export const PinCreateSchema = z.strictObject({
     .string()
     .trim()
     .min(1, 'Name the trace the pin is on.')
-    .max(LIMITS.traceLabelLength, `A trace label has at most ${LIMITS.traceLabelLength} characters.`),
+    .max(LIMITS.traceLabelLength, `A trace label has at most ${LIMITS.traceLabelLength} characters.`)
+    .refine(isOneLine, oneLineMessage('A trace label')),
   /** Hz; finite and above zero (a Bode plot's axis is logarithmic). */
   frequency: z.number({ error: 'A frequency is a finite number of Hz.' }).positive('A frequency must be above 0 Hz.'),
   body: CommentBodySchema,

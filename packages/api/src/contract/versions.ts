@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { DiagnosticCountsSchema, LIMITS, TimestampSchema, UserRefSchema } from './common.js';
+import { DiagnosticCountsSchema, LIMITS, TimestampSchema, UserRefSchema, isOneLine, oneLineMessage } from './common.js';
 import { CellKindSchema } from './cells.js';
 
 /** `POST /api/notebooks/:id/versions`: label a snapshot of every cell's current revision. */
@@ -8,7 +8,8 @@ export const VersionCreateSchema = z.strictObject({
     .string()
     .trim()
     .min(1, 'A version needs a label.')
-    .max(LIMITS.versionLabelLength, `A label has at most ${LIMITS.versionLabelLength} characters.`),
+    .max(LIMITS.versionLabelLength, `A label has at most ${LIMITS.versionLabelLength} characters.`)
+    .refine(isOneLine, oneLineMessage('A version label')),
 });
 export type VersionCreate = z.infer<typeof VersionCreateSchema>;
 
