@@ -22,7 +22,7 @@ describe('reading the curves without the plot', () => {
   it('steps along the sweep with the arrow keys and answers as it goes', async () => {
     render(<TraceData result={rc('sweep at 100, 1k, 10k')} />);
     await userEvent.click(screen.getByText(/Read the curves/));
-    const field = screen.getByLabelText('Value at a frequency');
+    const field = screen.getByLabelText(/^Value at a frequency/);
     await userEvent.click(field);
     await userEvent.keyboard('{ArrowUp}');
     expect((field as HTMLInputElement).value).toBe('100 Hz');

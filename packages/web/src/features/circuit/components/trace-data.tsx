@@ -63,7 +63,7 @@ function ValueAtFrequency({ result }: { result: Result }) {
   return (
     <div className="space-y-1">
       <label htmlFor={id} className="block text-sm font-medium">
-        Value at a frequency
+        Value at a frequency <span className="font-normal text-ink-soft">(↑ and ↓ step along the sweep)</span>
       </label>
       <input
         id={id}
@@ -75,7 +75,7 @@ function ValueAtFrequency({ result }: { result: Result }) {
             step(event.key === 'ArrowUp' ? 1 : -1);
           }
         }}
-        placeholder="e.g. 1.6k — ↑ and ↓ step along the sweep"
+        placeholder="e.g. 1.6k"
         autoComplete="off"
         aria-describedby={`${id}-value`}
         className="w-64 rounded-md border border-rule bg-panel px-2 py-1 font-mono text-sm"
