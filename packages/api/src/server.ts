@@ -5,13 +5,14 @@
 import { createApp } from './app.js';
 import { config, mailConfig } from './config.js';
 import { connect, disconnect } from './db/connection.js';
+import { createHttpServer } from './http-server.js';
 import { createNotifier } from './mail/notifier.js';
 
 const mail = mailConfig();
 const notifier = createNotifier({ smtp: mail, database: connect });
 const app = createApp({ webDist: config.production ? config.webDist : null, notifier, mailStandinUrl: mail.standinUrl });
 
-const server = app.listen(config.port, config.host, () => {
+const server = createHttpServer(app).listen(config.port, config.host, () => {
   console.log(`api listening on http://${config.host}:${config.port}`);
 });
 server.on('error', (error: NodeJS.ErrnoException) => {
