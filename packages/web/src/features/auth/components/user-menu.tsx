@@ -23,6 +23,7 @@ export function UserMenu({ me }: { me: Me }) {
         {me.siteRole === 'admin' ? <RoleBadge role="admin" /> : null}
       </span>
       <Button
+        className="whitespace-nowrap"
         variant="quiet"
         size="sm"
         disabled={signOut.isPending}
