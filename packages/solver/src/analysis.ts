@@ -11,7 +11,7 @@ import type { LinearForm, MnaSystem, SparseVector } from './mna.js';
 import { createLinearSolver } from './linear-solver.js';
 import type { LinearSolver } from './numeric.js';
 import { DEFAULT_MAX_POINTS, defaultGrid, gridFromSpec, scanFrequencies } from './sweep.js';
-import { formatFrequencyList } from './format.js';
+import { formatFrequencyList } from './units.js';
 
 const TWO_PI = 2 * Math.PI;
 const DEG = 180 / Math.PI;

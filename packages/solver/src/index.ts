@@ -18,4 +18,4 @@ export { analyze } from './analyze.js';
 export { HAZARDOUS_VOLTAGE } from './cautions.js';
 export { FIRST_EXAMPLE } from './examples.js';
 export { toCsv, toJson } from './output.js';
-export { formatSi, parseSi } from './units.js';
+export { formatReading, formatSi, parseSi } from './units.js';

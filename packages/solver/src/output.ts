@@ -5,7 +5,7 @@
  */
 import type { Readout, RequirementResult, Result } from './result.js';
 import { READOUT_NAMES, STATUS_WORDS } from './result.js';
-import { formatNumber, formatQuantity } from './format.js';
+import { formatReading, formatSi } from './units.js';
 
 export interface OutputOptions {
   /** Only this trace (by label) and its readouts. */
@@ -69,14 +69,9 @@ function csvField(s: string): string {
   return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 
-/** A value in its unit: frequencies, times and impedances with SI prefixes. */
-function valueText(value: number, unit: string): string {
-  return unit === 'Hz' || unit === 's' || unit === 'Ω' ? formatQuantity(value, unit) : `${formatNumber(value)}${unit ? ' ' + unit : ''}`;
-}
-
 function readoutText(r: Readout): string {
-  const value = valueText(r.value, r.unit);
-  return r.at !== null ? `${value} at ${formatQuantity(r.at, 'Hz')}` : value;
+  const value = formatReading(r.value, r.unit);
+  return r.at !== null ? `${value} at ${formatSi(r.at, 'Hz')}` : value;
 }
 
 /** "pass  line 17: require … (measured 1.0002 kHz)", or why it was not checked; the status reads as on every screen. */
@@ -84,8 +79,8 @@ export function requirementText(q: RequirementResult): string {
   const status = STATUS_WORDS[q.status].padEnd(4);
   let measured = q.reason !== null ? `  (not checked: ${q.reason})` : '';
   if (q.status !== 'not-applicable') {
-    const v = valueText(q.measured, q.unit);
-    measured = `  (${q.worstAt !== null ? `worst ${v} at ${formatQuantity(q.worstAt, 'Hz')}` : `measured ${v}`})`;
+    const v = formatReading(q.measured, q.unit);
+    measured = `  (${q.worstAt !== null ? `worst ${v} at ${formatSi(q.worstAt, 'Hz')}` : `measured ${v}`})`;
   }
   return `${status}  line ${q.line}: ${q.text}${measured}`;
 }
@@ -96,7 +91,7 @@ export function toText(result: Result, options: OutputOptions & { readouts?: boo
   const lines: string[] = [];
   if (options.readouts !== false) {
     const f = r.frequencies;
-    if (f.length > 0) lines.push(`sweep ${formatQuantity(f[0], 'Hz')} .. ${formatQuantity(f[f.length - 1], 'Hz')}, ${f.length} points`);
+    if (f.length > 0) lines.push(`sweep ${formatSi(f[0], 'Hz')} .. ${formatSi(f[f.length - 1], 'Hz')}, ${f.length} points`);
     for (const t of r.traces) {
       lines.push(`${t.label}  (${t.kind}, ${t.unit})`);
       const rs = r.readouts.filter((x) => x.trace === t.label);

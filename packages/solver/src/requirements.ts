@@ -15,7 +15,7 @@ import type { Shape, TraceReadouts } from './readouts.js';
 import { TraceView } from './trace-view.js';
 import { extremeOver, measureAt } from './extremes.js';
 import type { Extreme } from './extremes.js';
-import { formatQuantity } from './format.js';
+import { formatSi } from './units.js';
 
 /** `=` without a written tolerance: equal within this relative amount. */
 const DEFAULT_RELATIVE_TOLERANCE = 1e-6;
@@ -54,7 +54,7 @@ export function checkRequirements(
 function infiniteReason(q: RequirementResult): string {
   const value = q.measured > 0 ? '+∞' : '−∞';
   if (q.measure === 'gain-margin') return `the gain margin of ${q.trace} is ${value}: its phase never reaches −180° in the sweep`;
-  const where = q.worstAt !== null ? ` at ${formatQuantity(q.worstAt, 'Hz')}` : '';
+  const where = q.worstAt !== null ? ` at ${formatSi(q.worstAt, 'Hz')}` : '';
   if (q.measured < 0 && q.measure === 'gain') return `the worst gain is −∞ dB${where}: ${q.trace} is exactly 0 there (an exact null)`;
   return `the measured ${q.measure} is ${value}${where}`;
 }
@@ -178,7 +178,7 @@ function pointwise(req: RequirementSpec, band: RequirementResult['band'], analys
   }
   if (!worst) return { notApplicable: 'the range of this requirement is empty' };
   if (Number.isNaN(worst.value)) {
-    return { notApplicable: `${label} has no ${measure} at ${formatQuantity(worst.at, 'Hz')}: the network is singular there` };
+    return { notApplicable: `${label} has no ${measure} at ${formatSi(worst.at, 'Hz')}: the network is singular there` };
   }
   return { value: worst.value, worstAt: worst.at };
 }

@@ -8,7 +8,7 @@
 import type { Circuit } from './circuit.js';
 import type { Diagnostic } from './result.js';
 import type { AcAnalysis, TraceData } from './analysis.js';
-import { formatFrequencyList, formatNumber } from './format.js';
+import { formatFrequencyList, formatSi } from './units.js';
 import { diagnostic } from './diagnostic.js';
 
 /** Diagnostics for every solved trace of the analysis. */
@@ -86,7 +86,7 @@ function loopSign(trace: TraceData): Finding | null {
     if (!(m > 1 && (r.re[k] as number) < 0)) return null;
     return {
       severity: 'warning',
-      message: `${r.label} is negative at low frequency (phase ${formatNumber(r.phaseDeg[k] as number, 4)}°, |T| > 1): as written the loop is positive feedback there, and its margins mean nothing`,
+      message: `${r.label} is negative at low frequency (phase ${formatSi(r.phaseDeg[k] as number, '°')}, |T| > 1): as written the loop is positive feedback there, and its margins mean nothing`,
       hint: 'a negative-feedback loop gain T = A·β starts near 0°: check the sign (reverse the difference, or the points the loop is read between)',
       code: 'loop-sign',
     };

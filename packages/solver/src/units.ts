@@ -211,3 +211,29 @@ function plainDigits(value: number, digits: number): string {
   }
   return s;
 }
+
+/** Levels and angles to a hundredth: finer digits are below anything a bench can see. */
+function hundredths(value: number, unit: string): string {
+  if (!Number.isFinite(value)) return formatSi(value, unit);
+  const rounded = Math.round(value * 100) / 100;
+  return formatSi(Object.is(rounded, -0) ? 0 : rounded, unit, 6);
+}
+
+/**
+ * A readout's or requirement's value as every screen writes it: `1 kHz`, `-3.01 dB`,
+ * `-40.04 dB/decade`; levels and angles to a hundredth, everything else by `formatSi`.
+ */
+export function formatReading(value: number, unit: string): string {
+  if (unit === 'dB' || unit === 'deg' || unit === '°') return hundredths(value, unit);
+  if (unit.startsWith('dB/')) return `${hundredths(value, 'dB')}${unit.slice(2)}`;
+  return formatSi(value, unit);
+}
+
+/** "0 Hz, 1 kHz and 3 more" — a short list of frequencies for a message. */
+export function formatFrequencyList(freqs: readonly number[], shown = 5): string {
+  const parts = freqs.slice(0, shown).map((f) => formatSi(f, 'Hz'));
+  const rest = freqs.length - parts.length;
+  if (rest > 0) return `${parts.join(', ')} and ${rest} more`;
+  if (parts.length <= 1) return parts.join('');
+  return `${parts.slice(0, -1).join(', ')} and ${parts[parts.length - 1]}`;
+}

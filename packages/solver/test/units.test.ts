@@ -3,7 +3,7 @@
  * table of the SI Brochure (9th ed.) and the R/k/M letter code of IEC 60062.
  */
 import { describe, expect, it } from 'vitest';
-import { formatSi, parseSi, parseSiWithUnit } from '../src/units.js';
+import { formatFrequencyList, formatReading, formatSi, parseSi, parseSiWithUnit } from '../src/units.js';
 
 describe('parseSi', () => {
   it.each([
@@ -82,6 +82,23 @@ describe('formatSi', () => {
     [Number.NEGATIVE_INFINITY, 'dB', undefined, '-∞ dB'],
   ])('%d %s (%s digits) is %s', (value, unit, digits, text) => {
     expect(formatSi(value, unit, digits)).toBe(text);
+  });
+});
+
+describe('formatReading and formatFrequencyList', () => {
+  it('write levels and angles to a hundredth and everything else as formatSi does', () => {
+    expect(formatReading(-0.000086, 'dB')).toBe('0 dB');
+    expect(formatReading(-3.0103, 'dB')).toBe('-3.01 dB');
+    expect(formatReading(84.3712, 'deg')).toBe('84.37°');
+    expect(formatReading(-40.0423, 'dB/decade')).toBe('-40.04 dB/decade');
+    expect(formatReading(1000.338, 'Hz')).toBe(formatSi(1000.338, 'Hz'));
+    expect(formatReading(Number.NEGATIVE_INFINITY, 'dB')).toBe('-∞ dB');
+  });
+
+  it('list at most five frequencies and count the rest', () => {
+    expect(formatFrequencyList([0])).toBe('0 Hz');
+    expect(formatFrequencyList([0, 1000])).toBe('0 Hz and 1 kHz');
+    expect(formatFrequencyList([1, 2, 3, 4, 5, 6, 7])).toBe('1 Hz, 2 Hz, 3 Hz, 4 Hz, 5 Hz and 2 more');
   });
 });
 
