@@ -33,6 +33,7 @@ describe('security headers', () => {
     expect(response.headers.get('x-frame-options')).toBe('DENY');
     expect(response.headers.get('x-content-type-options')).toBe('nosniff');
     expect(response.headers.get('referrer-policy')).toBe('strict-origin-when-cross-origin');
+    expect(response.headers.get('strict-transport-security')).toBe('max-age=31536000');
   });
 
   it('come with the API’s answers and the sign-in pages too', async () => {

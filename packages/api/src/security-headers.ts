@@ -32,5 +32,8 @@ export function securityHeaders(): RequestHandler {
     referrerPolicy: { policy: 'strict-origin-when-cross-origin' },
     // The same as frame-ancestors 'none', for browsers that read only the older header.
     frameguard: { action: 'deny' },
+    // HTTPS only, once a browser has reached the app over HTTPS (ignored over plain HTTP); the
+    // app's host alone, as other hosts under its domain are not the app's to decide for.
+    strictTransportSecurity: { maxAge: 365 * 24 * 3600, includeSubDomains: false },
   });
 }
