@@ -11,6 +11,7 @@ import type { SolveOptions } from './analysis.js';
 import { computeReadouts } from './readouts.js';
 import { checkRequirements } from './requirements.js';
 import { traceDiagnostics } from './trace-checks.js';
+import { internalError } from './diagnostic.js';
 
 export interface AnalyzeOptions {
   /** The most sweep points a cell may ask for (and the default sweep may use). */
@@ -64,17 +65,4 @@ export function analyzeCircuit(circuit: Circuit, options: AnalyzeOptions & Solve
 
 function emptyResult(diagnostics: Diagnostic[]): Result {
   return { diagnostics, frequencies: new Float64Array(0), traces: [], readouts: [], requirements: [], steps: [], poles: [], zeros: [], envelope: [] };
-}
-
-function internalError(error: unknown): Diagnostic {
-  const detail = error instanceof Error ? error.message : String(error);
-  return {
-    severity: 'error',
-    line: 1,
-    column: 1,
-    endColumn: 1,
-    message: `internal error in the solver: ${detail}`,
-    hint: 'this is a bug in Rolloff, not in the cell; please report it with the cell text',
-    code: 'internal',
-  };
 }

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { analyze, analyzeCircuit } from '../src/analyze.js';
 import type { Circuit } from '../src/circuit.js';
+import { INTERNAL_ERROR } from '../src/diagnostic.js';
 import { net } from './helpers/net.js';
 
 const CELL = `let R = 10k
@@ -33,7 +34,7 @@ function wellFormed(r: ReturnType<typeof analyze>): void {
     expect(typeof d.message).toBe('string');
   }
   for (const t of r.traces) expect(t.re.length).toBe(r.frequencies.length);
-  expect(r.diagnostics.some((d) => d.code === 'internal')).toBe(false);
+  expect(r.diagnostics.some((d) => d.code === INTERNAL_ERROR)).toBe(false);
 }
 
 describe('robustness', { timeout: 30_000 }, () => {
@@ -80,7 +81,7 @@ describe('robustness', { timeout: 30_000 }, () => {
     expect(analyzeCircuit(worse).diagnostics.some((d) => d.severity === 'error')).toBe(true);
     const broken = { nodeNames: ['gnd'] } as unknown as Circuit;
     const r3 = analyzeCircuit(broken);
-    expect(r3.diagnostics.some((d) => d.code === 'internal')).toBe(true);
+    expect(r3.diagnostics.some((d) => d.code === INTERNAL_ERROR)).toBe(true);
   });
 
   it('extreme element values (1e-15 F beside 1e12 Ω) still give finite, exact answers', () => {
