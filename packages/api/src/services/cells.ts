@@ -13,13 +13,16 @@ import { Cell } from '../db/entities/cell.js';
 import { CellRevision } from '../db/entities/cell-revision.js';
 import { Notebook } from '../db/entities/notebook.js';
 import { ApiError, notFound, tooLarge, validation } from '../errors.js';
+import { can } from '../policy.js';
 import type { Actor } from '../policy.js';
 import { presentCell, presentCurrentRevision, presentRevision, presentRevisionSummary } from '../presenters/cell.js';
+import { accessOf } from '../presenters/notebook.js';
 import { presentDiagnostics } from '../presenters/common.js';
 import { checkCell } from '../cell-check.js';
 import { inTransaction, managerOf, toInt } from './db.js';
 import type { Database } from './db.js';
 import { loadNotebookFor } from './access.js';
+import type { NotebookRow } from './access.js';
 
 /** A cell joined with its current revision and that revision's author. */
 export interface CellRow {
@@ -142,6 +145,16 @@ async function mustFindCell(manager: EntityManager, notebookId: string, cellId: 
   const row = await cellRow(manager, notebookId, cellId);
   if (!row) throw notFound('The cell');
   return row;
+}
+
+/**
+ * The cell whose history `actor` reads: a deleted cell's history only for those who may
+ * edit, as only they see deleted cells in the notebook; to anyone else it is not there.
+ */
+async function cellWithHistory(manager: EntityManager, actor: Actor, notebook: NotebookRow, cellId: number): Promise<CellRow> {
+  const cell = await mustFindCell(manager, notebook.id, cellId);
+  if (cell.deletedAt !== null && !can(actor, 'edit', accessOf(notebook))) throw notFound('The cell');
+  return cell;
 }
 
 /** `POST …/cells`: a new cell at `position` (default: the end), shifting the cells after it. */
@@ -318,8 +331,8 @@ function revisionCursor(cursor: string | undefined): number | null {
 export async function listRevisions(db: Database, actor: Actor, notebookId: string, cellId: number, page: { cursor?: string; limit: number }): Promise<CellRevisionList> {
   const before = revisionCursor(page.cursor);
   const manager = managerOf(db);
-  await loadNotebookFor(manager, actor, notebookId, 'read');
-  await mustFindCell(manager, notebookId, cellId);
+  const notebook = await loadNotebookFor(manager, actor, notebookId, 'read');
+  await cellWithHistory(manager, actor, notebook, cellId);
   const rows: RevisionRow[] = await manager.query(
     `SELECT ${revisionColumns}, OCTET_LENGTH(r.text) AS size
        FROM cell_revisions r LEFT JOIN users u ON u.id = r.authorId
@@ -335,8 +348,8 @@ export async function listRevisions(db: Database, actor: Actor, notebookId: stri
 /** `GET …/cells/:cellId/revisions/:number`: one revision with its text. */
 export async function getRevision(db: Database, actor: Actor, notebookId: string, cellId: number, number: number): Promise<CellRevisionBody> {
   const manager = managerOf(db);
-  await loadNotebookFor(manager, actor, notebookId, 'read');
-  await mustFindCell(manager, notebookId, cellId);
+  const notebook = await loadNotebookFor(manager, actor, notebookId, 'read');
+  await cellWithHistory(manager, actor, notebook, cellId);
   const rows: (RevisionRow & { text: string })[] = await manager.query(
     `SELECT ${revisionColumns}, r.text FROM cell_revisions r LEFT JOIN users u ON u.id = r.authorId WHERE r.cellId = ? AND r.number = ?`,
     [cellId, number],

@@ -190,6 +190,29 @@ describe('/api/notebooks/:id/cells', () => {
     expect((full.body as { message: string }).message).toMatch(/500 cells/);
   });
 
+  it('shows a deleted cell\'s history only to those who may edit, as the notebook shows the cell', async () => {
+    const viewer = await buildUser();
+    const reviewer = await buildUser();
+    const notebook = await buildNotebook({ cells: [{ kind: 'note', text: 'kept' }, { kind: 'note', text: 'gone' }], members: [[viewer, 'viewer'], [reviewer, 'reviewer']] });
+    const owner = await signedIn(server.url, notebook.ownerUser.login);
+    const gone = notebook.cells[1]!.id;
+    const history = `/api/notebooks/${notebook.id}/cells/${gone}/revisions`;
+    expect((await owner.delete(`/api/notebooks/${notebook.id}/cells/${gone}`)).status).toBe(200);
+
+    expect((await owner.get(history)).status).toBe(200);
+    expect((await owner.get(`${history}/1`)).status).toBe(200);
+    for (const login of [viewer.login, reviewer.login]) {
+      const reader = await signedIn(server.url, login);
+      for (const path of [history, `${history}/1`]) {
+        const reply = await reader.get(path);
+        expect(reply.status, `${login} ${path}`).toBe(404);
+        expect(reply.text).not.toContain('gone');
+      }
+      // The live cell's history stays readable.
+      expect((await reader.get(`/api/notebooks/${notebook.id}/cells/${notebook.cells[0]!.id}/revisions/1`)).status).toBe(200);
+    }
+  });
+
   it('answers 404 for a cell of another notebook', async () => {
     const { client, base } = await ownNotebook();
     const elsewhere = await buildNotebook();
