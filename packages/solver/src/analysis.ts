@@ -12,6 +12,7 @@ import { createLinearSolver } from './linear-solver.js';
 import type { LinearSolver } from './numeric.js';
 import { DEFAULT_MAX_POINTS, defaultGrid, gridFromSpec, scanFrequencies } from './sweep.js';
 import { formatFrequencyList } from './units.js';
+import { internalError } from './diagnostic.js';
 
 const TWO_PI = 2 * Math.PI;
 const DEG = 180 / Math.PI;
@@ -234,30 +235,18 @@ export function solveCircuit(
   if (needsDrive && system.driveRhs) rhs.push(system.driveRhs);
   const drive = rhs.length > 0 ? 0 : -1;
   const plans: TracePlan[] = [];
-  const skipped = new Set<string>();
+  // Step and noise traces are not computed; the elaborator has said so on their lines.
   circuit.traces.forEach((spec, specIndex) => {
-    if (!isAc(spec)) {
-      skipped.add(spec.kind);
-      return;
-    }
+    if (!isAc(spec)) return;
     const reader = makeReader(spec.probe, system, rhs, impedanceRhs, drive, circuit);
     if (typeof reader === 'string') {
-      diagnostics.push({ severity: 'error', ...rangeOf(spec), message: reader, code: 'invalid-trace' });
+      // The elaborator checked the trace's nodes, parts and drive: this is a broken invariant.
+      diagnostics.push(internalError(reader, spec.range));
       plans.push({ spec, specIndex, reader: null });
       return;
     }
     plans.push({ spec, specIndex, reader });
   });
-  for (const kind of skipped) {
-    const spec = circuit.traces.find((t) => t.kind === kind)!;
-    diagnostics.push({
-      severity: 'warning',
-      ...rangeOf(spec),
-      message: `${kind === 'step' ? 'step responses' : 'noise traces'} are not computed yet; this trace is left out`,
-      code: 'not-available',
-    });
-  }
-
   const solver = createLinearSolver(system.n, system.rows, system.cols, options.linearSolver ?? 'auto');
   const evaluator = new Evaluator(system, solver, plans, rhs);
   const maxPoints = options.maxPoints ?? DEFAULT_MAX_POINTS;
@@ -266,7 +255,8 @@ export function solveCircuit(
   if (circuit.sweep) {
     const grid = gridFromSpec(circuit.sweep, maxPoints);
     if (grid.error !== null) {
-      diagnostics.push({ severity: 'error', line: 1, column: 1, endColumn: 1, message: grid.error, code: 'invalid-sweep' });
+      // The elaborator checked the sweep against the same limit: this is a broken invariant.
+      diagnostics.push(internalError(grid.error));
       return { analysis: null, diagnostics };
     }
     frequencies = grid.frequencies;
@@ -331,10 +321,6 @@ export function solveCircuit(
 
 function isAc(spec: TraceSpec): boolean {
   return spec.kind !== 'noise' && spec.kind !== 'step';
-}
-
-function rangeOf(spec: TraceSpec): { line: number; column: number; endColumn: number } {
-  return { line: spec.range.line, column: spec.range.column, endColumn: spec.range.endColumn };
 }
 
 function makeReader(

@@ -25,12 +25,7 @@ export function analyze(text: string, options: AnalyzeOptions = {}): Result {
     const diagnostics = [...compiled.diagnostics];
     if (!compiled.circuit || diagnostics.some((d) => d.severity === 'error')) return emptyResult(diagnostics);
     const solved = analyzeCircuit(compiled.circuit, options);
-    // The elaborator already says which lines are not computed yet; keep one word per line.
-    const covered = new Set(diagnostics.filter((d) => d.code === 'not-available').map((d) => d.line));
-    const own = solved.diagnostics.filter(
-      (d) => !(d.severity === 'warning' && (d.code === 'not-available' || d.code === 'requirement-not-checked') && covered.has(d.line)),
-    );
-    solved.diagnostics = [...diagnostics, ...own].sort((a, b) => a.line - b.line || a.column - b.column);
+    solved.diagnostics = [...diagnostics, ...solved.diagnostics].sort((a, b) => a.line - b.line || a.column - b.column);
     return solved;
   } catch (error) {
     return emptyResult([internalError(error)]);

@@ -41,7 +41,9 @@ export function checkRequirements(
     const r = checkOne(circuit, req, analysis, readouts);
     results.push(r.result);
     const where = { line: req.range.line, column: req.range.column, endColumn: req.range.endColumn };
-    if (r.warning) diagnostics.push({ severity: 'warning', ...where, message: r.warning, code: 'requirement-not-checked' });
+    // A requirement on a step or noise trace is not evaluated yet; the elaborator says so on its line.
+    const said = circuit.traces[req.trace]?.kind === 'step' || circuit.traces[req.trace]?.kind === 'noise';
+    if (r.warning && !said) diagnostics.push({ severity: 'warning', ...where, message: r.warning, code: 'requirement-not-checked' });
     const m = r.result.measured;
     if (r.result.status !== 'not-applicable' && !Number.isFinite(m)) {
       diagnostics.push({ severity: 'info', ...where, message: infiniteReason(r.result), code: 'requirement-infinite' });
