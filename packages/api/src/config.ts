@@ -61,6 +61,9 @@ export interface OAuthConfig {
   userEmailURL: string;
 }
 
+/** Where GitHub (or the stand-in) sends the browser back to after sign-in, on the API's address. */
+export const OAUTH_CALLBACK_PATH = '/auth/github/callback';
+
 /** The client the stand-in knows when nothing else is configured. */
 export const standinClient = { id: 'rolloff-local', secret: 'rolloff-local-secret' } as const;
 

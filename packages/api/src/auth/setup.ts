@@ -10,6 +10,7 @@ import type { PassportStatic } from 'passport';
 import { Strategy as GitHubStrategy } from 'passport-github2';
 import type { StrategyOptions } from 'passport-github2';
 import type { DataSource } from 'typeorm';
+import { OAUTH_CALLBACK_PATH } from '../config.js';
 import type { AuthConfig } from '../config.js';
 import { SESSION_COOKIE } from '../contract/common.js';
 import { activeUser, recordSignIn } from '../services/users.js';
@@ -57,7 +58,7 @@ export function createAuth(config: AuthConfig, database: () => Promise<DataSourc
       clientID: config.oauth.clientId,
       clientSecret: config.oauth.clientSecret,
       // Relative unless PUBLIC_URL is set: passport resolves it against the request's host.
-      callbackURL: `${config.publicUrl ?? ''}/auth/github/callback`,
+      callbackURL: `${config.publicUrl ?? ''}${OAUTH_CALLBACK_PATH}`,
       authorizationURL: config.oauth.authorizationURL,
       tokenURL: config.oauth.tokenURL,
       userProfileURL: config.oauth.userProfileURL,

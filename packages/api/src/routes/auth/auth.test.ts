@@ -1,9 +1,11 @@
 import { describe, expect, it } from 'vitest';
+import { standinClient } from '../../config.js';
 import { CSRF_COOKIE, SESSION_COOKIE } from '../../contract/common.js';
 import { MeSchema } from '../../contract/users.js';
 import { connect } from '../../db/connection.js';
 import { Session } from '../../db/entities/session.js';
 import { User } from '../../db/entities/user.js';
+import { createOAuthStandin } from '../../standins/oauth/standin.js';
 import { Client, signedIn } from '../../../test/client.js';
 import { buildUser, uniqueLogin } from '../../../test/factories.js';
 import { useTestServer } from '../../../test/use-test-server.js';
@@ -107,6 +109,29 @@ describe('sign-in through the OAuth stand-in', () => {
 
     const offsite = await client.fetch(`/auth/github?login=${login}&returnTo=${encodeURIComponent('//evil.example.com/')}`);
     expect(offsite.status).toBe(400);
+  });
+
+  it('has the stand-in send codes only to the callback registered for the client, as GitHub does', async () => {
+    const authorize = (standinUrl: string, redirectUri: string) =>
+      fetch(`${standinUrl}/login/oauth/authorize?${new URLSearchParams({ client_id: standinClient.id, redirect_uri: redirectUri, state: 's', login: 'someone' })}`, { redirect: 'manual' });
+    // Unregistered (the local default): the API's callback path on loopback only.
+    for (const elsewhere of ['http://attacker.example/auth/github/callback', `${server.url}/somewhere/else`]) {
+      const refused = await authorize(server.standin.url, elsewhere);
+      expect(refused.status, elsewhere).toBe(400);
+      expect(await refused.text()).toContain('redirect_uri is not the callback URL registered');
+    }
+    expect((await authorize(server.standin.url, `${server.url}/auth/github/callback`)).status).toBe(302);
+
+    const registered = await createOAuthStandin({ clients: [{ ...standinClient, callbackUrl: 'https://rolloff.example/auth/github/callback' }] });
+    try {
+      expect((await authorize(registered.url, 'https://rolloff.example/auth/github/callback')).status).toBe(302);
+      expect((await authorize(registered.url, 'https://rolloff.example/auth/github/callback/more')).status).toBe(302);
+      for (const elsewhere of ['https://rolloff.example:8443/auth/github/callback', 'http://rolloff.example/auth/github/callback', 'https://rolloff.example/auth/other']) {
+        expect((await authorize(registered.url, elsewhere)).status, elsewhere).toBe(400);
+      }
+    } finally {
+      await registered.close();
+    }
   });
 
   it('refuses a callback whose state it did not issue', async () => {

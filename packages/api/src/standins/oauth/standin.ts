@@ -9,7 +9,7 @@ import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import express from 'express';
 import type { Express, Request, Response } from 'express';
-import { standinClient } from '../../config.js';
+import { OAUTH_CALLBACK_PATH, standinClient } from '../../config.js';
 import { IdentityDirectory, identityProblem } from './identities.js';
 import type { Identity } from './identities.js';
 import { authorizePage } from './page.js';
@@ -18,6 +18,23 @@ import type { AuthorizeRequest } from './page.js';
 export interface OAuthClient {
   id: string;
   secret: string;
+  /**
+   * The callback URL registered for the client. A redirect_uri must be on its scheme, host and
+   * port, at its path or below, as GitHub checks. Unregistered (the local default, whose API
+   * address the stand-in does not know), a redirect_uri must be the API's callback path on a
+   * loopback address: sign-in codes never go to another machine.
+   */
+  callbackUrl?: string;
+}
+
+const loopbackHosts = new Set(['127.0.0.1', 'localhost', '[::1]']);
+
+/** Whether `client` may be sent back to `target` with a code. */
+function callbackAllows(client: OAuthClient, target: URL): boolean {
+  if (!client.callbackUrl) return loopbackHosts.has(target.hostname) && target.pathname === OAUTH_CALLBACK_PATH;
+  const registered = new URL(client.callbackUrl);
+  const under = registered.pathname.endsWith('/') ? registered.pathname : `${registered.pathname}/`;
+  return target.origin === registered.origin && (target.pathname === registered.pathname || target.pathname.startsWith(under));
 }
 
 export interface OAuthStandinOptions {
@@ -99,10 +116,12 @@ export function oauthStandinApp(clients: OAuthClient[], identities: IdentityDire
 
   /** A problem with the request itself: shown on the page, never redirected (as GitHub does). */
   function requestProblem(request: AuthorizeRequest): string | null {
-    if (!clientOf(request.clientId)) return `Unknown client_id "${request.clientId}".`;
+    const client = clientOf(request.clientId);
+    if (!client) return `Unknown client_id "${request.clientId}".`;
     try {
       const target = new URL(request.redirectUri);
       if (target.protocol !== 'http:' && target.protocol !== 'https:') return 'redirect_uri must be an http(s) address.';
+      if (!callbackAllows(client, target)) return 'redirect_uri is not the callback URL registered for this client.';
     } catch {
       return 'redirect_uri is missing or not an address.';
     }
