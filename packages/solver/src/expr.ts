@@ -13,7 +13,7 @@ import type { Unit } from './vocabulary.js';
 import { diagnostic } from './diagnostic.js';
 import { namesIn, parseExpression } from './expr-parser.js';
 import type { ExprNode } from './expr-parser.js';
-import { CONSTANTS } from './vocabulary.js';
+import { CONSTANTS, isConstantName } from './vocabulary.js';
 import type { FunctionName } from './vocabulary.js';
 
 /** A value's unit: known, none (a plain number), or a product the language does not track. */
@@ -64,7 +64,7 @@ function evaluateUnsafe(tokens: readonly Token[], range: SourceRange, resolve: R
   const known = new Map<ExprNode, Quantity>();
   const unresolved: Diagnostic[] = [];
   for (const n of namesIn(parsed.tree)) {
-    const found = Object.hasOwn(CONSTANTS, n.name) ? { value: CONSTANTS[n.name], unit: null } : resolve(n.name, n.range);
+    const found = isConstantName(n.name) ? { value: CONSTANTS[n.name], unit: null } : resolve(n.name, n.range);
     if ('code' in found) unresolved.push(found);
     else known.set(n, { ...found });
   }

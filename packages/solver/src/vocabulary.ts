@@ -185,6 +185,11 @@ export function isFunctionName(word: string): word is FunctionName {
 /** Constants of value expressions. */
 export const CONSTANTS: Readonly<Record<string, number>> = { pi: Math.PI, e: Math.E };
 
+/** Own names only: `constructor` and `toString` are ordinary names, not constants. */
+export function isConstantName(word: string): boolean {
+  return Object.prototype.hasOwnProperty.call(CONSTANTS, word);
+}
+
 /** The ground node's one name. */
 export const GROUND = 'gnd';
 

@@ -7,7 +7,7 @@ import type { Quantity } from '../expr.js';
 import { diagnostic, replaceWith } from '../diagnostic.js';
 import { suggestionHint } from '../suggest.js';
 import { formatSi } from '../units.js';
-import { CONSTANTS, GROUND, isFunctionName } from '../vocabulary.js';
+import { CONSTANTS, GROUND, isConstantName, isFunctionName } from '../vocabulary.js';
 import type { Unit } from '../vocabulary.js';
 import { CASCADE, designatorOf } from './context.js';
 import type { Elaboration, Scope } from './context.js';
@@ -92,8 +92,8 @@ export function checkNamespace(cx: Elaboration, scope: Scope, body: Statement[])
 /** True (with an error) when a parameter would hide a constant, a function or ground. */
 function reservedName(cx: Elaboration, name: Ident): boolean {
   const n = name.name;
-  if (CONSTANTS[n] !== undefined || isFunctionName(n) || n === GROUND) {
-    const what = CONSTANTS[n] !== undefined ? 'a built-in constant' : isFunctionName(n) ? 'a built-in function' : 'the ground node';
+  if (isConstantName(n) || isFunctionName(n) || n === GROUND) {
+    const what = isConstantName(n) ? 'a built-in constant' : isFunctionName(n) ? 'a built-in function' : 'the ground node';
     cx.error(name.range, 'reserved-name', `${n} is ${what}; a parameter needs another name`, 'choose another name');
     return true;
   }
@@ -104,7 +104,7 @@ function reservedName(cx: Elaboration, name: Ident): boolean {
 export function letStatement(cx: Elaboration, scope: Scope, st: LetStatement): void {
   const name = st.name.name;
   if (scope.params.has(name) || scope.lets.get(name) !== st.range.line) return;
-  if (CONSTANTS[name] !== undefined || isFunctionName(name) || name === GROUND || scope.designators.has(name)) return;
+  if (isConstantName(name) || isFunctionName(name) || name === GROUND || scope.designators.has(name)) return;
   if (scope.block?.params.some((p) => p.name.name === name)) return;
   if (st.value === null) return;
   const q = evaluate(cx, scope, st.value, st.range.line, name);
@@ -161,8 +161,7 @@ export function evaluate(cx: Elaboration, scope: Scope, v: Value, line: number, 
     case 'number':
       return Number.isFinite(v.value) && v.bad !== true ? { value: v.value, unit: v.unit } : null;
     case 'name': {
-      const c = CONSTANTS[v.name];
-      if (c !== undefined) return { value: c, unit: null };
+      if (isConstantName(v.name)) return { value: CONSTANTS[v.name], unit: null };
       const r = resolve(cx, scope, v.name, v.range, line, defining);
       if ('code' in r) {
         cx.diagnostics.push(r);
