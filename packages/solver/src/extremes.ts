@@ -8,7 +8,7 @@
  */
 import type { TraceView } from './trace-view.js';
 import { solveBetween } from './trace-view.js';
-import { groupDelayOf, logSlopeOf } from './analysis.js';
+import { groupDelayOf, logSlopeOf } from './trace-values.js';
 import { brentMinimum } from './roots.js';
 
 export type PointMeasure = 'gain' | 'magnitude' | 'phase' | 'delay';

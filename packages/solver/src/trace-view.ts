@@ -4,7 +4,7 @@
  * crossings. Readouts, requirements and the extreme search share it.
  */
 import type { AcAnalysis, PointValues, TraceData } from './analysis.js';
-import { logSlopeOf, phaseNear } from './analysis.js';
+import { logSlopeOf, phaseNear } from './trace-values.js';
 import { brent } from './roots.js';
 
 /** Root tolerance in ln f: 1e-13 relative in frequency. */
