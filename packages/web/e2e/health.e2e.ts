@@ -29,7 +29,7 @@ describe('the home page served by the API', () => {
     });
     await page.goto(baseUrl);
     await page.getByTestId('health').and(page.locator('[data-state="ok"]')).waitFor({ timeout: 15_000 });
-    expect(await page.title()).toBe('Rolloff');
+    expect(await page.title()).toBe('Filter design notebooks · Rolloff');
     expect(await page.getByRole('heading', { level: 1 }).textContent()).toContain('Filter design notebooks');
     // Fonts are shipped with the app, and nothing is fetched from another host.
     const fonts = await page.evaluate(() => document.fonts.check('16px "Fira Sans"'));
