@@ -6,7 +6,7 @@
  * other x values (an earlier revision swept differently) are left out too.
  */
 import type { Layout, ScatterData } from 'plotly.js-basic-dist-min';
-import { fromPlotText } from './result-figures';
+import { fromPlotText } from './plot-text';
 import type { Figure } from './result-figures';
 
 type AxisKey = 'xaxis' | 'yaxis' | 'yaxis2';

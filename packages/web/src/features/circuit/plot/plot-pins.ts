@@ -7,6 +7,7 @@
 import { formatSi } from '@rolloff/solver';
 import type { NumberArray } from '@rolloff/solver';
 import type { Annotations, ScatterData } from 'plotly.js-basic-dist-min';
+import { plotText } from './plot-text';
 import { valueAtFrequency } from './trace-at';
 
 /** A pin as a plot draws it. */
@@ -41,10 +42,6 @@ export interface PinnableTrace {
   values: NumberArray;
 }
 
-function escapeHover(text: string): string {
-  return text.replace(/[<>&]/g, (c) => ({ '<': '&lt;', '>': '&gt;', '&': '&amp;' })[c] ?? c);
-}
-
 /**
  * One marker per pin whose trace is drawn, on the trace's line at the pin's frequency, with
  * its label above it; a resolved pin is drawn hollow. Pins outside the sweep are left off.
@@ -67,7 +64,7 @@ export function pinMarkers(pins: readonly PlotPin[], traces: readonly PinnableTr
       yaxis: 'y',
       showlegend: false,
       marker: { color: pin.resolved ? 'rgba(0,0,0,0)' : pinColour, size: 13, symbol: 'diamond', line: { width: 2, color: pinColour } },
-      hovertext: [`${pin.label} · ${formatSi(pin.frequency, 'Hz')}${pin.resolved ? ' · resolved' : ''}<br>${escapeHover(pin.note)}`],
+      hovertext: [`${pin.label} · ${formatSi(pin.frequency, 'Hz')}${pin.resolved ? ' · resolved' : ''}<br>${plotText(pin.note)}`],
       hoverinfo: 'text',
     });
     targets.push({ kind: 'pin', pinId: pin.id });

@@ -12,6 +12,7 @@ import { READOUT_NAMES, STATUS_WORDS, formatSi } from '@rolloff/solver';
 import type { Measure, NumberArray, Readout, ReadoutId, RequirementResult, Result, TraceResult } from '@rolloff/solver';
 import type { Annotations, Layout, ScatterData, Shape } from 'plotly.js-basic-dist-min';
 import { loopMarginMarks } from './loop-margins';
+import { plotText } from './plot-text';
 import { pinMarkers } from './plot-pins';
 import type { PlotPin, PlotTarget } from './plot-pins';
 
@@ -296,20 +297,6 @@ function frequencyRequirementShapes(placed: PlacedRequirement[], frequencies: Nu
     });
   }
   return shapes;
-}
-
-/**
- * Text from a cell (a label, a requirement's words) as Plotly shows it: Plotly reads names,
- * hover text and annotations as a small subset of HTML, links included, so `<`, `>` and `&`
- * become entities, which it shows as the characters themselves.
- */
-function plotText(text: string): string {
-  return text.replace(/[<>&]/g, (c) => ({ '<': '&lt;', '>': '&gt;', '&': '&amp;' })[c] ?? c);
-}
-
-/** A name of a figure back as the cell wrote it (for the CSV's header, which is not HTML). */
-export function fromPlotText(text: string): string {
-  return text.replace(/&(lt|gt|amp);/g, (_, entity: string) => ({ lt: '<', gt: '>', amp: '&' })[entity] ?? '');
 }
 
 interface TraceSlot {
