@@ -8,6 +8,7 @@ import { ensureMariadbInstalled } from './lib/mariadb.mjs';
 import { takeLock } from './lib/lock.mjs';
 import { fail, info, runMain, step } from './lib/log.mjs';
 import { requireFreePort, waitForPort } from './lib/ports.mjs';
+import { checkFormatting } from './lib/format-check.mjs';
 import { apiDist, installAndBuild, migrate, root, seedDemoData, startDatabase } from './lib/prepare.mjs';
 import { run, startService } from './lib/run.mjs';
 import { requireMailStandinPorts, startMail } from './lib/mail.mjs';
@@ -46,6 +47,9 @@ await runMain(async () => {
   if (!process.env.DATABASE_URL) await ensureMariadbInstalled();
   await ensureDebianPackages({ chromium: 'chromium' }, 'the end-to-end tests');
   await installAndBuild();
+  step('Formatting (the same check as npm run lint)');
+  const formatting = await checkFormatting(root);
+  for (const file of formatting.unformatted) info(`not formatted: ${file} (npm run format fixes it)`);
 
   // A fresh test database every run, so results never depend on an earlier run.
   const dataDir = path.join(root, '.data/mariadb-test');
@@ -115,9 +119,10 @@ await runMain(async () => {
     await db.stop();
   }
 
-  let passed = 0;
-  let failed = 0;
   console.log('');
+  console.log(`format: ${formatting.passed} passed, ${formatting.failed} failed`);
+  let passed = formatting.passed;
+  let failed = formatting.failed;
   for (const suite of suites) {
     const counts = countsOf(suite.file);
     if (!counts) {

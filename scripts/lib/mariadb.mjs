@@ -60,8 +60,9 @@ export async function startPrivateMariadb({ dataDir, port, database, user, passw
 
   if (!existsSync(path.join(files, 'mysql'))) {
     step(`Creating a private MariaDB data folder in ${path.relative(process.cwd(), files) || files}`);
-    const result = spawnSync(installDb, ['--no-defaults', `--datadir=${files}`, '--user=root',
-      '--auth-root-authentication-method=normal', '--skip-test-db'], { encoding: 'utf8' });
+    const result = spawnSync(installDb, ['--no-defaults', `--datadir=${files}`, '--user=root', '--auth-root-authentication-method=normal', '--skip-test-db'], {
+      encoding: 'utf8',
+    });
     if (result.status !== 0) fail(`mariadb-install-db failed:\n${result.stderr || result.stdout}`);
   }
 
@@ -69,15 +70,33 @@ export async function startPrivateMariadb({ dataDir, port, database, user, passw
     await requireFreePort(port, 'private MariaDB', 'DB_PORT');
   }
   step(`Starting MariaDB on 127.0.0.1:${port}`);
-  const service = startService('mariadb', server, ['--no-defaults', '--user=root', `--datadir=${files}`,
-    '--bind-address=127.0.0.1', `--port=${port}`, `--socket=${socket}`, `--pid-file=${pidFile}`,
-    `--log-error=${errorLog}`, '--skip-name-resolve', '--character-set-server=utf8mb4',
-    '--collation-server=utf8mb4_unicode_ci', '--innodb-buffer-pool-size=64M',
-    '--innodb-log-file-size=16M', '--max-connections=200'], { stdio: 'ignore' });
+  const service = startService(
+    'mariadb',
+    server,
+    [
+      '--no-defaults',
+      '--user=root',
+      `--datadir=${files}`,
+      '--bind-address=127.0.0.1',
+      `--port=${port}`,
+      `--socket=${socket}`,
+      `--pid-file=${pidFile}`,
+      `--log-error=${errorLog}`,
+      '--skip-name-resolve',
+      '--character-set-server=utf8mb4',
+      '--collation-server=utf8mb4_unicode_ci',
+      '--innodb-buffer-pool-size=64M',
+      '--innodb-log-file-size=16M',
+      '--max-connections=200',
+    ],
+    { stdio: 'ignore' },
+  );
 
   const deadline = Date.now() + 30_000;
   let exited = null;
-  service.exited.then((status) => { exited = status; });
+  service.exited.then((status) => {
+    exited = status;
+  });
   for (;;) {
     if (exited) fail(`MariaDB stopped while starting. Last lines of its error log:\n${tail(errorLog, 15)}`);
     const ping = spawnSync('mariadb-admin', ['--no-defaults', `--socket=${socket}`, '-uroot', 'ping'], { encoding: 'utf8' });

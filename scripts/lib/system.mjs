@@ -19,9 +19,11 @@ export async function ensureDebianPackages(wanted, why) {
   const packages = [...new Set(missing.map(([, pkg]) => pkg))];
   const sudo = !isRoot && hasCommand('sudo') ? ['sudo', '-n'] : [];
   if (!isRoot && sudo.length === 0) {
-    fail(`${why} needs the Debian package(s) ${packages.join(', ')}, and this user cannot install them.\n` +
-      `  Install them with: sudo apt-get install -y ${packages.join(' ')}\n` +
-      `  or point DATABASE_URL at an existing MariaDB server.`);
+    fail(
+      `${why} needs the Debian package(s) ${packages.join(', ')}, and this user cannot install them.\n` +
+        `  Install them with: sudo apt-get install -y ${packages.join(' ')}\n` +
+        `  or point DATABASE_URL at an existing MariaDB server.`,
+    );
   }
   if (!hasCommand('apt-get')) {
     fail(`${why} needs ${packages.join(', ')}; this machine has no apt-get. Install them by hand, or set DATABASE_URL.`);

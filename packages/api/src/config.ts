@@ -35,9 +35,7 @@ export function dbConfig(env: NodeJS.ProcessEnv = process.env): DbConfig {
   };
 }
 
-const packageJson = JSON.parse(
-  readFileSync(fileURLToPath(new URL('../package.json', import.meta.url)), 'utf8'),
-) as { version: string };
+const packageJson = JSON.parse(readFileSync(fileURLToPath(new URL('../package.json', import.meta.url)), 'utf8')) as { version: string };
 
 export const version = packageJson.version;
 

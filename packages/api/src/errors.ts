@@ -5,15 +5,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ACQUIRE_TIMEOUT } from './db/request-timeouts.js';
 
-export type ErrorId =
-  | 'not_found'
-  | 'validation'
-  | 'conflict'
-  | 'unauthenticated'
-  | 'forbidden'
-  | 'too_large'
-  | 'unavailable'
-  | 'internal';
+export type ErrorId = 'not_found' | 'validation' | 'conflict' | 'unauthenticated' | 'forbidden' | 'too_large' | 'unavailable' | 'internal';
 
 const statusOf: Record<ErrorId, number> = {
   not_found: 404,
@@ -93,8 +85,7 @@ export const errorMiddleware: ErrorRequestHandler = (error: unknown, _req, res, 
     if (!res.writableEnded) res.destroy();
     return;
   }
-  const known =
-    error instanceof ApiError ? error : (fromBodyParser(error as BodyParserError) ?? fromDatabase(error as { code?: string }));
+  const known = error instanceof ApiError ? error : (fromBodyParser(error as BodyParserError) ?? fromDatabase(error as { code?: string }));
   if (!known) {
     console.error(error);
     res.status(500).json({ error: 'internal', message: 'Something went wrong on our side.' });

@@ -41,7 +41,9 @@ describe('bodies the API cannot use', () => {
     expect(title.status).toBe(400);
     expect(title.body.details!.issues).toEqual([{ path: 'title', message: expect.stringMatching(/lone UTF-16 surrogate/) }]);
     const cellId = notebook.cells[0]!.id;
-    const text = await client.request<ErrorReply>('PUT', `/api/notebooks/${notebook.id}/cells/${cellId}`, undefined, { raw: '{"text": "R1 [a b] 1k \\udc00", "baseRevision": 1}' });
+    const text = await client.request<ErrorReply>('PUT', `/api/notebooks/${notebook.id}/cells/${cellId}`, undefined, {
+      raw: '{"text": "R1 [a b] 1k \\udc00", "baseRevision": 1}',
+    });
     expect(text.status).toBe(400);
     expect(text.body.details!.issues[0]!.path).toBe('text');
     // A whole character outside the first plane (a pair of surrogates) is fine.
@@ -66,7 +68,13 @@ describe('bodies the API cannot use', () => {
     expect(revision.status).toBe(400);
     expect(revision.body.message).toMatch(/^baseRevision: /);
 
-    const nested = await client.post<ErrorReply>('/api/notebooks', { title: 'x', cells: [{ kind: 'note', text: '' }, { kind: 'diagram', text: '' }] });
+    const nested = await client.post<ErrorReply>('/api/notebooks', {
+      title: 'x',
+      cells: [
+        { kind: 'note', text: '' },
+        { kind: 'diagram', text: '' },
+      ],
+    });
     expect(nested.status).toBe(400);
     expect(nested.body.details!.issues.map((i) => i.path)).toEqual(['cells.1.kind']);
     expect(nested.body.message).toMatch(/"circuit"\|"note"/);
@@ -86,7 +94,10 @@ describe('bodies the API cannot use', () => {
       expect(reply.status, raw).toBe(400);
       expect(reply.body.error).toBe('validation');
     }
-    const text = await client.post<ErrorReply>('/api/notebooks', undefined, { raw: 'title=x', headers: { 'content-type': 'application/x-www-form-urlencoded' } });
+    const text = await client.post<ErrorReply>('/api/notebooks', undefined, {
+      raw: 'title=x',
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    });
     expect(text.status).toBe(400);
     expect(text.body.message).toMatch(/must be a JSON object/);
   });

@@ -67,7 +67,7 @@ describe('cross-site request forgery', () => {
     expect(reply.status).toBe(403);
   });
 
-  it('refuses another site\'s Origin even with the right token, and a cross-site fetch', async () => {
+  it("refuses another site's Origin even with the right token, and a cross-site fetch", async () => {
     const client = await signedIn(server.url, (await buildUser()).login);
     const foreign = await client.post('/api/notebooks', { title: 'x' }, { headers: { origin: 'https://evil.example.net' } });
     expect(foreign.status).toBe(403);

@@ -33,7 +33,12 @@ async function insertNotebook(db: DataSource, id: string, ownerId: number): Prom
 }
 
 /** Inserts a cell with its revisions, as the older code stored them; returns its id. */
-async function insertCell(db: DataSource, notebookId: string, authorId: number, cell: { kind: 'circuit' | 'note'; position: number; texts: string[]; deleted?: boolean }): Promise<number> {
+async function insertCell(
+  db: DataSource,
+  notebookId: string,
+  authorId: number,
+  cell: { kind: 'circuit' | 'note'; position: number; texts: string[]; deleted?: boolean },
+): Promise<number> {
   await db.query('INSERT INTO cells (notebookId, kind, position, revision, createdAt, updatedAt, deletedAt) VALUES (?, ?, ?, ?, ?, ?, ?)', [
     notebookId,
     cell.kind,
@@ -45,13 +50,10 @@ async function insertCell(db: DataSource, notebookId: string, authorId: number, 
   ]);
   const [{ id }] = await db.query('SELECT MAX(id) AS id FROM cells');
   for (const [index, text] of cell.texts.entries()) {
-    await db.query('INSERT INTO cell_revisions (cellId, number, text, authorId, diagnosticErrors, diagnosticWarnings, createdAt) VALUES (?, ?, ?, ?, 0, 0, ?)', [
-      id,
-      index + 1,
-      text,
-      authorId,
-      now,
-    ]);
+    await db.query(
+      'INSERT INTO cell_revisions (cellId, number, text, authorId, diagnosticErrors, diagnosticWarnings, createdAt) VALUES (?, ?, ?, ?, 0, 0, ?)',
+      [id, index + 1, text, authorId, now],
+    );
   }
   return id;
 }
@@ -106,18 +108,36 @@ describe('the data migrations', () => {
     const [version] = await db.query("SELECT id FROM notebook_versions WHERE notebookId = 'renamecheck1'");
     await db.query("INSERT INTO reviews (notebookId, round, versionId, message, createdAt) VALUES ('renamecheck1', 1, ?, '', ?)", [version.id, now]);
     const [review] = await db.query("SELECT id FROM reviews WHERE notebookId = 'renamecheck1'");
-    await db.query("INSERT INTO review_assignments (reviewId, reviewerId, state, summary, createdAt) VALUES (?, ?, 'changes_asked', 'Raise C1.', ?)", [review.id, reviewer, now]);
-    await db.query("INSERT INTO review_assignments (reviewId, reviewerId, state, summary, createdAt) VALUES (?, ?, 'signed_off', '', ?)", [review.id, owner, now]);
-    await db.query("INSERT INTO review_decisions (reviewId, reviewerId, state, summary, createdAt) VALUES (?, ?, 'changes_asked', 'Raise C1.', ?)", [review.id, reviewer, now]);
+    await db.query("INSERT INTO review_assignments (reviewId, reviewerId, state, summary, createdAt) VALUES (?, ?, 'changes_asked', 'Raise C1.', ?)", [
+      review.id,
+      reviewer,
+      now,
+    ]);
+    await db.query("INSERT INTO review_assignments (reviewId, reviewerId, state, summary, createdAt) VALUES (?, ?, 'signed_off', '', ?)", [
+      review.id,
+      owner,
+      now,
+    ]);
+    await db.query("INSERT INTO review_decisions (reviewId, reviewerId, state, summary, createdAt) VALUES (?, ?, 'changes_asked', 'Raise C1.', ?)", [
+      review.id,
+      reviewer,
+      now,
+    ]);
 
     await db.runMigrations({ transaction: 'each' });
     const states = async () => ({
-      assignments: (await db.query('SELECT state FROM review_assignments WHERE reviewId = ? ORDER BY reviewerId', [review.id])).map((r: { state: string }) => r.state),
+      assignments: (await db.query('SELECT state FROM review_assignments WHERE reviewId = ? ORDER BY reviewerId', [review.id])).map(
+        (r: { state: string }) => r.state,
+      ),
       decisions: (await db.query('SELECT state FROM review_decisions WHERE reviewId = ?', [review.id])).map((r: { state: string }) => r.state),
     });
     expect(await states()).toEqual({ assignments: ['signed_off', 'needs_changes'], decisions: ['needs_changes'] });
     await expect(
-      db.query("INSERT INTO review_decisions (reviewId, reviewerId, state, summary, createdAt) VALUES (?, ?, 'changes_asked', '', ?)", [review.id, reviewer, now]),
+      db.query("INSERT INTO review_decisions (reviewId, reviewerId, state, summary, createdAt) VALUES (?, ?, 'changes_asked', '', ?)", [
+        review.id,
+        reviewer,
+        now,
+      ]),
     ).rejects.toThrow(/chk_review_decisions_state/);
 
     await undoThrough(db, 'RenameChangesAsked1764633600011');
@@ -134,7 +154,11 @@ describe('the data migrations', () => {
     const integrator = await insertCell(db, 'languagechk1', owner, { kind: 'circuit', position: 0, texts: [integratorFirst, integratorOld] });
     const divider = await insertCell(db, 'languagechk1', owner, { kind: 'circuit', position: 1, texts: [dividerOld], deleted: true });
     const current = await insertCell(db, 'languagechk1', owner, { kind: 'circuit', position: 1, texts: [modern] });
-    const note = await insertCell(db, 'languagechk1', owner, { kind: 'note', position: 2, texts: ['Ground is node 0 in the old sketches; en and in are the noise options.'] });
+    const note = await insertCell(db, 'languagechk1', owner, {
+      kind: 'note',
+      position: 2,
+      texts: ['Ground is node 0 in the old sketches; en and in are the noise options.'],
+    });
 
     await db.runMigrations({ transaction: 'each' });
 
@@ -163,7 +187,8 @@ describe('the data migrations', () => {
       expect((await db.query('SELECT revision FROM cells WHERE id = ?', [cellId]))[0].revision).toBe(texts.length + 1);
     }
     const integratorNow = (await revisions(integrator))[2]!.text;
-    for (const word of ['gnd', 'noise off', 'vnoise 10n', 'inoise 1p', 'spread 200 draws seed 7', '# inverting integrator, with a resistor']) expect(integratorNow).toContain(word);
+    for (const word of ['gnd', 'noise off', 'vnoise 10n', 'inoise 1p', 'spread 200 draws seed 7', '# inverting integrator, with a resistor'])
+      expect(integratorNow).toContain(word);
     expect((await revisions(divider))[1]!.text).toContain('spread extremes');
     // Nothing to rewrite in today's forms or in a note.
     expect((await revisions(current)).map((r) => r.number)).toEqual([1]);

@@ -20,8 +20,7 @@ function freezableRelay(listenPort: number, target: { host: string; port: number
   const sockets = new Set<net.Socket>();
   /** Bytes that arrived while frozen, with where they go, forwarded in order on thaw. */
   let held: { to: net.Socket; data: Buffer }[] | null = null;
-  const forward = (from: net.Socket, to: net.Socket) =>
-    from.on('data', (data: Buffer) => (held ? held.push({ to, data }) : to.write(data)));
+  const forward = (from: net.Socket, to: net.Socket) => from.on('data', (data: Buffer) => (held ? held.push({ to, data }) : to.write(data)));
   const server = net.createServer((client) => {
     const upstream = net.connect(target.port, target.host);
     for (const s of [client, upstream]) {

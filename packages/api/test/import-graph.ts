@@ -76,8 +76,7 @@ export const rules: Rule[] = [
   },
   {
     says: 'stand-ins run without the app: they import only stand-ins, config, html and the demo people',
-    breaks: (edge) =>
-      layerOf(edge.from) === 'standins' && !['standins', 'config', 'html'].includes(layerOf(edge.to)) && edge.to !== 'seed/demo-users.ts',
+    breaks: (edge) => layerOf(edge.from) === 'standins' && !['standins', 'config', 'html'].includes(layerOf(edge.to)) && edge.to !== 'seed/demo-users.ts',
   },
 ];
 

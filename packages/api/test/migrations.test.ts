@@ -133,12 +133,23 @@ describe('the migrations', () => {
     await db.query("INSERT INTO users (login, name) VALUES ('schema-check', 'Schema Check')");
     const [user] = await db.query("SELECT id FROM users WHERE login = 'schema-check'");
     const now = new Date();
-    await db.query('INSERT INTO notebooks (id, title, ownerId, createdAt, updatedAt) VALUES (?, ?, ?, ?, ?)', ['schemacheck1', 'Schema check', user.id, now, now]);
+    await db.query('INSERT INTO notebooks (id, title, ownerId, createdAt, updatedAt) VALUES (?, ?, ?, ?, ?)', [
+      'schemacheck1',
+      'Schema check',
+      user.id,
+      now,
+      now,
+    ]);
     await db.query("INSERT INTO cells (notebookId, kind, position, revision, createdAt, updatedAt) VALUES ('schemacheck1', 'circuit', 0, 1, ?, ?)", [now, now]);
     const [cell] = await db.query("SELECT id FROM cells WHERE notebookId = 'schemacheck1'");
     await db.query("INSERT INTO cell_revisions (cellId, number, text, createdAt) VALUES (?, 1, 'R1 [in out] 1k', ?)", [cell.id, now]);
     const pin = (revision: number, frequency: number) =>
-      db.query("INSERT INTO pins (notebookId, cellId, revisionNumber, trace, frequency, createdAt) VALUES ('schemacheck1', ?, ?, 'out', ?, ?)", [cell.id, revision, frequency, now]);
+      db.query("INSERT INTO pins (notebookId, cellId, revisionNumber, trace, frequency, createdAt) VALUES ('schemacheck1', ?, ?, 'out', ?, ?)", [
+        cell.id,
+        revision,
+        frequency,
+        now,
+      ]);
     await expect(pin(1, 0)).rejects.toThrow(/chk_pins_frequency/);
     await expect(pin(2, 1000)).rejects.toThrow(/fk_pins_revision/);
     await pin(1, 1591.5);
@@ -164,7 +175,7 @@ describe('the migrations', () => {
     expect(plan[0]!.type).not.toBe('ALL');
   });
 
-  it('plan a cell\'s pins with the pins index rather than a table scan', async () => {
+  it("plan a cell's pins with the pins index rather than a table scan", async () => {
     const plan: { key: string | null; type: string }[] = await scratch.db.query(
       `EXPLAIN SELECT id FROM pins WHERE notebookId = 'AAAAAAAAAAAA' AND cellId = 1 ORDER BY createdAt, id`,
     );

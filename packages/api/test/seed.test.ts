@@ -100,7 +100,9 @@ describe('the demo data', () => {
     );
     expect(rounds).toEqual([{ state: 'needs_changes', title: 'Anti-alias filter for the vibration-sensor converter' }]);
     expect(await db.query('SELECT id FROM review_decisions')).toHaveLength(1);
-    const threads: { comments: string }[] = await db.query('SELECT COUNT(c.id) AS comments FROM pins p JOIN pin_comments c ON c.pinId = p.id GROUP BY p.id ORDER BY p.id');
+    const threads: { comments: string }[] = await db.query(
+      'SELECT COUNT(c.id) AS comments FROM pins p JOIN pin_comments c ON c.pinId = p.id GROUP BY p.id ORDER BY p.id',
+    );
     expect(threads.map((thread) => Number(thread.comments))).toEqual([2, 1]);
   });
 });

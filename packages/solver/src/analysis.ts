@@ -218,10 +218,7 @@ export interface AcAnalysis {
 }
 
 /** Builds the network, picks the grid and solves every AC trace over it. */
-export function solveCircuit(
-  circuit: Circuit,
-  options: SolveOptions = {},
-): { analysis: AcAnalysis | null; diagnostics: Diagnostic[] } {
+export function solveCircuit(circuit: Circuit, options: SolveOptions = {}): { analysis: AcAnalysis | null; diagnostics: Diagnostic[] } {
   const diagnostics: Diagnostic[] = [];
   const { system, diagnostics: built } = buildMna(circuit);
   diagnostics.push(...built);
@@ -322,14 +319,7 @@ function isAc(spec: TraceSpec): boolean {
   return spec.kind !== 'noise' && spec.kind !== 'step';
 }
 
-function makeReader(
-  probe: Probe,
-  sys: MnaSystem,
-  rhs: SparseVector[],
-  impedanceRhs: Map<string, number>,
-  drive: number,
-  circuit: Circuit,
-): Reader | string {
+function makeReader(probe: Probe, sys: MnaSystem, rhs: SparseVector[], impedanceRhs: Map<string, number>, drive: number, circuit: Circuit): Reader | string {
   const nodeOk = (k: number): boolean => Number.isInteger(k) && k >= 0 && k < circuit.nodeNames.length;
   switch (probe.kind) {
     case 'voltage':

@@ -122,16 +122,7 @@ export interface Ccvs extends ElementBase {
   rm: number;
 }
 
-export type Element =
-  | Resistor
-  | Capacitor
-  | Inductor
-  | Coupling
-  | OpAmp
-  | Vcvs
-  | Vccs
-  | Cccs
-  | Ccvs;
+export type Element = Resistor | Capacitor | Inductor | Coupling | OpAmp | Vcvs | Vccs | Cccs | Ccvs;
 
 /**
  * The stimulus. A voltage drive is an AC source V(p) − V(n) = amplitude∠phase; a current
@@ -157,14 +148,7 @@ export type Probe =
   /** Driving-point impedance between p and n with the drive zeroed. */
   | { kind: 'impedance'; p: NodeIndex; n: NodeIndex };
 
-export type TraceKind =
-  | 'ratio'
-  | 'transimpedance'
-  | 'current'
-  | 'impedance'
-  | 'loop'
-  | 'noise'
-  | 'step';
+export type TraceKind = 'ratio' | 'transimpedance' | 'current' | 'impedance' | 'loop' | 'noise' | 'step';
 
 export interface TraceSpec {
   /** The label written in quotes, or the expression as written. */

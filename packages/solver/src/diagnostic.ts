@@ -15,12 +15,7 @@ export function replaceWith(replacement: string, range?: SourceRange): FixSpec {
 }
 
 /** One diagnostic at `range`. */
-export function diagnostic(
-  range: SourceRange,
-  code: string,
-  message: string,
-  options: { hint?: string; fix?: FixSpec; severity?: Severity } = {},
-): Diagnostic {
+export function diagnostic(range: SourceRange, code: string, message: string, options: { hint?: string; fix?: FixSpec; severity?: Severity } = {}): Diagnostic {
   const d: Diagnostic = {
     severity: options.severity ?? 'error',
     line: range.line,

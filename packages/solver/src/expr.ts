@@ -108,7 +108,13 @@ function compute(node: ExprNode, known: ReadonlyMap<ExprNode, Quantity>): Quanti
         qs.push(q);
       }
       const q = apply(node, qs);
-      return 'code' in q ? q : finite(node, qs.map((x) => x.value), q);
+      return 'code' in q
+        ? q
+        : finite(
+            node,
+            qs.map((x) => x.value),
+            q,
+          );
     }
   }
 }

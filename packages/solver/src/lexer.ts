@@ -14,25 +14,7 @@ import type { Unit } from './vocabulary.js';
 export type TokenKind = 'name' | 'number' | 'string' | 'punct' | 'unit' | 'error';
 
 /** Punctuation, in canonical spelling (`≥` is read as `>=`, `+/-` as `±`, `…` as `..`). */
-export type Punct =
-  | '['
-  | ']'
-  | '('
-  | ')'
-  | ','
-  | '='
-  | '=='
-  | '>='
-  | '<='
-  | '>'
-  | '<'
-  | '±'
-  | '..'
-  | '+'
-  | '-'
-  | '*'
-  | '/'
-  | '^';
+export type Punct = '[' | ']' | '(' | ')' | ',' | '=' | '==' | '>=' | '<=' | '>' | '<' | '±' | '..' | '+' | '-' | '*' | '/' | '^';
 
 export interface Token {
   kind: TokenKind;
@@ -68,7 +50,6 @@ export interface LexResult {
   diagnostics: Diagnostic[];
 }
 
-
 /** Measures whose name holds a hyphen, read as one word. */
 const HYPHENATED = MEASURE_WORDS.filter((m) => m.includes('-'));
 
@@ -102,7 +83,14 @@ function lexLine(text: string, line: number, diagnostics: Diagnostic[]): Line {
   let i = 0;
   const n = text.length;
   const at = (start: number, end: number): SourceRange => ({ line, column: start + 1, endColumn: end + 1 });
-  const report = (start: number, end: number, code: string, message: string, hint?: string, fix?: { title: string; replacement: string; start?: number; end?: number }) => {
+  const report = (
+    start: number,
+    end: number,
+    code: string,
+    message: string,
+    hint?: string,
+    fix?: { title: string; replacement: string; start?: number; end?: number },
+  ) => {
     const quickFix = fix === undefined ? undefined : { title: fix.title, replacement: fix.replacement, range: at(fix.start ?? start, fix.end ?? end) };
     diagnostics.push(diagnostic(at(start, end), code, message, { hint, fix: quickFix }));
   };
@@ -134,7 +122,10 @@ function lexLine(text: string, line: number, diagnostics: Diagnostic[]): Line {
       if (text[j] === 'Ω' && j === i + 1 && SI_PREFIXES[c] !== undefined) j++;
       let word = text.slice(i, j);
       // A measure written with a hyphen (`phase-margin`) is one word.
-      const joined = text[j] !== '-' ? undefined : HYPHENATED.find((m) => m.startsWith(`${word}-`) && text.startsWith(m.slice(word.length), j) && !isNameChar(text[i + m.length]));
+      const joined =
+        text[j] !== '-'
+          ? undefined
+          : HYPHENATED.find((m) => m.startsWith(`${word}-`) && text.startsWith(m.slice(word.length), j) && !isNameChar(text[i + m.length]));
       if (joined !== undefined) {
         j = i + joined.length;
         word = joined;
@@ -253,7 +244,7 @@ function badCharacterHint(ch: string, text: string, i: number): string | undefin
       return 'write * for multiplication';
     case '√':
       return 'write sqrt(x) for a square root; noise densities are written in V or A, per √Hz implied';
-    case '\'':
+    case "'":
       return 'a label is written in double quotes, like "output"';
     case '{':
     case '}':
@@ -265,7 +256,14 @@ function badCharacterHint(ch: string, text: string, i: number): string | undefin
   }
 }
 
-export type Report = (start: number, end: number, code: string, message: string, hint?: string, fix?: { title: string; replacement: string; start?: number; end?: number }) => void;
+export type Report = (
+  start: number,
+  end: number,
+  code: string,
+  message: string,
+  hint?: string,
+  fix?: { title: string; replacement: string; start?: number; end?: number },
+) => void;
 
 /** Lexes one number starting at `start` and pushes it; returns the index after it. */
 function lexNumber(text: string, start: number, line: number, tokens: Token[], spaced: boolean, report: Report): number {

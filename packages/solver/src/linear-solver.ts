@@ -11,12 +11,7 @@ import type { LinearSolver } from './numeric.js';
 export const DENSE_LIMIT = 8;
 
 /** A solver for an n×n pattern given as slots (rows[k], cols[k]). */
-export function createLinearSolver(
-  n: number,
-  rows: Int32Array,
-  cols: Int32Array,
-  kind: 'auto' | 'dense' | 'sparse' = 'auto',
-): LinearSolver {
+export function createLinearSolver(n: number, rows: Int32Array, cols: Int32Array, kind: 'auto' | 'dense' | 'sparse' = 'auto'): LinearSolver {
   const useDense = kind === 'dense' || (kind === 'auto' && n <= DENSE_LIMIT);
   return useDense ? new DenseSolver(n, rows, cols) : new SparseSolver(n, rows, cols);
 }

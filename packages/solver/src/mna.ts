@@ -72,29 +72,65 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
     const el = elements[index];
     switch (el.kind) {
       case 'resistor': {
-        if (!nodeOk(el.a) || !nodeOk(el.b)) { fail(el.range, `${el.name} names a node that does not exist`); break; }
-        if (!positive(el.value)) { fail(el.range, `${el.name}: a resistor needs a value above 0 Ω`); break; }
+        if (!nodeOk(el.a) || !nodeOk(el.b)) {
+          fail(el.range, `${el.name} names a node that does not exist`);
+          break;
+        }
+        if (!positive(el.value)) {
+          fail(el.range, `${el.name}: a resistor needs a value above 0 Ω`);
+          break;
+        }
         break;
       }
       case 'capacitor': {
-        if (!nodeOk(el.a) || !nodeOk(el.b)) { fail(el.range, `${el.name} names a node that does not exist`); break; }
-        if (!positive(el.value)) { fail(el.range, `${el.name}: a capacitor needs a value above 0 F`); break; }
-        if (!nonNegative(el.esr) || !nonNegative(el.esl)) { fail(el.range, `${el.name}: esr and esl cannot be negative`); break; }
+        if (!nodeOk(el.a) || !nodeOk(el.b)) {
+          fail(el.range, `${el.name} names a node that does not exist`);
+          break;
+        }
+        if (!positive(el.value)) {
+          fail(el.range, `${el.name}: a capacitor needs a value above 0 F`);
+          break;
+        }
+        if (!nonNegative(el.esr) || !nonNegative(el.esl)) {
+          fail(el.range, `${el.name}: esr and esl cannot be negative`);
+          break;
+        }
         if ((el.esr ?? 0) > 0 || (el.esl ?? 0) > 0) branch[index] = unknowns++;
         break;
       }
       case 'inductor': {
-        if (!nodeOk(el.a) || !nodeOk(el.b)) { fail(el.range, `${el.name} names a node that does not exist`); break; }
-        if (!positive(el.value)) { fail(el.range, `${el.name}: an inductor needs a value above 0 H`); break; }
-        if (!nonNegative(el.dcr)) { fail(el.range, `${el.name}: dcr cannot be negative`); break; }
+        if (!nodeOk(el.a) || !nodeOk(el.b)) {
+          fail(el.range, `${el.name} names a node that does not exist`);
+          break;
+        }
+        if (!positive(el.value)) {
+          fail(el.range, `${el.name}: an inductor needs a value above 0 H`);
+          break;
+        }
+        if (!nonNegative(el.dcr)) {
+          fail(el.range, `${el.name}: dcr cannot be negative`);
+          break;
+        }
         branch[index] = unknowns++;
         break;
       }
       case 'opamp': {
-        if (!nodeOk(el.p) || !nodeOk(el.n) || !nodeOk(el.o)) { fail(el.range, `${el.name} names a node that does not exist`); break; }
-        if (el.gain !== undefined && !(finite(el.gain) && el.gain !== 0)) { fail(el.range, `${el.name}: the op-amp gain must be a finite, non-zero number`); break; }
-        if (el.gbw !== undefined && !positive(el.gbw)) { fail(el.range, `${el.name}: gbw must be above 0 Hz`); break; }
-        if (!nonNegative(el.zout)) { fail(el.range, `${el.name}: zout cannot be negative`); break; }
+        if (!nodeOk(el.p) || !nodeOk(el.n) || !nodeOk(el.o)) {
+          fail(el.range, `${el.name} names a node that does not exist`);
+          break;
+        }
+        if (el.gain !== undefined && !(finite(el.gain) && el.gain !== 0)) {
+          fail(el.range, `${el.name}: the op-amp gain must be a finite, non-zero number`);
+          break;
+        }
+        if (el.gbw !== undefined && !positive(el.gbw)) {
+          fail(el.range, `${el.name}: gbw must be above 0 Hz`);
+          break;
+        }
+        if (!nonNegative(el.zout)) {
+          fail(el.range, `${el.name}: zout cannot be negative`);
+          break;
+        }
         branch[index] = unknowns++;
         break;
       }
@@ -105,7 +141,10 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
           break;
         }
         const k = el.kind === 'vcvs' ? el.gain : el.rm;
-        if (!finite(k)) { fail(el.range, `${el.name}: the gain must be a finite number`); break; }
+        if (!finite(k)) {
+          fail(el.range, `${el.name}: the gain must be a finite number`);
+          break;
+        }
         branch[index] = unknowns++;
         break;
       }
@@ -116,7 +155,10 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
           break;
         }
         const k = el.kind === 'vccs' ? el.gm : el.gain;
-        if (!finite(k)) { fail(el.range, `${el.name}: the gain must be a finite number`); break; }
+        if (!finite(k)) {
+          fail(el.range, `${el.name}: the gain must be a finite number`);
+          break;
+        }
         break;
       }
       case 'coupling':
@@ -222,8 +264,14 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
           fail(el.range, `couple names ${!l1 ? el.l1 : el.l2}, which is not an inductor of this network`);
           break;
         }
-        if (l1 === l2) { fail(el.range, 'an inductor cannot be coupled to itself'); break; }
-        if (!(Number.isFinite(el.k) && el.k > 0 && el.k <= 1)) { fail(el.range, 'the coupling factor must lie in 0 < k ≤ 1'); break; }
+        if (l1 === l2) {
+          fail(el.range, 'an inductor cannot be coupled to itself');
+          break;
+        }
+        if (!(Number.isFinite(el.k) && el.k > 0 && el.k <= 1)) {
+          fail(el.range, 'the coupling factor must lie in 0 < k ≤ 1');
+          break;
+        }
         const m = el.k * Math.sqrt(l1.value * l2.value);
         add(l1.index, l2.index, 0, -m);
         add(l2.index, l1.index, 0, -m);
@@ -265,7 +313,10 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
       }
       case 'cccs': {
         const f = currentForm(el.control);
-        if (!f) { fail(el.range, `${el.name} is controlled by ${el.control}, which is not a resistor, capacitor or inductor of this network`); break; }
+        if (!f) {
+          fail(el.range, `${el.name} is controlled by ${el.control}, which is not a resistor, capacitor or inductor of this network`);
+          break;
+        }
         for (let t = 0; t < f.index.length; t++) {
           add(u(el.op), f.index[t], -el.gain * f.c0[t], -el.gain * f.c1[t]);
           add(u(el.on), f.index[t], el.gain * f.c0[t], el.gain * f.c1[t]);
@@ -274,7 +325,10 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
       }
       case 'ccvs': {
         const f = currentForm(el.control);
-        if (!f) { fail(el.range, `${el.name} is controlled by ${el.control}, which is not a resistor, capacitor or inductor of this network`); break; }
+        if (!f) {
+          fail(el.range, `${el.name} is controlled by ${el.control}, which is not a resistor, capacitor or inductor of this network`);
+          break;
+        }
         const br = branch[index];
         kcl(u(el.on), u(el.op), br);
         add(br, u(el.op), 1);
@@ -309,8 +363,14 @@ export function currentInjection(nodeUnknown: Int32Array, p: NodeIndex, n: NodeI
   const value: number[] = [];
   const a = nodeUnknown[p];
   const b = nodeUnknown[n];
-  if (a >= 0) { index.push(a); value.push(1); }
-  if (b >= 0) { index.push(b); value.push(-1); }
+  if (a >= 0) {
+    index.push(a);
+    value.push(1);
+  }
+  if (b >= 0) {
+    index.push(b);
+    value.push(-1);
+  }
   return { index: Int32Array.from(index), value: Float64Array.from(value) };
 }
 
@@ -328,14 +388,7 @@ export function assemble(sys: MnaSystem, omega: number, valRe: Float64Array, val
  * out = −(dA/dω)·x, the right-hand side whose solution is dx/dω (the drive does not change
  * with frequency). dA/dω = j·A1 − 2ω·A2.
  */
-export function derivativeRhs(
-  sys: MnaSystem,
-  omega: number,
-  xRe: Float64Array,
-  xIm: Float64Array,
-  outRe: Float64Array,
-  outIm: Float64Array,
-): void {
+export function derivativeRhs(sys: MnaSystem, omega: number, xRe: Float64Array, xIm: Float64Array, outRe: Float64Array, outIm: Float64Array): void {
   const { rows, cols, c1, c2 } = sys;
   outRe.fill(0, 0, sys.n);
   outIm.fill(0, 0, sys.n);

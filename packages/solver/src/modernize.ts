@@ -97,7 +97,11 @@ export function planRenames(lines: readonly Line[]): RenamePlan {
     }
     const tokens = line.tokens;
     const instance = instanceOf(tokens);
-    const designator = isPartLine(tokens) ? { token: tokens[0], letter: tokens[0].text[0] } : instance !== undefined ? { token: instance, letter: INSTANCE_LETTER } : null;
+    const designator = isPartLine(tokens)
+      ? { token: tokens[0], letter: tokens[0].text[0] }
+      : instance !== undefined
+        ? { token: instance, letter: INSTANCE_LETTER }
+        : null;
     if (instance !== undefined) blocks.set(key(scope, instance.text), tokens[1].text);
     if (designator === null) return;
     const name = designator.token.text;
@@ -222,14 +226,22 @@ class LineRewriter {
     const t = this.tokens[i];
     if (t === undefined) return;
     if (t.kind === 'number' && isDigitsOnly(t.text)) this.replace(t, this.plan.node(t.text));
-    else if (t.kind === 'name' && t.text.includes('.')) this.replace(t, this.dotted(t.text, (last) => (isDigitsOnly(last) && last !== '0' ? this.plan.node(last) : last)));
+    else if (t.kind === 'name' && t.text.includes('.'))
+      this.replace(
+        t,
+        this.dotted(t.text, (last) => (isDigitsOnly(last) && last !== '0' ? this.plan.node(last) : last)),
+      );
   }
 
   /** A part named by another line: `of R1`, `couple L1 L2`, `current R1`. */
   private partRef(i: number): void {
     const t = this.tokens[i];
     if (!isName(t)) return;
-    if (t.text.includes('.')) this.replace(t, this.dotted(t.text, (last, scope) => this.plan.designator(scope, last) ?? last));
+    if (t.text.includes('.'))
+      this.replace(
+        t,
+        this.dotted(t.text, (last, scope) => this.plan.designator(scope, last) ?? last),
+      );
     else this.replace(t, this.plan.designator(this.scope, t.text) ?? t.text);
   }
 
@@ -325,7 +337,14 @@ class LineRewriter {
     let i = 1;
     if (this.tokens[i]?.kind === 'string') i++;
     const mode = this.tokens[i];
-    if (isName(mode) && (SHOW_MODES as readonly string[]).includes(mode.text) && this.tokens[i + 1] !== undefined && !isPunct(this.tokens[i + 1], '-') && !isPunct(this.tokens[i + 1], '/')) i++;
+    if (
+      isName(mode) &&
+      (SHOW_MODES as readonly string[]).includes(mode.text) &&
+      this.tokens[i + 1] !== undefined &&
+      !isPunct(this.tokens[i + 1], '-') &&
+      !isPunct(this.tokens[i + 1], '/')
+    )
+      i++;
     if (this.tokens[i]?.kind === 'string') i++;
     this.traceExpr(i, this.tokens.length);
   }
@@ -342,7 +361,9 @@ class LineRewriter {
 
   private require(): void {
     const ops = ['>=', '<=', '=', '==', '>', '<'];
-    const m = this.tokens.findIndex((t, i) => i > 0 && t.kind === 'name' && (MEASURE_WORDS as string[]).includes(t.text) && ops.some((op) => isPunct(this.tokens[i + 1], op)));
+    const m = this.tokens.findIndex(
+      (t, i) => i > 0 && t.kind === 'name' && (MEASURE_WORDS as string[]).includes(t.text) && ops.some((op) => isPunct(this.tokens[i + 1], op)),
+    );
     if (m < 0) return;
     const target = this.tokens.slice(1, m);
     if (target.length === 1 && (target[0].kind === 'string' || this.labels.has(target[0].text))) return;
@@ -364,6 +385,10 @@ class LineRewriter {
     const last = (seed < 0 ? this.tokens.length : seed) - 1;
     if (last < 2) return;
     const written = this.line.text.slice(this.tokens[2].range.column - 1, this.tokens[last].range.endColumn - 1);
-    this.edits.push({ from: keyword.range.column - 1, to: this.tokens[last].range.endColumn - 1, text: `${RETIRED.tolerance} ${written} ${RETIRED.montecarlo}` });
+    this.edits.push({
+      from: keyword.range.column - 1,
+      to: this.tokens[last].range.endColumn - 1,
+      text: `${RETIRED.tolerance} ${written} ${RETIRED.montecarlo}`,
+    });
   }
 }

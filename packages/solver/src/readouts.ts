@@ -189,7 +189,13 @@ function crossing(view: TraceView, order: number[], target: number): number {
     const a = order[q];
     const b = order[q + 1];
     if (db[a] >= target && db[b] < target) {
-      return solveBetweenGrid(view, a, b, (f) => view.dbAt(f) - target, (k) => db[k] - target);
+      return solveBetweenGrid(
+        view,
+        a,
+        b,
+        (f) => view.dbAt(f) - target,
+        (k) => db[k] - target,
+      );
     }
   }
   return NaN;
@@ -221,7 +227,14 @@ function shapeReadouts(view: TraceView, idx: number[], info: ShapeInfo, label: s
       if (!interiorMax) break;
       const target = peakDb - HALF_POWER_DB;
       const lo = crossingFrom(view, peakF, peakDb, idx.filter((k) => view.f[k] < peakF).reverse(), target, 'down');
-      const hi = crossingFrom(view, peakF, peakDb, idx.filter((k) => view.f[k] > peakF), target, 'down');
+      const hi = crossingFrom(
+        view,
+        peakF,
+        peakDb,
+        idx.filter((k) => view.f[k] > peakF),
+        target,
+        'down',
+      );
       pushBand(out, label, lo, hi, Math.sqrt(lo * hi));
       break;
     }
@@ -230,7 +243,14 @@ function shapeReadouts(view: TraceView, idx: number[], info: ShapeInfo, label: s
       if (!dip) break;
       const center = dip.at;
       const lo = crossingFrom(view, center, dip.value, idx.filter((k) => view.f[k] < center).reverse(), info.lowDb - HALF_POWER_DB, 'up');
-      const hi = crossingFrom(view, center, dip.value, idx.filter((k) => view.f[k] > center), info.highDb - HALF_POWER_DB, 'up');
+      const hi = crossingFrom(
+        view,
+        center,
+        dip.value,
+        idx.filter((k) => view.f[k] > center),
+        info.highDb - HALF_POWER_DB,
+        'up',
+      );
       pushBand(out, label, lo, hi, center);
       break;
     }
@@ -332,7 +352,13 @@ export function stabilityReadouts(analysis: AcAnalysis, trace: TraceData): Reado
     const ib = Math.floor((ph[b] - 180) / 360);
     if (ia === ib) continue;
     const boundary = 180 + 360 * Math.max(ia, ib);
-    fpc = solveBetweenGrid(view, a, b, (f) => view.phaseAt(f) - boundary, (k) => ph[k] - boundary);
+    fpc = solveBetweenGrid(
+      view,
+      a,
+      b,
+      (f) => view.phaseAt(f) - boundary,
+      (k) => ph[k] - boundary,
+    );
     break;
   }
   if (Number.isFinite(fpc)) {

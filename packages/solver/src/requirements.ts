@@ -70,7 +70,10 @@ function checkOne(circuit: Circuit, req: RequirementSpec, analysis: AcAnalysis |
   const base = structure(circuit, req, analysis);
   const measured = measure(circuit, req, base.band, analysis, readouts);
   if ('notApplicable' in measured) {
-    return { result: { ...base, status: 'not-applicable', measured: NaN, worstAt: null, reason: measured.notApplicable }, warning: `${measured.notApplicable}; this requirement is not checked` };
+    return {
+      result: { ...base, status: 'not-applicable', measured: NaN, worstAt: null, reason: measured.notApplicable },
+      warning: `${measured.notApplicable}; this requirement is not checked`,
+    };
   }
   const status = passes(base.band, measured.value) ? 'pass' : 'fail';
   return { result: { ...base, status, measured: measured.value, worstAt: measured.worstAt, reason: null } };

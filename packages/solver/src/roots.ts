@@ -7,15 +7,7 @@
  * (already known, as on a grid: a recomputation could differ in the last bit and lose the
  * bracket).
  */
-export function brent(
-  g: (x: number) => number,
-  a: number,
-  b: number,
-  xtol: number,
-  maxIter = 200,
-  ga?: number,
-  gb?: number,
-): number {
+export function brent(g: (x: number) => number, a: number, b: number, xtol: number, maxIter = 200, ga?: number, gb?: number): number {
   let fa = ga ?? g(a);
   let fb = gb ?? g(b);
   if (fa === 0) return a;

@@ -16,7 +16,9 @@ export function traceDiagnostics(circuit: Circuit, analysis: AcAnalysis): Diagno
   const singular = new Set(analysis.singular);
   return analysis.traces.flatMap((trace) => {
     const spec = circuit.traces[trace.plan.specIndex];
-    return checkTrace(trace, analysis.frequencies, singular).map(({ severity, code, message, hint }) => diagnostic(spec.range, code, message, { severity, hint }));
+    return checkTrace(trace, analysis.frequencies, singular).map(({ severity, code, message, hint }) =>
+      diagnostic(spec.range, code, message, { severity, hint }),
+    );
   });
 }
 

@@ -119,4 +119,3 @@ export function solveBetween(fa: number, fb: number, h: (f: number) => number, h
   }
   return brent(h, fa, fb, LN_TOL * fb, 200, ha, hb);
 }
-

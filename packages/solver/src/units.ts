@@ -10,9 +10,7 @@ import type { Unit } from './vocabulary.js';
 const UNPREFIXED: ReadonlySet<Unit> = new Set<Unit>(UNPREFIXED_UNITS);
 
 /** What the text after a number's digits turned out to be. */
-export type SuffixReading =
-  | { kind: 'ok'; multiplier: number; unit: Unit | null; prefix: string | null }
-  | { kind: 'bad'; reason: SuffixProblem };
+export type SuffixReading = { kind: 'ok'; multiplier: number; unit: Unit | null; prefix: string | null } | { kind: 'bad'; reason: SuffixProblem };
 
 export type SuffixProblem =
   | { kind: 'mega'; spelling: string; replacement: string }
@@ -74,7 +72,15 @@ export function readSuffix(suffix: string): SuffixReading {
       const unit = rest.toUpperCase();
       if (first === 'm') {
         const name = unit === 'F' ? 'farads' : 'henries';
-        return { kind: 'bad', reason: { kind: 'unit-case', spelling: suffix, replacement: null, hint: `${name} are ${unit}: write m${unit} for milli${name}, or u${unit} if micro was meant` } };
+        return {
+          kind: 'bad',
+          reason: {
+            kind: 'unit-case',
+            spelling: suffix,
+            replacement: null,
+            hint: `${name} are ${unit}: write m${unit} for milli${name}, or u${unit} if micro was meant`,
+          },
+        };
       }
       return { kind: 'bad', reason: { kind: 'unit-case', spelling: suffix, replacement: first + unit } };
     }

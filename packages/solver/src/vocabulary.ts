@@ -101,11 +101,12 @@ export const PART_LETTERS = Object.keys(PART_CLASSES) as PartClassLetter[];
 export const INSTANCE_LETTER = 'B';
 
 /** A two-terminal part's value: its unit and an example. */
-export const PASSIVES: Readonly<Record<PassiveKind, { letter: PartClassLetter; unit: Unit; example: string; options: readonly string[]; optionText: string }>> = {
-  resistor: { letter: 'R', unit: 'Ω', example: '10k', options: ['tol', 'noise'], optionText: '±1%, tol 1%, noise off' },
-  capacitor: { letter: 'C', unit: 'F', example: '10n', options: ['tol', 'esr', 'esl'], optionText: '±5%, tol 5%, esr Ω, esl H' },
-  inductor: { letter: 'L', unit: 'H', example: '1m', options: ['tol', 'dcr'], optionText: '±10%, tol 10%, dcr Ω' },
-};
+export const PASSIVES: Readonly<Record<PassiveKind, { letter: PartClassLetter; unit: Unit; example: string; options: readonly string[]; optionText: string }>> =
+  {
+    resistor: { letter: 'R', unit: 'Ω', example: '10k', options: ['tol', 'noise'], optionText: '±1%, tol 1%, noise off' },
+    capacitor: { letter: 'C', unit: 'F', example: '10n', options: ['tol', 'esr', 'esl'], optionText: '±5%, tol 5%, esr Ω, esl H' },
+    inductor: { letter: 'L', unit: 'H', example: '1m', options: ['tol', 'dcr'], optionText: '±10%, tol 10%, dcr Ω' },
+  };
 
 /** Every option word of a resistor, capacitor or inductor. */
 export const PASSIVE_OPTIONS = ['tol', 'esr', 'esl', 'dcr', 'noise'] as const;

@@ -66,7 +66,7 @@ describe('the import rules of the solver', () => {
       readModule('analysis.ts', 'const home = process.env.HOME;'),
     ];
     expect(ruleBreaks(bad)).toEqual([
-      "vocabulary.ts imports ./lexer.js: the vocabulary and diagnostics import nothing of the solver",
+      'vocabulary.ts imports ./lexer.js: the vocabulary and diagnostics import nothing of the solver',
       "parser/index.ts imports node:fs: only the command line touches Node's APIs",
       "parser/index.ts imports path: only the command line touches Node's APIs",
       "analysis.ts uses Node's globals: only the command line touches Node's APIs",

@@ -12,7 +12,9 @@ import { render } from './render.js';
 
 const dir = fileURLToPath(new URL('./cases', import.meta.url));
 const SEPARATOR = '=== expected ===';
-const files = readdirSync(dir).filter((f) => f.endsWith('.txt')).sort();
+const files = readdirSync(dir)
+  .filter((f) => f.endsWith('.txt'))
+  .sort();
 
 describe('cell language fixtures', () => {
   it('has fixtures', () => {

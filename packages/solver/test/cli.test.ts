@@ -86,7 +86,7 @@ describe('rolloff CLI', { timeout: 60_000 }, () => {
     expect(j.traces[0].magnitude[0]).toBe(0);
   });
 
-  it('--csv prints one row per frequency, headed in the screens\' words: gain and phase, and magnitude for impedances', () => {
+  it("--csv prints one row per frequency, headed in the screens' words: gain and phase, and magnitude for impedances", () => {
     const r = rolloff(['solve', file('good.cell', GOOD), '--csv']);
     expect(r.code).toBe(0);
     const lines = r.stdout.trim().split('\n');
@@ -104,7 +104,10 @@ describe('rolloff CLI', { timeout: 60_000 }, () => {
 
   it('--json writes an infinite readout or measured value as "Infinity", apart from null (no value)', () => {
     // One real pole: the phase never reaches −180°, so the gain margin is +∞ [OA-PM1].
-    const r = rolloff(['solve', '-', '--json'], 'drive in\nA1 [a gnd in gnd] vgain 10k\nR1 [a b] 1k\nC1 [b gnd] (1/(2*pi*10*1k))\nshow loop b\nrequire loop b gain-margin >= 10 dB\n');
+    const r = rolloff(
+      ['solve', '-', '--json'],
+      'drive in\nA1 [a gnd in gnd] vgain 10k\nR1 [a b] 1k\nC1 [b gnd] (1/(2*pi*10*1k))\nshow loop b\nrequire loop b gain-margin >= 10 dB\n',
+    );
     expect(r.code).toBe(0);
     const j = JSON.parse(r.stdout);
     expect(j.readouts.find((x: { name: string }) => x.name === 'gain-margin')).toMatchObject({ value: 'Infinity', at: null });
@@ -113,7 +116,10 @@ describe('rolloff CLI', { timeout: 60_000 }, () => {
 
   it('a reader that closes the pipe early (`| head`) ends the output quietly, without a crash', () => {
     const cell = file('long.cell', 'drive in\nR1 [in out] 1k\nC1 [out gnd] 1u\nshow out\nsweep 1 .. 1G, 2000/decade\n');
-    const r = spawnSync('bash', ['-c', `set -o pipefail; "${process.execPath}" --import tsx src/cli.ts solve "${cell}" --csv | head -n 2`], { cwd: packageDir, encoding: 'utf8' });
+    const r = spawnSync('bash', ['-c', `set -o pipefail; "${process.execPath}" --import tsx src/cli.ts solve "${cell}" --csv | head -n 2`], {
+      cwd: packageDir,
+      encoding: 'utf8',
+    });
     expect(r.stdout.trim().split('\n')).toHaveLength(2);
     expect(r.stderr).toBe('');
     expect(r.status).toBe(0);

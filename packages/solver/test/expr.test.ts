@@ -81,7 +81,7 @@ describe('evaluateExpression', () => {
     expect(error('sqrt(-1)')).toBe('this expression has no value (a square root or logarithm of a negative number?)');
     expect(error('"text"')).toBe('`text` cannot appear in an expression');
     expect(error('1 ? 2 : 3')).toBe('the character `?` has no meaning here');
-    expect(error("x'")).toBe('the character `\'` has no meaning here');
+    expect(error("x'")).toBe("the character `'` has no meaning here");
     expect(error('5!')).toBe('the character `!` has no meaning here');
   });
 });

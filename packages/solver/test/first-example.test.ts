@@ -8,7 +8,6 @@ import { compile } from '../src/compile.js';
 import type { Capacitor, OpAmp, Resistor } from '../src/circuit.js';
 import { FIRST_EXAMPLE } from '../src/examples.js';
 
-
 describe('the first example of the language definition', () => {
   const { circuit, diagnostics } = compile(FIRST_EXAMPLE);
 
@@ -56,7 +55,14 @@ describe('the first example of the language definition', () => {
 
   it('maps its three requirements to the trace and measure', () => {
     const [a, b, d] = circuit!.requirements;
-    expect(a).toMatchObject({ trace: 0, measure: 'gain', op: '>=', value: -0.3, over: { from: 10, to: 500 }, text: 'require out gain >= -0.3 dB over 10 .. 500' });
+    expect(a).toMatchObject({
+      trace: 0,
+      measure: 'gain',
+      op: '>=',
+      value: -0.3,
+      over: { from: 10, to: 500 },
+      text: 'require out gain >= -0.3 dB over 10 .. 500',
+    });
     expect(a.range.line).toBe(15);
     expect(b).toMatchObject({ trace: 0, measure: 'corner', op: '=', value: 1000, tolerance: { amount: 0.02, relative: true } });
     expect(b.over).toBeUndefined();

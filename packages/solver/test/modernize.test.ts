@@ -138,11 +138,36 @@ const fixtureInputs = readdirSync(casesDir)
 
 /** Pieces of cells in the earlier forms, put together at random. */
 const oldLines = [
-  'drive 1', 'drive in', 'drive [1 0]', 'R1 [1 2] 1k', 'Rfb [2 0] 10k', 'Rload [out 0] 1k noiseless', 'C1 [2 out] 1n ±5%',
-  'Cx [out 0] 10n esr 20m', 'Lp [1 3] 1m', 'Ls [3 0] 1m', 'couple Lp Ls 0.9', 'U1 [0 2 out] opamp gain 100dB en 10n in 1p',
-  'Ubuf [out x out] opamp', 'Aa [x 0] igain 2 of Rfb', 'show out', 'show 2', 'show current Rfb', 'show loop out / 2',
-  'tolerance montecarlo 100 seed 3', 'tolerance worstcase', 'require out gain >= -3 dB', 'require 2 gain <= 0 dB',
-  'block lp [a b]', 'Rb [a b] 1k', 'C9 [b 0] 1n', 'end', 'use lp as Bx [out 4]', 'show Bx.b', '# comment 0', '',
+  'drive 1',
+  'drive in',
+  'drive [1 0]',
+  'R1 [1 2] 1k',
+  'Rfb [2 0] 10k',
+  'Rload [out 0] 1k noiseless',
+  'C1 [2 out] 1n ±5%',
+  'Cx [out 0] 10n esr 20m',
+  'Lp [1 3] 1m',
+  'Ls [3 0] 1m',
+  'couple Lp Ls 0.9',
+  'U1 [0 2 out] opamp gain 100dB en 10n in 1p',
+  'Ubuf [out x out] opamp',
+  'Aa [x 0] igain 2 of Rfb',
+  'show out',
+  'show 2',
+  'show current Rfb',
+  'show loop out / 2',
+  'tolerance montecarlo 100 seed 3',
+  'tolerance worstcase',
+  'require out gain >= -3 dB',
+  'require 2 gain <= 0 dB',
+  'block lp [a b]',
+  'Rb [a b] 1k',
+  'C9 [b 0] 1n',
+  'end',
+  'use lp as Bx [out 4]',
+  'show Bx.b',
+  '# comment 0',
+  '',
 ];
 const oldCell = fc.array(fc.constantFrom(...oldLines), { maxLength: 14 }).map((xs) => xs.join('\n'));
 
@@ -185,14 +210,21 @@ describe('modernizeCellText: properties', () => {
     const valid = [FIRST_EXAMPLE, ...fixtureInputs.filter((t) => compile(t).circuit !== null)];
     const retired = new Set(['ground-is-gnd', 'digit-node', 'bad-designator', 'retired-word']);
     fc.assert(
-      fc.property(fc.constantFrom(...valid), fc.subarray(antiques.map((_, i) => i), { minLength: 1 }), (cell, which) => {
-        const old = antique(cell, which);
-        fc.pre(old !== cell);
-        const before = compile(old).diagnostics.filter((d) => d.severity === 'error');
-        expect(before.length).toBeGreaterThan(0);
-        expect(before.filter((d) => !retired.has(d.code))).toEqual([]);
-        expect(compile(modern(old)).diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
-      }),
+      fc.property(
+        fc.constantFrom(...valid),
+        fc.subarray(
+          antiques.map((_, i) => i),
+          { minLength: 1 },
+        ),
+        (cell, which) => {
+          const old = antique(cell, which);
+          fc.pre(old !== cell);
+          const before = compile(old).diagnostics.filter((d) => d.severity === 'error');
+          expect(before.length).toBeGreaterThan(0);
+          expect(before.filter((d) => !retired.has(d.code))).toEqual([]);
+          expect(compile(modern(old)).diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+        },
+      ),
       { numRuns: 150 },
     );
   }, 30_000);

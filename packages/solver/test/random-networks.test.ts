@@ -116,7 +116,8 @@ describe('dense and sparse paths on random networks', { timeout: 30_000 }, () =>
         const im = new Float64Array(sys.rows.length);
         assemble(sys, 2 * Math.PI * f, re, im);
         const rows: math.Complex[][] = Array.from({ length: n }, () => Array.from({ length: n }, () => math.complex(0, 0)));
-        for (let k = 0; k < sys.rows.length; k++) rows[sys.rows[k]][sys.cols[k]] = math.add(rows[sys.rows[k]][sys.cols[k]], math.complex(re[k], im[k])) as math.Complex;
+        for (let k = 0; k < sys.rows.length; k++)
+          rows[sys.rows[k]][sys.cols[k]] = math.add(rows[sys.rows[k]][sys.cols[k]], math.complex(re[k], im[k])) as math.Complex;
         const br = new Float64Array(n);
         for (let k = 0; k < sys.driveRhs!.index.length; k++) br[sys.driveRhs!.index[k]] = sys.driveRhs!.value[k];
         const ref = math.lusolve(math.matrix(rows), math.matrix(Array.from(br, (v) => [math.complex(v, 0)]))).toArray() as unknown as math.Complex[][];

@@ -100,7 +100,9 @@ describe('readouts', () => {
     expect(peak.at).toBe(readout(r, 'vc', 'peak-frequency').value);
     expect(readout(r, 'vc', 'corner').at).toBeNull();
     // Three buffered RC poles behind a gain of 1000: a crossover and a phase crossover in the sweep.
-    const loop = run('drive in\nA1 [a gnd in gnd] vgain 1000\nR1 [a b] 1k\nC1 [b gnd] 1u\nA2 [c gnd b gnd] vgain 1\nR2 [c d] 1k\nC2 [d gnd] 1u\nA3 [e gnd d gnd] vgain 1\nR3 [e f] 1k\nC3 [f gnd] 1u\nshow loop f\nsweep 1 .. 100k');
+    const loop = run(
+      'drive in\nA1 [a gnd in gnd] vgain 1000\nR1 [a b] 1k\nC1 [b gnd] 1u\nA2 [c gnd b gnd] vgain 1\nR2 [c d] 1k\nC2 [d gnd] 1u\nA3 [e gnd d gnd] vgain 1\nR3 [e f] 1k\nC3 [f gnd] 1u\nshow loop f\nsweep 1 .. 100k',
+    );
     const label = loop.traces[0].label;
     expect(readout(loop, label, 'phase-margin').at).toBe(readout(loop, label, 'crossover').value);
     expect(readout(loop, label, 'gain-margin').at).toBe(readout(loop, label, 'phase-crossover').value);

@@ -277,7 +277,7 @@ describe('doubly terminated Butterworth LC ladders (§13 LAD rows, §5 Butterwor
         const p = point(r, 'out', f);
         expect(Math.abs(p.db - e.db), `${f} Hz`).toBeLessThan(1e-4);
         // Unwrapped phase against the principal value of the polynomial's phase.
-        const d = (((p.deg - e.deg) % 360) + 540) % 360 - 180;
+        const d = ((((p.deg - e.deg) % 360) + 540) % 360) - 180;
         expect(Math.abs(d), `${f} Hz`).toBeLessThan(1e-4);
       }
       expect(Math.abs(point(r, 'out', 1000).db - (-6.0206 - 3.0103))).toBeLessThan(1e-4);

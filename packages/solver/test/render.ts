@@ -37,7 +37,8 @@ export function renderCircuit(c: Circuit): string[] {
   for (const r of c.requirements) {
     let line = `require line ${r.range.line} trace ${r.trace} ${r.measure} ${r.op} ${num(r.value)}`;
     if (r.tolerance !== undefined) line += r.tolerance.relative ? ` ± ${num(r.tolerance.amount * 100)}%` : ` ± ${num(r.tolerance.amount)}`;
-    if (r.over !== undefined) line += ` over ${r.over.from === undefined ? '' : num(r.over.from) + ' '}..${r.over.to === undefined ? '' : ' ' + num(r.over.to)}`;
+    if (r.over !== undefined)
+      line += ` over ${r.over.from === undefined ? '' : num(r.over.from) + ' '}..${r.over.to === undefined ? '' : ' ' + num(r.over.to)}`;
     if (r.at !== undefined) line += ` at ${num(r.at)}`;
     out.push(`${line} text ${JSON.stringify(r.text)}`);
   }

@@ -56,7 +56,10 @@ describe('robustness', { timeout: 30_000 }, () => {
   it('never throws on a cell with characters deleted, duplicated or replaced', () => {
     fc.assert(
       fc.property(
-        fc.array(fc.record({ at: fc.nat({ max: CELL.length - 1 }), op: fc.constantFrom('del', 'dup', 'digit', 'zero'), len: fc.integer({ min: 1, max: 6 }) }), { minLength: 1, maxLength: 4 }),
+        fc.array(fc.record({ at: fc.nat({ max: CELL.length - 1 }), op: fc.constantFrom('del', 'dup', 'digit', 'zero'), len: fc.integer({ min: 1, max: 6 }) }), {
+          minLength: 1,
+          maxLength: 4,
+        }),
         (edits) => {
           let s = CELL;
           for (const e of edits) {

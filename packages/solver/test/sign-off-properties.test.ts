@@ -106,7 +106,8 @@ describe('sign-off properties', { timeout: 120_000 }, () => {
         const r = analyze(lines.join('\n'));
         expect(r.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
         const said = (line: number): boolean => r.diagnostics.some((d) => d.line === line || d.code === 'singular');
-        for (const x of r.readouts) expect(Number.isFinite(x.value) || (x.name === 'gain-margin' && x.value === Infinity), `${x.trace} ${x.name} ${x.value}`).toBe(true);
+        for (const x of r.readouts)
+          expect(Number.isFinite(x.value) || (x.name === 'gain-margin' && x.value === Infinity), `${x.trace} ${x.name} ${x.value}`).toBe(true);
         r.traces.forEach((t, k) => {
           if (Array.from(t.magnitudeDb).some((x) => !Number.isFinite(x))) expect(said(first + k), t.label).toBe(true);
         });

@@ -61,7 +61,7 @@ describe('a range requirement finds the true extreme between sweep points', () =
     const q = r.requirements[0];
     expect(q.status).toBe('fail');
     // τ(ω) of H = sRC/(1 − ω²LC + jωRC) is ≥ 2Q/ω₀ at its maximum, which lies within f₀/Q of f₀.
-    expect(q.measured).toBeGreaterThanOrEqual((2 * 300) / (TWO_PI * F0) * (1 - 1e-9));
+    expect(q.measured).toBeGreaterThanOrEqual(((2 * 300) / (TWO_PI * F0)) * (1 - 1e-9));
     expect(Math.abs(q.worstAt! - F0)).toBeLessThan(F0 / 300);
   });
 });

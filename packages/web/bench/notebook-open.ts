@@ -87,7 +87,10 @@ async function openOnce(page: Page, cdp: CDPSession, notebookId: string): Promis
     const now = await page.evaluate(() => performance.now());
     const lastBusy = Math.max(0, ...t.longTasks.map((task) => task.start + task.duration));
     if (t.plotAt !== null && t.keyAcceptedAt !== null && now - Math.max(lastBusy, t.plotAt) > quietMs) break;
-    if (Date.now() > deadline) throw new Error(`The notebook did not finish opening within ${openTimeoutMs / 1000} s: ${JSON.stringify({ ...t, longTasks: t.longTasks.length, frameScripts: undefined })}`);
+    if (Date.now() > deadline)
+      throw new Error(
+        `The notebook did not finish opening within ${openTimeoutMs / 1000} s: ${JSON.stringify({ ...t, longTasks: t.longTasks.length, frameScripts: undefined })}`,
+      );
     await page.waitForTimeout(250);
   }
   const timings = await timingsOf(page);
@@ -117,7 +120,12 @@ function median(values: number[]): number {
 /** One line per open, with what ran in its longest task; BENCH_VERBOSE=1 adds every long script. */
 function describe(name: string, run: Open): string {
   const t = run.timings;
-  const scripts = verbose ? t.frameScripts.filter((s) => s.duration >= 50).map((s) => `\n    ${ms(s.start)} +${ms(s.duration)} ${s.source} (${s.invoker})`).join('') : '';
+  const scripts = verbose
+    ? t.frameScripts
+        .filter((s) => s.duration >= 50)
+        .map((s) => `\n    ${ms(s.start)} +${ms(s.duration)} ${s.source} (${s.invoker})`)
+        .join('')
+    : '';
   return (
     `${name}: longest task ${ms(run.longestTask)} (${run.culprit ? `${run.culprit.source}, ${run.culprit.invoker}` : 'no script named'}), ` +
     `${t.longTasks.length} long tasks, blocking ${ms(run.blockingMs)}; editor at ${ms(t.editorShownAt)}, keystroke ${ms(run.keystrokeMs)} after it showed ` +
@@ -181,12 +189,18 @@ async function main(): Promise<void> {
   const cell = (values: number[]) => `${ms(median(values))} / ${ms(Math.max(...values))}`;
   console.log('');
   console.log(calibration);
-  console.log(`${os.cpus().length} × ${os.cpus()[0]?.model ?? 'unknown CPU'}, Node.js ${process.versions.node}, load average ${os.loadavg().map((l) => l.toFixed(1)).join(' ')}, ${new Date().toISOString()}`);
+  console.log(
+    `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'unknown CPU'}, Node.js ${process.versions.node}, load average ${os
+      .loadavg()
+      .map((l) => l.toFixed(1))
+      .join(' ')}, ${new Date().toISOString()}`,
+  );
   console.log(`${runs} runs, each a new browser: the notebook opened on a first visit (nothing cached), then again (cached)`);
   console.log('');
   console.log('| measure | first visit: median / worst | again: median / worst | budget |');
   console.log('|---|---|---|---|');
-  for (const [name, value, limit] of rows) console.log(`| ${name} | ${cell(opens.map((o) => value(o.cold)))} | ${cell(opens.map((o) => value(o.warm)))} | ${limit} |`);
+  for (const [name, value, limit] of rows)
+    console.log(`| ${name} | ${cell(opens.map((o) => value(o.cold)))} | ${cell(opens.map((o) => value(o.warm)))} | ${limit} |`);
   if (worstTask > budget.longestTaskMs || worstKey > budget.keystrokeMs) process.exitCode = 1;
 }
 

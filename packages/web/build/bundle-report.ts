@@ -52,7 +52,8 @@ export function bundleReport({ firstPageBudget, plotChunk }: BundleReportOptions
       for (const item of Object.values(bundle)) if (item.type === 'chunk' && item.isEntry) visit(item.fileName);
       const firstPageBytes = [...firstPage].reduce((sum, name) => sum + (entries.get(name)?.gzipped ?? 0), 0);
       const plotChunks = Object.values(bundle).filter((item) => item.type === 'chunk' && item.moduleIds.some((id) => inPackage(id, [plotChunk.package])));
-      if (plotChunks.length !== 1) this.error(`Expected one chunk holding ${plotChunk.package}, found ${plotChunks.length}: the plot chunk's budget cannot be checked.`);
+      if (plotChunks.length !== 1)
+        this.error(`Expected one chunk holding ${plotChunk.package}, found ${plotChunks.length}: the plot chunk's budget cannot be checked.`);
       const plot = entries.get(plotChunks[0].fileName) as Entry;
 
       const rows = [...entries.values()].sort((a, b) => b.gzipped - a.gzipped);

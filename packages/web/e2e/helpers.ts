@@ -9,7 +9,10 @@ import { baseUrl } from './browser';
 export async function signIn(page: Page, login: string): Promise<void> {
   await page.goto(`${baseUrl}/auth/github?login=${encodeURIComponent(login)}`);
   await page.waitForURL(/\/notebooks/, { timeout: 20_000 });
-  await page.getByTestId('signed-in-as').and(page.locator(`[data-login="${login}"]`)).waitFor();
+  await page
+    .getByTestId('signed-in-as')
+    .and(page.locator(`[data-login="${login}"]`))
+    .waitFor();
 }
 
 /** Makes a notebook from the notebooks page and waits for it to open; returns its id. */

@@ -33,7 +33,9 @@ require loop phase-margin >= 45 deg
 require loop crossover >= 20k
 `;
 /** The same loop after the review: type II compensation moved up. */
-const SECOND_LOOP = FIRST_LOOP.replace('R3  [fb z]     10k', 'R3  [fb z]     91k').replace('C1  [z e]      10n', 'C1  [z e]      1n').replace('C2  [fb e]     100p', 'C2  [fb e]     10p');
+const SECOND_LOOP = FIRST_LOOP.replace('R3  [fb z]     10k', 'R3  [fb z]     91k')
+  .replace('C1  [z e]      10n', 'C1  [z e]      1n')
+  .replace('C2  [fb e]     100p', 'C2  [fb e]     10p');
 
 interface Message {
   to: string[];
@@ -120,7 +122,13 @@ describe('a review: requested, pinned, needs changes, revised, signed off, and m
     expect(reviewerId).toBeGreaterThan(0);
     const made = await fetchFromPage(page, '/api/notebooks', {
       method: 'POST',
-      body: { title, cells: [{ kind: 'note', text: '# 3.3 V regulator loop\n\nCrossover above **20 kHz**, at least 45° of phase margin.' }, { kind: 'circuit', text: FIRST_LOOP }] },
+      body: {
+        title,
+        cells: [
+          { kind: 'note', text: '# 3.3 V regulator loop\n\nCrossover above **20 kHz**, at least 45° of phase margin.' },
+          { kind: 'circuit', text: FIRST_LOOP },
+        ],
+      },
     });
     expect(made.status).toBe(201);
     notebookId = (made.body as { id: string }).id;

@@ -53,7 +53,10 @@ describe('sharing with a viewer, who forks the notebook', () => {
 
     const notebook = (await fetchFromPage(page, `/api/notebooks/${notebookId}`, { method: 'GET' })).body as { cells: { id: number; revision: number }[] };
     const cell = notebook.cells[0];
-    const attempt = await fetchFromPage(page, `/api/notebooks/${notebookId}/cells/${cell.id}`, { method: 'PUT', body: { text: 'drive in\nshow in', baseRevision: cell.revision } });
+    const attempt = await fetchFromPage(page, `/api/notebooks/${notebookId}/cells/${cell.id}`, {
+      method: 'PUT',
+      body: { text: 'drive in\nshow in', baseRevision: cell.revision },
+    });
     expect(attempt.status).toBe(403);
     expect(await circuitText(page, 0)).toBe(originalText);
     await screenshot(page, 'viewer-read-only');
@@ -86,7 +89,10 @@ describe('sharing with a viewer, who forks the notebook', () => {
     expect(await original.getByTestId('private-forks').textContent()).toContain('One fork');
 
     await page.getByTestId('share').click();
-    await page.getByRole('dialog', { name: 'Share this notebook' }).getByRole('checkbox', { name: /Link sharing/ }).click();
+    await page
+      .getByRole('dialog', { name: 'Share this notebook' })
+      .getByRole('checkbox', { name: /Link sharing/ })
+      .click();
     await page.getByRole('dialog', { name: 'Share this notebook' }).getByLabel('Link to this notebook').waitFor();
     await original.reload();
     const link = original.getByTestId('forks').getByRole('link').first();

@@ -70,9 +70,7 @@ export function csrfCheck(publicUrl: string | null): RequestHandler {
     const cookie = readCookie(req, CSRF_COOKIE);
     const header = req.get(CSRF_HEADER);
     if (!cookie || !header || !sameToken(cookie, header)) {
-      return next(
-        forbidden(`Missing or wrong CSRF token: send the value of the ${CSRF_COOKIE} cookie in the ${CSRF_HEADER} header.`),
-      );
+      return next(forbidden(`Missing or wrong CSRF token: send the value of the ${CSRF_COOKIE} cookie in the ${CSRF_HEADER} header.`));
     }
     next();
   };

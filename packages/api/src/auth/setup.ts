@@ -67,21 +67,24 @@ export function createAuth(config: AuthConfig, database: () => Promise<DataSourc
       userAgent: 'rolloff',
       store: cookieStateStore,
     } as unknown as StrategyOptions;
-    const strategy = new GitHubStrategy(options, (_access: string, _refresh: string, profile: GithubProfile, done: (error: unknown, user?: Express.User | false, info?: { message: string }) => void) => {
-      const identity: GithubIdentity = {
-        githubId: String(profile.id),
-        login: profile.username ?? '',
-        name: profile.displayName ?? '',
-        email: profile.emails?.[0]?.value ?? null,
-      };
-      if (!identity.login) return done(null, false, { message: 'no-login' });
-      database()
-        .then((db) => recordSignIn(db, identity, config.adminLogins))
-        .then((result) => {
-          if ('refused' in result) done(null, false, { message: result.refused });
-          else done(null, sessionUser(result.user));
-        }, done);
-    });
+    const strategy = new GitHubStrategy(
+      options,
+      (_access: string, _refresh: string, profile: GithubProfile, done: (error: unknown, user?: Express.User | false, info?: { message: string }) => void) => {
+        const identity: GithubIdentity = {
+          githubId: String(profile.id),
+          login: profile.username ?? '',
+          name: profile.displayName ?? '',
+          email: profile.emails?.[0]?.value ?? null,
+        };
+        if (!identity.login) return done(null, false, { message: 'no-login' });
+        database()
+          .then((db) => recordSignIn(db, identity, config.adminLogins))
+          .then((result) => {
+            if ('refused' in result) done(null, false, { message: result.refused });
+            else done(null, sessionUser(result.user));
+          }, done);
+      },
+    );
     // GitHub's authorize page takes `login` to suggest an account; the stand-in signs in as it.
     strategy.authorizationParams = (params: { login?: string }) => (params.login ? { login: params.login } : {});
     authenticator.use('github', strategy);

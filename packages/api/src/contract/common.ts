@@ -34,16 +34,7 @@ export const LIMITS = {
   reviewersPerRequest: 20,
 } as const;
 
-export const ErrorIdSchema = z.enum([
-  'not_found',
-  'validation',
-  'conflict',
-  'unauthenticated',
-  'forbidden',
-  'too_large',
-  'unavailable',
-  'internal',
-]);
+export const ErrorIdSchema = z.enum(['not_found', 'validation', 'conflict', 'unauthenticated', 'forbidden', 'too_large', 'unavailable', 'internal']);
 export type ErrorId = z.infer<typeof ErrorIdSchema>;
 
 /** One zod issue of a refused request: `path` names the field (`cells.3.text`, `title`). */
@@ -148,10 +139,7 @@ export const CellTextSchema = z.string().refine((text) => utf8Length(text) <= LI
  * Markdown written by a person (a comment, a review message or summary): trimmed, at most
  * 10 000 characters. Stored and sent as written; the web renders it without raw HTML.
  */
-export const MarkdownSchema = z
-  .string()
-  .trim()
-  .max(LIMITS.markdownLength, `Markdown text has at most ${LIMITS.markdownLength} characters.`);
+export const MarkdownSchema = z.string().trim().max(LIMITS.markdownLength, `Markdown text has at most ${LIMITS.markdownLength} characters.`);
 
 /** Query of a paged list: `cursor` is opaque (the previous page's `nextCursor`). */
 export const PageQuerySchema = z.object({

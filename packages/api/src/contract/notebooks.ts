@@ -1,14 +1,5 @@
 import { z } from 'zod';
-import {
-  CellTextSchema,
-  DescriptionSchema,
-  LIMITS,
-  NotebookIdSchema,
-  PageQuerySchema,
-  TimestampSchema,
-  TitleSchema,
-  UserRefSchema,
-} from './common.js';
+import { CellTextSchema, DescriptionSchema, LIMITS, NotebookIdSchema, PageQuerySchema, TimestampSchema, TitleSchema, UserRefSchema } from './common.js';
 import { CellKindSchema, CellSchema } from './cells.js';
 import { ReviewStatusSchema } from './reviews.js';
 import { VersionRefSchema } from './versions.js';

@@ -92,7 +92,10 @@ export function addedToNotebookMail(context: MailContext, input: { by: string; r
   return {
     subject: `You were added to ${quoted(context.notebook.title)}`,
     text:
-      [`${input.by} gave you the ${input.role} role in ${quoted(context.notebook.title)}: you may ${can}.`, '', `Open the notebook: ${notebookLink(context)}`].join('\n') +
-      footer(context, 'You get this because someone shared a notebook with you.'),
+      [
+        `${input.by} gave you the ${input.role} role in ${quoted(context.notebook.title)}: you may ${can}.`,
+        '',
+        `Open the notebook: ${notebookLink(context)}`,
+      ].join('\n') + footer(context, 'You get this because someone shared a notebook with you.'),
   };
 }

@@ -44,7 +44,10 @@ describe('mail that cannot be delivered', () => {
     expect(during.every((row) => row.status === 'queued')).toBe(true);
 
     await dead.notifier.idle();
-    const rows: LogRow[] = await db.query('SELECT toAddress, kind, notebookId, status, attempts, error, subject, finishedAt FROM mail_log WHERE toAddress = ?', [reviewer.email]);
+    const rows: LogRow[] = await db.query(
+      'SELECT toAddress, kind, notebookId, status, attempts, error, subject, finishedAt FROM mail_log WHERE toAddress = ?',
+      [reviewer.email],
+    );
     expect(rows).toEqual([
       {
         toAddress: reviewer.email,

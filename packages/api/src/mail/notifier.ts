@@ -80,10 +80,12 @@ export function createNotifier({ smtp, database, retryDelays }: NotifierOptions)
         const id = await logIds.get(mail);
         if (id === null || id === undefined) return;
         const db = await database();
-        await db.getRepository(MailLogEntry).update(
-          { id },
-          { status: outcome.ok ? 'sent' : 'failed', attempts: outcome.attempts, error: outcome.error?.slice(0, 1000) ?? null, finishedAt: new Date() },
-        );
+        await db
+          .getRepository(MailLogEntry)
+          .update(
+            { id },
+            { status: outcome.ok ? 'sent' : 'failed', attempts: outcome.attempts, error: outcome.error?.slice(0, 1000) ?? null, finishedAt: new Date() },
+          );
       });
     },
   });
@@ -145,14 +147,19 @@ export function createNotifier({ smtp, database, retryDelays }: NotifierOptions)
   return {
     reviewRequested(event) {
       const { review } = event;
-      notify(event, review.notebookId, 'reviewRequests', async () => event.askedIds, (context) =>
-        reviewRequestedMail(context, {
-          reviewId: review.id,
-          round: review.round,
-          version: review.version,
-          requester: displayName(event.by),
-          message: review.message,
-        }),
+      notify(
+        event,
+        review.notebookId,
+        'reviewRequests',
+        async () => event.askedIds,
+        (context) =>
+          reviewRequestedMail(context, {
+            reviewId: review.id,
+            round: review.round,
+            version: review.version,
+            requester: displayName(event.by),
+            message: review.message,
+          }),
       );
     },
     reviewDecided(event) {
@@ -176,20 +183,31 @@ export function createNotifier({ smtp, database, retryDelays }: NotifierOptions)
     pinReplied(event) {
       const { pin, comment } = event;
       const earlier = pin.comments.filter((c) => c.id !== comment.id && c.author).map((c) => c.author!.id);
-      notify(event, pin.notebookId, 'pinReplies', async () => earlier, async (context, manager) =>
-        pinReplyMail(context, {
-          pinId: pin.id,
-          cell: await mailCellName(manager, pin.cellId),
-          revisionNumber: pin.revisionNumber,
-          trace: pin.trace,
-          frequency: pin.frequency,
-          author: displayName(event.by),
-          body: comment.body,
-        }),
+      notify(
+        event,
+        pin.notebookId,
+        'pinReplies',
+        async () => earlier,
+        async (context, manager) =>
+          pinReplyMail(context, {
+            pinId: pin.id,
+            cell: await mailCellName(manager, pin.cellId),
+            revisionNumber: pin.revisionNumber,
+            trace: pin.trace,
+            frequency: pin.frequency,
+            author: displayName(event.by),
+            body: comment.body,
+          }),
       );
     },
     memberAdded(event) {
-      notify(event, event.notebookId, 'addedToNotebook', async () => [event.userId], (context) => addedToNotebookMail(context, { by: displayName(event.by), role: event.role }));
+      notify(
+        event,
+        event.notebookId,
+        'addedToNotebook',
+        async () => [event.userId],
+        (context) => addedToNotebookMail(context, { by: displayName(event.by), role: event.role }),
+      );
     },
     async idle() {
       while (tasks.size > 0) await Promise.allSettled([...tasks]);

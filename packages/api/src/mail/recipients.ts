@@ -50,19 +50,30 @@ const columnOf: Record<MailKind, string> = {
 };
 
 /** The people among `userIds` (each once, `exceptId` left out) who should get mail of `kind`. */
-export async function recipientsAmong(manager: EntityManager, notebook: MailNotebook, userIds: number[], kind: MailKind, exceptId: number): Promise<Recipient[]> {
+export async function recipientsAmong(
+  manager: EntityManager,
+  notebook: MailNotebook,
+  userIds: number[],
+  kind: MailKind,
+  exceptId: number,
+): Promise<Recipient[]> {
   const ids = [...new Set(userIds)].filter((id) => id !== exceptId);
   if (ids.length === 0) return [];
-  const rows: (Recipient & { email: string | null; siteRole: 'admin' | 'member'; disabled: number; memberRole: NotebookAccess['memberRole']; wants: number | null })[] =
-    await manager.query(
-      `SELECT u.id, u.login, u.name, u.email, u.siteRole, u.disabled, m.role AS memberRole, ${columnOf[kind]} AS wants
+  const rows: (Recipient & {
+    email: string | null;
+    siteRole: 'admin' | 'member';
+    disabled: number;
+    memberRole: NotebookAccess['memberRole'];
+    wants: number | null;
+  })[] = await manager.query(
+    `SELECT u.id, u.login, u.name, u.email, u.siteRole, u.disabled, m.role AS memberRole, ${columnOf[kind]} AS wants
          FROM users u
          LEFT JOIN notebook_members m ON m.notebookId = ? AND m.userId = u.id
          LEFT JOIN user_mail_settings s ON s.userId = u.id
         WHERE u.id IN (?)
         ORDER BY u.id`,
-      [notebook.id, ids],
-    );
+    [notebook.id, ids],
+  );
   return rows
     .filter((row) => row.email && row.wants !== 0)
     .filter((row) => can({ id: row.id, siteRole: row.siteRole, disabled: Boolean(row.disabled) }, 'read', { ...notebook, memberRole: row.memberRole }))

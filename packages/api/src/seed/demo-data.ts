@@ -27,7 +27,10 @@ export async function seedDemoData(db: DataSource): Promise<'loaded' | 'already-
     const done = await manager.query('SELECT value FROM app_state WHERE name = ? FOR UPDATE', [marker]);
     if (done.length > 0) return 'already-loaded';
     if ((await manager.count(User, { where: { login: Not(SYSTEM_USER.login) } })) > 0) return 'has-user-data';
-    await manager.insert(User, demoUsers.map((user) => ({ ...user })));
+    await manager.insert(
+      User,
+      demoUsers.map((user) => ({ ...user })),
+    );
     await loadNotebooks(manager);
     await manager.query('INSERT INTO app_state (name, value) VALUES (?, ?)', [marker, new Date().toISOString()]);
     return 'loaded';
@@ -73,18 +76,34 @@ async function loadNotebook(manager: EntityManager, demo: DemoNotebook, actor: (
     }
   }
   for (const version of demo.versions) await createVersion(manager, actor(version.by), notebook.id, version.label);
-  if (demo.review) await loadReview(manager, notebook.id, notebook.cells.map((cell) => cell.id), demo.review, actor);
+  if (demo.review)
+    await loadReview(
+      manager,
+      notebook.id,
+      notebook.cells.map((cell) => cell.id),
+      demo.review,
+      actor,
+    );
   if (demo.visibility === 'link') await updateNotebook(manager, owner, notebook.id, { visibility: 'link' });
   return notebook.id;
 }
 
 async function loadReview(manager: EntityManager, notebookId: string, cellIds: number[], demo: DemoReview, actor: (login: string) => Actor): Promise<void> {
-  const { review } = await requestReview(manager, actor(demo.by), notebookId, { reviewerIds: demo.reviewers.map((login) => actor(login).id), message: demo.message });
+  const { review } = await requestReview(manager, actor(demo.by), notebookId, {
+    reviewerIds: demo.reviewers.map((login) => actor(login).id),
+    message: demo.message,
+  });
   for (const pin of demo.pins) {
-    const made = await createPin(manager, actor(pin.by), notebookId, { cellId: cellIds[pin.cell]!, trace: pin.trace, frequency: pin.frequency, body: pin.text });
+    const made = await createPin(manager, actor(pin.by), notebookId, {
+      cellId: cellIds[pin.cell]!,
+      trace: pin.trace,
+      frequency: pin.frequency,
+      body: pin.text,
+    });
     for (const reply of pin.replies) await addPinComment(manager, actor(reply.by), notebookId, made.id, reply.text);
   }
-  for (const decision of demo.decisions) await decideReview(manager, actor(decision.by), notebookId, review.id, { state: decision.state, summary: decision.summary });
+  for (const decision of demo.decisions)
+    await decideReview(manager, actor(decision.by), notebookId, review.id, { state: decision.state, summary: decision.summary });
 }
 
 /**
@@ -94,14 +113,12 @@ async function loadReview(manager: EntityManager, notebookId: string, cellIds: n
  */
 async function backdate(manager: EntityManager, notebookId: string, days: number): Promise<void> {
   const shift = (column: string) => `${column} = ${column} - INTERVAL ${Number(days)} DAY`;
-  await manager.query(
-    `UPDATE notebooks SET createdAt = createdAt - INTERVAL ${Number(days)} DAY - INTERVAL 6 HOUR, ${shift('updatedAt')} WHERE id = ?`,
-    [notebookId],
-  );
-  await manager.query(
-    `UPDATE cells SET createdAt = createdAt - INTERVAL ${Number(days)} DAY - INTERVAL 6 HOUR, ${shift('updatedAt')} WHERE notebookId = ?`,
-    [notebookId],
-  );
+  await manager.query(`UPDATE notebooks SET createdAt = createdAt - INTERVAL ${Number(days)} DAY - INTERVAL 6 HOUR, ${shift('updatedAt')} WHERE id = ?`, [
+    notebookId,
+  ]);
+  await manager.query(`UPDATE cells SET createdAt = createdAt - INTERVAL ${Number(days)} DAY - INTERVAL 6 HOUR, ${shift('updatedAt')} WHERE notebookId = ?`, [
+    notebookId,
+  ]);
   await manager.query(
     `UPDATE cell_revisions r JOIN cells c ON c.id = r.cellId
         SET r.createdAt = r.createdAt - INTERVAL ${Number(days)} DAY - INTERVAL ((c.revision - r.number) * 90) MINUTE

@@ -5,7 +5,11 @@ import { demoCircuits, demoFork, demoNotebooks } from './demo-notebooks.js';
 const everyCircuit = [
   ...Object.entries(demoCircuits),
   ...demoNotebooks.flatMap((notebook) =>
-    notebook.cells.filter((cell) => cell.kind === 'circuit').flatMap((cell, index) => [cell.text, ...(cell.edits ?? []).map((edit) => edit.text)].map((text) => [`${notebook.key} circuit ${index + 1}`, text] as const)),
+    notebook.cells
+      .filter((cell) => cell.kind === 'circuit')
+      .flatMap((cell, index) =>
+        [cell.text, ...(cell.edits ?? []).map((edit) => edit.text)].map((text) => [`${notebook.key} circuit ${index + 1}`, text] as const),
+      ),
   ),
   ['fork edit', demoFork.edit.text] as const,
 ];
@@ -16,7 +20,7 @@ describe('the demo circuits', () => {
     expect(errors).toEqual([]);
   });
 
-  it.each(everyCircuit)('%s is written in today\'s forms already', (_name, text) => {
+  it.each(everyCircuit)("%s is written in today's forms already", (_name, text) => {
     expect(modernizeCellText(text)).toEqual({ text, changed: false });
   });
 

@@ -365,7 +365,8 @@ stays near 43 dB. Tobias will measure the first boards on the bench next week.`,
     review: {
       by: 'ines.carvalho',
       reviewers: ['kenji.arai'],
-      message: 'The fourth-order filter (Circuit 4) and its snapped values (Circuit 5). Mostly the stopband at 14 kHz, please: that is where we have the least room.',
+      message:
+        'The fourth-order filter (Circuit 4) and its snapped values (Circuit 5). Mostly the stopband at 14 kHz, please: that is where we have the least room.',
       pins: [
         {
           by: 'kenji.arai',
@@ -373,7 +374,12 @@ stays near 43 dB. Tobias will measure the first boards on the bench next week.`,
           trace: 'converter pin',
           frequency: 14_000,
           text: 'About 43 dB down here with every part at its nominal value. How much of the 3 dB of room is left with 5 % capacitors?',
-          replies: [{ by: 'ines.carvalho', text: 'Fair question. Circuit 5 now carries a spread over the tolerances; I will post the worst draw next to the bench figures.' }],
+          replies: [
+            {
+              by: 'ines.carvalho',
+              text: 'Fair question. Circuit 5 now carries a spread over the tolerances; I will post the worst draw next to the bench figures.',
+            },
+          ],
         },
         {
           by: 'kenji.arai',

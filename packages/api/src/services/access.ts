@@ -61,7 +61,13 @@ export async function lockNotebook(manager: EntityManager, id: string): Promise<
  * 403 when they may read but not do this). With `lock`, the row lock is taken first, so the
  * rest of the transaction sees every change committed before it.
  */
-export async function loadNotebookFor(manager: EntityManager, actor: Actor, id: string, action: NotebookAction, options: { lock?: boolean } = {}): Promise<NotebookRow> {
+export async function loadNotebookFor(
+  manager: EntityManager,
+  actor: Actor,
+  id: string,
+  action: NotebookAction,
+  options: { lock?: boolean } = {},
+): Promise<NotebookRow> {
   if (!NotebookIdSchema.safeParse(id).success) throw notFound('The notebook');
   if (options.lock) await lockNotebook(manager, id);
   const row = await notebookRow(manager, id, actor.id);

@@ -33,10 +33,20 @@ const sources: Record<ActivityKind, { from: string; at: string; sortKey: string;
     from: `pin_comments pc JOIN pins p ON p.id = pc.pinId
            WHERE p.notebookId = ? AND pc.id > (SELECT MIN(f.id) FROM pin_comments f WHERE f.pinId = pc.pinId)`,
   },
-  fork: { at: 'f.createdAt', sortKey: 'CONVERT(LEFT(SHA2(f.id, 256), 12) USING ascii) COLLATE ascii_bin', ref: 'f.id', from: 'notebooks f WHERE f.forkedFromId = ?' },
+  fork: {
+    at: 'f.createdAt',
+    sortKey: 'CONVERT(LEFT(SHA2(f.id, 256), 12) USING ascii) COLLATE ascii_bin',
+    ref: 'f.id',
+    from: 'notebooks f WHERE f.forkedFromId = ?',
+  },
   pin: { at: 'p.createdAt', sortKey: key('p.id'), ref: 'p.id', from: 'pins p WHERE p.notebookId = ?' },
   pin_resolved: { at: 'p.resolvedAt', sortKey: key('p.id'), ref: 'p.id', from: 'pins p WHERE p.notebookId = ? AND p.resolvedAt IS NOT NULL' },
-  review_decision: { at: 'd.createdAt', sortKey: key('d.id'), ref: 'd.id', from: 'review_decisions d JOIN reviews rv ON rv.id = d.reviewId WHERE rv.notebookId = ?' },
+  review_decision: {
+    at: 'd.createdAt',
+    sortKey: key('d.id'),
+    ref: 'd.id',
+    from: 'review_decisions d JOIN reviews rv ON rv.id = d.reviewId WHERE rv.notebookId = ?',
+  },
   review_requested: { at: 'rv.createdAt', sortKey: key('rv.id'), ref: 'rv.id', from: 'reviews rv WHERE rv.notebookId = ?' },
   revision: { at: 'r.createdAt', sortKey: key('r.id'), ref: 'r.id', from: 'cell_revisions r JOIN cells c ON c.id = r.cellId WHERE c.notebookId = ?' },
   version: { at: 'v.createdAt', sortKey: key('v.id'), ref: 'v.id', from: 'notebook_versions v WHERE v.notebookId = ?' },
@@ -114,7 +124,13 @@ interface PinRefColumns {
   trace: string;
   frequency: number;
 }
-const pinRef = (row: PinRefColumns) => ({ id: row.pinId, cellId: row.cellId, revisionNumber: row.revisionNumber, trace: row.trace, frequency: Number(row.frequency) });
+const pinRef = (row: PinRefColumns) => ({
+  id: row.pinId,
+  cellId: row.cellId,
+  revisionNumber: row.revisionNumber,
+  trace: row.trace,
+  frequency: Number(row.frequency),
+});
 
 /** Loads what each entry of the page is about, kind by kind, and builds the entries in page order. */
 async function details(manager: EntityManager, actor: Actor, page: PageRow[]): Promise<ActivityItem[]> {
@@ -133,7 +149,9 @@ async function details(manager: EntityManager, actor: Actor, page: PageRow[]): P
     `SELECT v.id, v.number, v.label, ${actorCols} FROM notebook_versions v ${users} = v.authorId WHERE v.id IN (?)`,
     idsOf('version'),
   );
-  const pins = await rowsById<ActorColumns & PinRefColumns & { id: number; body: string; resolvedById: number | null; resolverLogin: string | null; resolverName: string | null }>(
+  const pins = await rowsById<
+    ActorColumns & PinRefColumns & { id: number; body: string; resolvedById: number | null; resolverLogin: string | null; resolverName: string | null }
+  >(
     manager,
     `SELECT p.id, ${pinCols}, ${actorCols}, fc.body, p.resolvedById, ru.login AS resolverLogin, ru.name AS resolverName
        FROM pins p ${users} = p.createdById LEFT JOIN users ru ON ru.id = p.resolvedById
@@ -159,7 +177,9 @@ async function details(manager: EntityManager, actor: Actor, page: PageRow[]): P
           `SELECT a.reviewId, u.id, u.login, u.name FROM review_assignments a JOIN users u ON u.id = a.reviewerId WHERE a.reviewId IN (?) ORDER BY a.createdAt, a.reviewerId`,
           [[...requests.keys()].map(Number)],
         );
-  const decisions = await rowsById<ActorColumns & { id: number; reviewId: number; round: number; versionNumber: number; state: DecisionState; summary: string }>(
+  const decisions = await rowsById<
+    ActorColumns & { id: number; reviewId: number; round: number; versionNumber: number; state: DecisionState; summary: string }
+  >(
     manager,
     `SELECT d.id, ${reviewCols}, d.state, d.summary, ${actorCols}
        FROM review_decisions d JOIN reviews rv ON rv.id = d.reviewId JOIN notebook_versions v ON v.id = rv.versionId ${users} = d.reviewerId
@@ -189,7 +209,12 @@ async function details(manager: EntityManager, actor: Actor, page: PageRow[]): P
       }
       case 'fork': {
         const f = forks.get(id) ?? null;
-        items.push({ ...base, kind: 'fork', actor: f ? { id: f.ownerId, login: f.ownerLogin, name: f.ownerName } : null, fork: f ? { id: f.id, title: f.title } : null });
+        items.push({
+          ...base,
+          kind: 'fork',
+          actor: f ? { id: f.ownerId, login: f.ownerLogin, name: f.ownerName } : null,
+          fork: f ? { id: f.id, title: f.title } : null,
+        });
         break;
       }
       case 'pin': {
@@ -210,12 +235,26 @@ async function details(manager: EntityManager, actor: Actor, page: PageRow[]): P
       case 'review_requested': {
         const q = requests.get(id)!;
         const reviewers = askedRows.filter((a) => a.reviewId === q.reviewId).map((a) => ({ id: a.id, login: a.login, name: a.name }));
-        items.push({ ...base, kind: 'review_requested', actor: author(q), review: { id: q.reviewId, round: q.round, versionNumber: q.versionNumber }, reviewers, excerpt: excerptOf(q.message) });
+        items.push({
+          ...base,
+          kind: 'review_requested',
+          actor: author(q),
+          review: { id: q.reviewId, round: q.round, versionNumber: q.versionNumber },
+          reviewers,
+          excerpt: excerptOf(q.message),
+        });
         break;
       }
       case 'review_decision': {
         const d = decisions.get(id)!;
-        items.push({ ...base, kind: 'review_decision', actor: author(d), review: { id: d.reviewId, round: d.round, versionNumber: d.versionNumber }, state: d.state, excerpt: excerptOf(d.summary) });
+        items.push({
+          ...base,
+          kind: 'review_decision',
+          actor: author(d),
+          review: { id: d.reviewId, round: d.round, versionNumber: d.versionNumber },
+          state: d.state,
+          excerpt: excerptOf(d.summary),
+        });
         break;
       }
     }

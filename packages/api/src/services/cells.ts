@@ -75,10 +75,7 @@ const revisionColumns = `
 
 /** Live and deleted cells of a notebook: live ones in order first, then deleted, newest first. */
 export async function cellsOf(manager: EntityManager, notebookId: string): Promise<CellRow[]> {
-  return manager.query(
-    `${cellSelect} WHERE c.notebookId = ? ORDER BY c.deletedAt IS NOT NULL, c.position, c.deletedAt DESC, c.id`,
-    [notebookId],
-  );
+  return manager.query(`${cellSelect} WHERE c.notebookId = ? ORDER BY c.deletedAt IS NOT NULL, c.position, c.deletedAt DESC, c.id`, [notebookId]);
 }
 
 async function cellRow(manager: EntityManager, notebookId: string, cellId: number): Promise<CellRow | null> {
@@ -158,17 +155,19 @@ async function cellWithHistory(manager: EntityManager, actor: Actor, notebook: N
 }
 
 /** `POST …/cells`: a new cell at `position` (default: the end), shifting the cells after it. */
-export async function createCell(db: Database, actor: Actor, notebookId: string, input: { kind: 'circuit' | 'note'; position?: number; text: string }): Promise<CellSaved> {
+export async function createCell(
+  db: Database,
+  actor: Actor,
+  notebookId: string,
+  input: { kind: 'circuit' | 'note'; position?: number; text: string },
+): Promise<CellSaved> {
   const diagnostics = checkCell(input.kind, input.text);
   return inTransaction(db, async (manager) => {
     await loadNotebookFor(manager, actor, notebookId, 'edit', { lock: true });
     const count = await liveCount(manager, notebookId);
     requireRoom(count, 1);
     const position = Math.min(input.position ?? count, count);
-    await manager.query(
-      'UPDATE cells SET position = position + 1 WHERE notebookId = ? AND deletedAt IS NULL AND position >= ?',
-      [notebookId, position],
-    );
+    await manager.query('UPDATE cells SET position = position + 1 WHERE notebookId = ? AND deletedAt IS NULL AND position >= ?', [notebookId, position]);
     const now = new Date();
     const cellId = await insertCell(manager, { notebookId, kind: input.kind, position, text: input.text, authorId: actor.id, diagnostics, now });
     await touchNotebook(manager, notebookId, now);
@@ -265,10 +264,7 @@ async function renumber(manager: EntityManager, order: { id: number; position: n
 }
 
 async function liveOrder(manager: EntityManager, notebookId: string): Promise<{ id: number; position: number }[]> {
-  return manager.query(
-    'SELECT id, position FROM cells WHERE notebookId = ? AND deletedAt IS NULL ORDER BY position, id FOR UPDATE',
-    [notebookId],
-  );
+  return manager.query('SELECT id, position FROM cells WHERE notebookId = ? AND deletedAt IS NULL ORDER BY position, id FOR UPDATE', [notebookId]);
 }
 
 /** `POST …/cells/:cellId/move`: puts a live cell at `position` (clamped to the end). */
@@ -323,12 +319,19 @@ export async function restoreCell(db: Database, actor: Actor, notebookId: string
 
 function revisionCursor(cursor: string | undefined): number | null {
   if (cursor === undefined) return null;
-  if (!/^[1-9]\d{0,9}$/.test(cursor)) throw validation('query.cursor: not a cursor of this list.', { issues: [{ path: 'query.cursor', message: 'not a cursor of this list' }] });
+  if (!/^[1-9]\d{0,9}$/.test(cursor))
+    throw validation('query.cursor: not a cursor of this list.', { issues: [{ path: 'query.cursor', message: 'not a cursor of this list' }] });
   return Number(cursor);
 }
 
 /** `GET …/cells/:cellId/revisions`: newest first, `limit` at a time. */
-export async function listRevisions(db: Database, actor: Actor, notebookId: string, cellId: number, page: { cursor?: string; limit: number }): Promise<CellRevisionList> {
+export async function listRevisions(
+  db: Database,
+  actor: Actor,
+  notebookId: string,
+  cellId: number,
+  page: { cursor?: string; limit: number },
+): Promise<CellRevisionList> {
   const before = revisionCursor(page.cursor);
   const manager = managerOf(db);
   const notebook = await loadNotebookFor(manager, actor, notebookId, 'read');
@@ -363,7 +366,14 @@ export async function getRevision(db: Database, actor: Actor, notebookId: string
  * revision on `baseRevision`, so history only grows. A circuit cell's old text is brought to
  * today's language forms on the way, as the language update did for every current text.
  */
-export async function restoreRevision(db: Database, actor: Actor, notebookId: string, cellId: number, number: number, input: { baseRevision: number }): Promise<SaveOutcome> {
+export async function restoreRevision(
+  db: Database,
+  actor: Actor,
+  notebookId: string,
+  cellId: number,
+  number: number,
+  input: { baseRevision: number },
+): Promise<SaveOutcome> {
   const manager = managerOf(db);
   await loadNotebookFor(manager, actor, notebookId, 'edit');
   const old: { kind: 'circuit' | 'note'; text: string }[] = await manager.query(

@@ -39,7 +39,12 @@ export async function forkNotebook(db: Database, actor: Actor, sourceId: string,
     if (input.version !== undefined) {
       const version = await versionRow(manager, sourceId, input.version);
       versionId = version.id;
-      cells = (await versionCells(manager, version.id)).map((c) => ({ kind: c.kind, title: c.title, text: c.text, diagnostics: counts(c.diagnosticErrors, c.diagnosticWarnings) }));
+      cells = (await versionCells(manager, version.id)).map((c) => ({
+        kind: c.kind,
+        title: c.title,
+        text: c.text,
+        diagnostics: counts(c.diagnosticErrors, c.diagnosticWarnings),
+      }));
     } else {
       cells = (await cellsOf(manager, sourceId))
         .filter((c) => c.deletedAt === null)

@@ -35,7 +35,13 @@ export async function listMembers(db: Database, actor: Actor, notebookId: string
 }
 
 /** `PUT /api/notebooks/:id/members/:userId` (owner): adds the person or changes their role. */
-export async function putMember(db: Database, actor: Actor, notebookId: string, userId: number, role: 'editor' | 'reviewer' | 'viewer'): Promise<{ created: boolean; member: Member }> {
+export async function putMember(
+  db: Database,
+  actor: Actor,
+  notebookId: string,
+  userId: number,
+  role: 'editor' | 'reviewer' | 'viewer',
+): Promise<{ created: boolean; member: Member }> {
   return inTransaction(db, async (manager) => {
     const notebook = await loadNotebookFor(manager, actor, notebookId, 'share', { lock: true });
     if (userId === notebook.ownerId) throw validation('The owner already has every right in the notebook; give a role to someone else.');

@@ -69,7 +69,11 @@ function decodeCursor(cursor: string, sort: NotebookSort, order: SortOrder): { k
  * only rows past it (with its parameters). Ties on the sort key fall back to the id, in the
  * same direction, so every row has exactly one place.
  */
-export function listOrder(sort: NotebookSort, order: SortOrder, cursor: string | undefined): { orderBy: string; after: { sql: string; params: unknown[] } | null } {
+export function listOrder(
+  sort: NotebookSort,
+  order: SortOrder,
+  cursor: string | undefined,
+): { orderBy: string; after: { sql: string; params: unknown[] } | null } {
   const column = columns[sort];
   const direction = order === 'asc' ? 'ASC' : 'DESC';
   const orderBy = `${column} ${direction}, n.id ${direction}`;

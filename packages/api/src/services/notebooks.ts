@@ -169,7 +169,16 @@ export async function insertNotebook(
     deletedAt: null,
   });
   for (const [position, cell] of seed.cells.entries()) {
-    await insertCell(manager, { notebookId: id, kind: cell.kind, title: cell.title ?? null, position, text: cell.text, authorId: actor.id, diagnostics: seed.diagnostics[position] ?? null, now });
+    await insertCell(manager, {
+      notebookId: id,
+      kind: cell.kind,
+      title: cell.title ?? null,
+      position,
+      text: cell.text,
+      authorId: actor.id,
+      diagnostics: seed.diagnostics[position] ?? null,
+      now,
+    });
     await afterCell?.(position);
   }
   return id;

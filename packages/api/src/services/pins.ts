@@ -61,7 +61,12 @@ const commentSelect = `
 async function present(manager: EntityManager, rows: PinRow[]): Promise<Pin[]> {
   if (rows.length === 0) return [];
   const comments: PinCommentRow[] = await manager.query(`${commentSelect} WHERE pc.pinId IN (?) ORDER BY pc.createdAt, pc.id`, [rows.map((row) => row.id)]);
-  return rows.map((row) => presentPin(row, comments.filter((comment) => comment.pinId === row.id)));
+  return rows.map((row) =>
+    presentPin(
+      row,
+      comments.filter((comment) => comment.pinId === row.id),
+    ),
+  );
 }
 
 async function pinOf(manager: EntityManager, notebookId: string, pinId: number): Promise<Pin> {
@@ -105,7 +110,10 @@ export async function createPin(
     if (revisionNumber > cell.revision) {
       throw fieldError('revisionNumber', `${name} has no revision ${revisionNumber}; its latest is revision ${cell.revision}.`);
     }
-    const revisions: { text: string }[] = await manager.query('SELECT text FROM cell_revisions WHERE cellId = ? AND number = ?', [input.cellId, revisionNumber]);
+    const revisions: { text: string }[] = await manager.query('SELECT text FROM cell_revisions WHERE cellId = ? AND number = ?', [
+      input.cellId,
+      revisionNumber,
+    ]);
     const traces = shownTraces(revisions[0]?.text ?? '');
     if (!traces) throw fieldError('revisionNumber', `Revision ${revisionNumber} of ${name} has errors, so it shows no trace to pin on.`);
     if (!traces.includes(input.trace)) {

@@ -141,7 +141,10 @@ export async function reviewStatusOf(manager: EntityManager, notebookId: string)
   const latest = rows[0];
   if (!latest) return null;
   const states: { state: AssignmentRow['state'] }[] = await manager.query('SELECT state FROM review_assignments WHERE reviewId = ?', [latest.id]);
-  return presentReviewStatus(latest, states.map((s) => s.state));
+  return presentReviewStatus(
+    latest,
+    states.map((s) => s.state),
+  );
 }
 
 /** Keeps the first of each id, in the order given. */
@@ -177,9 +180,14 @@ async function checkReviewers(manager: EntityManager, actor: Actor, notebook: No
 /** The version to review: the one asked for, or the latest (a new one if the notebook changed since). */
 async function versionToReview(manager: EntityManager, actor: Actor, notebookId: string, number: number | undefined): Promise<{ id: number; number: number }> {
   if (number !== undefined) {
-    const rows: { id: number; number: number }[] = await manager.query('SELECT id, number FROM notebook_versions WHERE notebookId = ? AND number = ?', [notebookId, number]);
+    const rows: { id: number; number: number }[] = await manager.query('SELECT id, number FROM notebook_versions WHERE notebookId = ? AND number = ?', [
+      notebookId,
+      number,
+    ]);
     if (!rows[0]) {
-      throw validation(`versionNumber: this notebook has no version ${number}.`, { issues: [{ path: 'versionNumber', message: `This notebook has no version ${number}.` }] });
+      throw validation(`versionNumber: this notebook has no version ${number}.`, {
+        issues: [{ path: 'versionNumber', message: `This notebook has no version ${number}.` }],
+      });
     }
     return rows[0];
   }
@@ -189,7 +197,10 @@ async function versionToReview(manager: EntityManager, actor: Actor, notebookId:
   );
   if (latest[0] && !(await changedSinceVersion(manager, notebookId, latest[0].id))) return latest[0];
   const made = await insertVersion(manager, actor, notebookId, reviewVersionLabel);
-  const rows: { id: number; number: number }[] = await manager.query('SELECT id, number FROM notebook_versions WHERE notebookId = ? AND number = ?', [notebookId, made]);
+  const rows: { id: number; number: number }[] = await manager.query('SELECT id, number FROM notebook_versions WHERE notebookId = ? AND number = ?', [
+    notebookId,
+    made,
+  ]);
   return rows[0]!;
 }
 
@@ -229,7 +240,10 @@ export async function requestReview(
       if (askedIds.length === 0) {
         throw conflict(`Everyone named is already asked to review version ${version.number} in round ${current.round}.`);
       }
-      await manager.insert(ReviewAssignment, askedIds.map((reviewerId) => ({ reviewId: current.id, reviewerId, state: 'requested' as const, summary: '', createdAt: now, decidedAt: null })));
+      await manager.insert(
+        ReviewAssignment,
+        askedIds.map((reviewerId) => ({ reviewId: current.id, reviewerId, state: 'requested' as const, summary: '', createdAt: now, decidedAt: null })),
+      );
       return { created: false, review: await presentOne(manager, notebookId, current.id), askedIds };
     }
     if (current && current.versionNumber > version.number) {
@@ -239,9 +253,19 @@ export async function requestReview(
     }
 
     const round = (current?.round ?? 0) + 1;
-    const inserted = await manager.insert(ReviewEntity, { notebookId, round, versionId: version.id, requestedById: actor.id, message: input.message, createdAt: now });
+    const inserted = await manager.insert(ReviewEntity, {
+      notebookId,
+      round,
+      versionId: version.id,
+      requestedById: actor.id,
+      message: input.message,
+      createdAt: now,
+    });
     const reviewId = Number(inserted.identifiers[0]?.id);
-    await manager.insert(ReviewAssignment, reviewerIds.map((reviewerId) => ({ reviewId, reviewerId, state: 'requested' as const, summary: '', createdAt: now, decidedAt: null })));
+    await manager.insert(
+      ReviewAssignment,
+      reviewerIds.map((reviewerId) => ({ reviewId, reviewerId, state: 'requested' as const, summary: '', createdAt: now, decidedAt: null })),
+    );
     return { created: true, review: await presentOne(manager, notebookId, reviewId), askedIds: reviewerIds };
   });
 }

@@ -114,9 +114,9 @@ export async function updateUser(db: Database, actor: Actor, userId: number, inp
 /** `GET /api/users?q=`: active people whose login or name starts with `q` (at most 20). */
 export async function searchUsers(db: Database, q: string): Promise<{ items: UserRef[] }> {
   const prefix = `${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-  const rows: UserRefRow[] = await db.query(
-    'SELECT id, login, name FROM users WHERE disabled = 0 AND (login LIKE ? OR name LIKE ?) ORDER BY login LIMIT 20',
-    [prefix, prefix],
-  );
+  const rows: UserRefRow[] = await db.query('SELECT id, login, name FROM users WHERE disabled = 0 AND (login LIKE ? OR name LIKE ?) ORDER BY login LIMIT 20', [
+    prefix,
+    prefix,
+  ]);
   return { items: rows.map(presentUserRef) };
 }

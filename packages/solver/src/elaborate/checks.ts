@@ -16,7 +16,12 @@ export function wholeCellChecks(cx: Elaboration, shows: ShowStatement[], traces:
   const needsDrive = shows.filter((s, i) => traces[i]?.kind !== 'impedance' && s.expr.kind !== 'impedance');
   if (drives.length === 0 && needsDrive.length > 0) {
     const st = needsDrive[0];
-    cx.error(st.range, 'no-drive', `this cell has no drive, so ${labelOf(st)} has nothing to be compared with`, 'add a drive line, like drive in (1 V between in and gnd)');
+    cx.error(
+      st.range,
+      'no-drive',
+      `this cell has no drive, so ${labelOf(st)} has nothing to be compared with`,
+      'add a drive line, like drive in (1 V between in and gnd)',
+    );
   }
   if (shows.length === 0 && parts.length > 0) {
     cx.warn(parts[0].range, 'no-trace', 'this cell shows nothing', 'add a show line, like show out');
@@ -97,7 +102,10 @@ function connectivity(cx: Elaboration, shows: ShowStatement[]): void {
     reported.add(key);
     if (++dangling > MAX_DANGLING) continue;
     const [only] = [...node.touches];
-    const near = cx.near(node.name, names.filter((n) => n !== node.name && n !== GROUND));
+    const near = cx.near(
+      node.name,
+      names.filter((n) => n !== node.name && n !== GROUND),
+    );
     const onlyLocal = node.block !== null && only.includes('.') ? only.slice(only.lastIndexOf('.') + 1) : only;
     cx.warn(
       node.range,
@@ -109,7 +117,12 @@ function connectivity(cx: Elaboration, shows: ShowStatement[]): void {
   }
   if (dangling > MAX_DANGLING) {
     const first = cx.nodes.find((n, i) => i > 0 && n.touches.size === 1) as NodeInfo;
-    cx.warn(first.range, 'dangling-node', `${(dangling - MAX_DANGLING).toLocaleString('en-US')} more nodes connect to only one part`, 'the first ' + MAX_DANGLING + ' are marked where they are written');
+    cx.warn(
+      first.range,
+      'dangling-node',
+      `${(dangling - MAX_DANGLING).toLocaleString('en-US')} more nodes connect to only one part`,
+      'the first ' + MAX_DANGLING + ' are marked where they are written',
+    );
   }
 }
 

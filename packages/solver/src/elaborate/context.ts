@@ -104,7 +104,17 @@ export class Elaboration {
   }
 
   scope(prefix: string, instance: string, block: BlockStatement | null, parent: Scope | null, body: Statement[]): Scope {
-    const s: Scope = { prefix, instance, block, params: new Map(), lets: new Map(), designators: new Map(), pins: new Map(), parent, stack: parent ? [...parent.stack] : [] };
+    const s: Scope = {
+      prefix,
+      instance,
+      block,
+      params: new Map(),
+      lets: new Map(),
+      designators: new Map(),
+      pins: new Map(),
+      parent,
+      stack: parent ? [...parent.stack] : [],
+    };
     for (const st of body) {
       if (st.kind === 'let' && !s.lets.has(st.name.name)) s.lets.set(st.name.name, st.range.line);
       const d = designatorOf(st);
@@ -131,13 +141,24 @@ export class Elaboration {
       const owner = name.slice(0, name.indexOf('.'));
       const d = scope.designators.get(owner);
       if (d !== undefined && d.kind === 'use') {
-        this.error(id.range, 'private-node', `${name} is a node inside block instance ${owner}; it is reached through the instance’s pins`, 'add a pin to the block, or show the node instead of connecting to it');
+        this.error(
+          id.range,
+          'private-node',
+          `${name} is a node inside block instance ${owner}; it is reached through the instance’s pins`,
+          'add a pin to the block, or show the node instead of connecting to it',
+        );
       }
     }
     let index = this.nodeIndex.get(full);
     if (index === undefined) {
       if (GROUND_LOOKALIKE.test(name)) {
-        this.warn(id.range, 'ground-name', `${name} is a node of its own, not ground`, `ground is written ${GROUND}, and names are case-sensitive`, replaceWith(GROUND));
+        this.warn(
+          id.range,
+          'ground-name',
+          `${name} is a node of its own, not ground`,
+          `ground is written ${GROUND}, and names are case-sensitive`,
+          replaceWith(GROUND),
+        );
       }
       index = this.nodes.length;
       this.nodes.push({ name: full, range: id.range, local: name, block: scope.block?.name.name ?? null, touches: new Set() });
@@ -155,11 +176,15 @@ export class Elaboration {
     if (this.program.brokenWords.has(id.name)) return null;
     const names = this.suggestBudget > 0 ? this.nodes.slice(1).map((n) => n.name) : [];
     const near = this.near(id.name, names);
-    const otherwise = names.length > 0 ? `the nodes are ${names.slice(0, 10).join(', ')}${names.length > 10 ? ', …' : ''}` : this.nodes.length > 1 ? undefined : 'no part connects to any node yet';
+    const otherwise =
+      names.length > 0
+        ? `the nodes are ${names.slice(0, 10).join(', ')}${names.length > 10 ? ', …' : ''}`
+        : this.nodes.length > 1
+          ? undefined
+          : 'no part connects to any node yet';
     this.error(id.range, 'unknown-node', `there is no node named ${id.name} in this network`, suggestionHint(near, undefined, otherwise), near.fix);
     return null;
   }
-
 }
 
 /** The designator a statement defines, with its kind; null for lines that define none. */

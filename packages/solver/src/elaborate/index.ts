@@ -108,7 +108,12 @@ function settingsAndRequirements(
         break;
       case 'temperature': {
         if (temperatureLine !== 0) {
-          cx.error(st.range, 'duplicate-temperature', `a cell has one temperature; there is one on line ${temperatureLine} already`, 'keep one temperature line');
+          cx.error(
+            st.range,
+            'duplicate-temperature',
+            `a cell has one temperature; there is one on line ${temperatureLine} already`,
+            'keep one temperature line',
+          );
           break;
         }
         temperatureLine = st.range.line;

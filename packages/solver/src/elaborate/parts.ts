@@ -31,7 +31,12 @@ export function registerBlocks(cx: Elaboration): void {
     if (st.name.name === '') continue;
     const before = cx.blocks.get(st.name.name);
     if (before !== undefined) {
-      cx.error(st.name.range, 'duplicate-block', `there is a block named ${st.name.name} already, on line ${before.range.line}`, 'give this block another name');
+      cx.error(
+        st.name.range,
+        'duplicate-block',
+        `there is a block named ${st.name.name} already, on line ${before.range.line}`,
+        'give this block another name',
+      );
       continue;
     }
     cx.blocks.set(st.name.name, st);
@@ -50,7 +55,12 @@ export function tooLarge(cx: Elaboration): boolean {
       const n = st.kind === 'use' ? countParts(cx, [st], []) : -1;
       if (n > most) [first, most] = [st, n];
     }
-    cx.error(first.range, 'network-too-large', `the network has ${parts.toLocaleString('en-US')} parts after its blocks are expanded; the limit is ${cx.maxParts.toLocaleString('en-US')}`, 'split the network into smaller cells, or use fewer block instances');
+    cx.error(
+      first.range,
+      'network-too-large',
+      `the network has ${parts.toLocaleString('en-US')} parts after its blocks are expanded; the limit is ${cx.maxParts.toLocaleString('en-US')}`,
+      'split the network into smaller cells, or use fewer block instances',
+    );
     return true;
   }
   return false;
@@ -59,7 +69,13 @@ export function tooLarge(cx: Elaboration): boolean {
 /** A block that no `use` line places. */
 export function warnUnusedBlocks(cx: Elaboration): void {
   for (const block of cx.blocks.values()) {
-    if (!cx.usedBlocks.has(block.name.name)) cx.warn(block.name.range, 'unused-block', `block ${block.name.name} is never used`, `place it with use ${block.name.name} as B1 [${block.pins.nodes.map((p) => p.name).join(' ')}]`);
+    if (!cx.usedBlocks.has(block.name.name))
+      cx.warn(
+        block.name.range,
+        'unused-block',
+        `block ${block.name.name} is never used`,
+        `place it with use ${block.name.name} as B1 [${block.pins.nodes.map((p) => p.name).join(' ')}]`,
+      );
   }
 }
 
@@ -100,7 +116,12 @@ function add(cx: Elaboration, element: Element, designator: Ident): void {
   const before = cx.elementNames.get(element.name);
   if (before !== undefined) {
     // Two names that collide only after flattening (a dotted top-level name, say).
-    cx.error(designator.range, 'duplicate-designator', `there is a part named ${element.name} already, on line ${before.line}`, 'every part needs a designator of its own');
+    cx.error(
+      designator.range,
+      'duplicate-designator',
+      `there is a part named ${element.name} already, on line ${before.line}`,
+      'every part needs a designator of its own',
+    );
     return;
   }
   cx.elementNames.set(element.name, { kind: element.kind, range: designator.range, line: designator.range.line });
@@ -123,7 +144,16 @@ function passive(cx: Elaboration, scope: Scope, st: PassiveStatement): void {
   const where = whereIn(cx, scope);
   const value = read(cx, scope, st.value, line, { says: `${article}’s value is in ${unit}`, units: [unit], example }, where);
   if (value === null) return;
-  if (!bound(cx, st.value, value > 0, `${st.designator.name}’s value must be more than 0 ${unit}; it is ${formatSi(value, unit)}${where}`, `${article}’s value is positive, like ${example}`)) return;
+  if (
+    !bound(
+      cx,
+      st.value,
+      value > 0,
+      `${st.designator.name}’s value must be more than 0 ${unit}; it is ${formatSi(value, unit)}${where}`,
+      `${article}’s value is positive, like ${example}`,
+    )
+  )
+    return;
   let tolerance: number | undefined;
   let esr = 0;
   let esl = 0;
@@ -157,7 +187,8 @@ function passive(cx: Elaboration, scope: Scope, st: PassiveStatement): void {
   if (st.part === 'resistor') element = { ...base, kind: 'resistor', a, b, value, noiseless };
   else if (st.part === 'capacitor') element = { ...base, kind: 'capacitor', a, b, value, esr, esl };
   else element = { ...base, kind: 'inductor', a, b, value, dcr };
-  if (a === b) cx.warn(st.nodes.range, 'shorted-part', `${st.designator.name} has both ends on node ${st.nodes.nodes[0].name}, so it does nothing`, 'check its nodes');
+  if (a === b)
+    cx.warn(st.nodes.range, 'shorted-part', `${st.designator.name} has both ends on node ${st.nodes.nodes[0].name}, so it does nothing`, 'check its nodes');
   add(cx, element, st.designator);
 }
 
@@ -175,8 +206,17 @@ function toleranceOf(cx: Elaboration, scope: Scope, v: Value, line: number, part
     const range = v.kind === 'number' && v.unitRange !== undefined ? v.unitRange : v.range;
     if (q.unit === null || q.unit === 'compound') {
       const example = { resistor: '±10 Ω', capacitor: '±0.25pF', inductor: '±1µH' }[part];
-      const fix = v.kind === 'number' ? { title: `Read as ${v.text}%`, replacement: '%', range: { line: v.range.line, column: v.range.endColumn, endColumn: v.range.endColumn } } : undefined;
-      cx.error(v.range, 'tolerance-unit', 'a tolerance needs % or the part’s unit', `write ±${v.kind === 'number' ? v.text : 'N'}% for a percentage, or an amount in ${unit}, like ${example}`, fix);
+      const fix =
+        v.kind === 'number'
+          ? { title: `Read as ${v.text}%`, replacement: '%', range: { line: v.range.line, column: v.range.endColumn, endColumn: v.range.endColumn } }
+          : undefined;
+      cx.error(
+        v.range,
+        'tolerance-unit',
+        'a tolerance needs % or the part’s unit',
+        `write ±${v.kind === 'number' ? v.text : 'N'}% for a percentage, or an amount in ${unit}, like ${example}`,
+        fix,
+      );
     } else {
       cx.error(range, 'unit-mismatch', `${articleOfPassive(part)}’s tolerance is in % or ${unit}`, `write it like ±1%`);
     }
@@ -187,7 +227,12 @@ function toleranceOf(cx: Elaboration, scope: Scope, v: Value, line: number, part
     return null;
   }
   if (fraction >= 1) {
-    cx.error(v.range, 'value-out-of-range', `a tolerance of ${formatSi(fraction * 100, '%')} or more leaves nothing of the part${where}`, 'a tolerance is below 100%, like ±5%');
+    cx.error(
+      v.range,
+      'value-out-of-range',
+      `a tolerance of ${formatSi(fraction * 100, '%')} or more leaves nothing of the part${where}`,
+      'a tolerance is below 100%, like ±5%',
+    );
     return null;
   }
   return fraction;
@@ -218,7 +263,14 @@ function opamp(cx: Elaboration, scope: Scope, st: OpAmpStatement): void {
       continue;
     }
     const fine = slot.min === 'positive' ? x > 0 : x >= 0;
-    if (!bound(cx, opt.value, fine, `${opt.name} must be ${slot.min === 'positive' ? 'more than 0' : 'at least 0'}; it is ${formatSi(x, opt.name === 'gain' ? '' : slot.units[0])}${where}`)) {
+    if (
+      !bound(
+        cx,
+        opt.value,
+        fine,
+        `${opt.name} must be ${slot.min === 'positive' ? 'more than 0' : 'at least 0'}; it is ${formatSi(x, opt.name === 'gain' ? '' : slot.units[0])}${where}`,
+      )
+    ) {
       ok = false;
       continue;
     }
@@ -252,14 +304,18 @@ function controlled(cx: Elaboration, scope: Scope, st: ControlledStatement): voi
   const [op, on] = nodes;
   if (four) {
     const [, , cp, cn] = nodes;
-    const element: Element = st.mode === 'vgain' ? { kind: 'vcvs', name, range: st.range, op, on, cp, cn, gain: x } : { kind: 'vccs', name, range: st.range, op, on, cp, cn, gm: x };
+    const element: Element =
+      st.mode === 'vgain' ? { kind: 'vcvs', name, range: st.range, op, on, cp, cn, gain: x } : { kind: 'vccs', name, range: st.range, op, on, cp, cn, gm: x };
     add(cx, element, st.designator);
     return;
   }
   if (st.control === null) return;
   const control = st.control;
   const controlName = scope.prefix + control.name;
-  const element: Element = st.mode === 'igain' ? { kind: 'cccs', name, range: st.range, op, on, control: controlName, gain: x } : { kind: 'ccvs', name, range: st.range, op, on, control: controlName, rm: x };
+  const element: Element =
+    st.mode === 'igain'
+      ? { kind: 'cccs', name, range: st.range, op, on, control: controlName, gain: x }
+      : { kind: 'ccvs', name, range: st.range, op, on, control: controlName, rm: x };
   add(cx, element, st.designator);
   cx.pending.push(() => checkTwoTerminal(cx, scope, control, controlName, `${st.mode} of`));
 }
@@ -269,17 +325,30 @@ export function checkTwoTerminal(cx: Elaboration, scope: Scope, id: Ident, full:
   const e = cx.elementNames.get(full);
   if (e === undefined) {
     if (scope.designators.has(id.name) || cx.program.brokenWords.has(id.name)) return false; // its own line had an error
-    const names = cx.suggestBudget <= 0 ? [] : [...cx.elementNames.entries()]
-      .filter(([n, x]) => n.startsWith(scope.prefix) && (only === undefined ? ['resistor', 'capacitor', 'inductor'].includes(x.kind) : x.kind === only))
-      .map(([n]) => n.slice(scope.prefix.length));
+    const names =
+      cx.suggestBudget <= 0
+        ? []
+        : [...cx.elementNames.entries()]
+            .filter(([n, x]) => n.startsWith(scope.prefix) && (only === undefined ? ['resistor', 'capacitor', 'inductor'].includes(x.kind) : x.kind === only))
+            .map(([n]) => n.slice(scope.prefix.length));
     const near = cx.near(id.name, names);
     const otherwise = `${what} names ${only === 'inductor' ? 'an inductor' : 'a resistor, capacitor or inductor'} of this network`;
-    cx.error(id.range, 'unknown-part', `there is no part named ${id.name}${scope.block !== null ? ` in block ${scope.block.name.name}` : ''}`, suggestionHint(near, undefined, otherwise), near.fix);
+    cx.error(
+      id.range,
+      'unknown-part',
+      `there is no part named ${id.name}${scope.block !== null ? ` in block ${scope.block.name.name}` : ''}`,
+      suggestionHint(near, undefined, otherwise),
+      near.fix,
+    );
     return false;
   }
   const fits = only === undefined ? e.kind === 'resistor' || e.kind === 'capacitor' || e.kind === 'inductor' : e.kind === only;
   if (!fits) {
-    cx.error(id.range, 'wrong-part-kind', `${id.name} is ${articleOf(e.kind)}; ${what} names ${only === 'inductor' ? 'an inductor' : 'a resistor, capacitor or inductor'}`);
+    cx.error(
+      id.range,
+      'wrong-part-kind',
+      `${id.name} is ${articleOf(e.kind)}; ${what} names ${only === 'inductor' ? 'an inductor' : 'a resistor, capacitor or inductor'}`,
+    );
     return false;
   }
   return true;
@@ -289,7 +358,18 @@ function couple(cx: Elaboration, scope: Scope, st: CoupleStatement): void {
   const line = st.range.line;
   const where = whereIn(cx, scope);
   const k = st.k === null ? null : read(cx, scope, st.k, line, { says: 'a coupling factor is a plain number', units: [], example: '0.99' }, where);
-  if (st.k !== null && k !== null && !bound(cx, st.k, k > 0 && k <= 1, `a coupling factor is more than 0 and at most 1; it is ${formatSi(k)}${where}`, 'tightly wound transformers are near 0.99')) return;
+  if (
+    st.k !== null &&
+    k !== null &&
+    !bound(
+      cx,
+      st.k,
+      k > 0 && k <= 1,
+      `a coupling factor is more than 0 and at most 1; it is ${formatSi(k)}${where}`,
+      'tightly wound transformers are near 0.99',
+    )
+  )
+    return;
   if (k === null) return;
   const l1 = scope.prefix + st.l1.name;
   const l2 = scope.prefix + st.l2.name;
@@ -324,12 +404,22 @@ function use(cx: Elaboration, scope: Scope, st: UseStatement): void {
   }
   cx.usedBlocks.add(block.name.name);
   if (scope.stack.includes(block.name.name) || scope.block?.name.name === block.name.name) {
-    cx.error(st.block.range, 'recursive-block', `block ${block.name.name} cannot use itself`, 'a block may use other blocks, but not itself, directly or through another block');
+    cx.error(
+      st.block.range,
+      'recursive-block',
+      `block ${block.name.name} cannot use itself`,
+      'a block may use other blocks, but not itself, directly or through another block',
+    );
     return;
   }
   if (st.nodes.nodes.length !== block.pins.nodes.length) {
     const pins = block.pins.nodes.map((p) => p.name).join(' ');
-    cx.error(st.nodes.range, 'node-count', `block ${block.name.name} has ${block.pins.nodes.length} pin${block.pins.nodes.length === 1 ? '' : 's'} [${pins}]; this connects ${st.nodes.nodes.length}`, `write use ${block.name.name} as ${st.instance.name} [${pins}] with your nodes in that order`);
+    cx.error(
+      st.nodes.range,
+      'node-count',
+      `block ${block.name.name} has ${block.pins.nodes.length} pin${block.pins.nodes.length === 1 ? '' : 's'} [${pins}]; this connects ${st.nodes.nodes.length}`,
+      `write use ${block.name.name} as ${st.instance.name} [${pins}] with your nodes in that order`,
+    );
     return;
   }
   const instance = scope.prefix + st.instance.name;
@@ -341,7 +431,13 @@ function use(cx: Elaboration, scope: Scope, st: UseStatement): void {
       const names = block.params.map((p) => p.name.name);
       const near = cx.near(arg.name.name, names);
       const otherwise = names.length > 0 ? `its parameters are ${names.join(', ')}` : 'it takes no parameters';
-      cx.error(arg.name.range, 'unknown-parameter', `block ${block.name.name} has no parameter named ${arg.name.name}`, suggestionHint(near, undefined, otherwise), near.fix);
+      cx.error(
+        arg.name.range,
+        'unknown-parameter',
+        `block ${block.name.name} has no parameter named ${arg.name.name}`,
+        suggestionHint(near, undefined, otherwise),
+        near.fix,
+      );
       continue;
     }
     if (given.has(arg.name.name)) {
@@ -366,7 +462,12 @@ function use(cx: Elaboration, scope: Scope, st: UseStatement): void {
       continue;
     }
     if (p.default === null) {
-      cx.error(st.instance.range, 'missing-argument', `${st.instance.name} needs a value for ${p.name.name}: block ${block.name.name} gives it no default`, `add it, like use ${block.name.name} as ${st.instance.name} [${st.nodes.nodes.map((n) => n.name).join(' ')}] (${p.name.name} = …)`);
+      cx.error(
+        st.instance.range,
+        'missing-argument',
+        `${st.instance.name} needs a value for ${p.name.name}: block ${block.name.name} gives it no default`,
+        `add it, like use ${block.name.name} as ${st.instance.name} [${st.nodes.nodes.map((n) => n.name).join(' ')}] (${p.name.name} = …)`,
+      );
       ok = false;
       continue;
     }

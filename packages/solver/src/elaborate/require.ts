@@ -20,15 +20,30 @@ export function requireStatement(cx: Elaboration, st: RequireStatement, shows: S
   const loopOnly = measure === 'crossover' || measure === 'phase-margin' || measure === 'gain-margin';
   const stepOnly = measure === 'settling' || measure === 'overshoot';
   if (loopOnly && trace.kind !== 'loop') {
-    cx.error(st.measure.range, 'wrong-measure', `${measure} is measured on a loop gain, and ${trace.label} is not one`, `show the loop gain with show loop EXPR and require it of that trace`);
+    cx.error(
+      st.measure.range,
+      'wrong-measure',
+      `${measure} is measured on a loop gain, and ${trace.label} is not one`,
+      `show the loop gain with show loop EXPR and require it of that trace`,
+    );
     return null;
   }
   if (stepOnly && trace.kind !== 'step') {
-    cx.error(st.measure.range, 'wrong-measure', `${measure} is measured on a step response, and ${trace.label} is not one`, 'show the step response with show step EXPR and require it of that trace');
+    cx.error(
+      st.measure.range,
+      'wrong-measure',
+      `${measure} is measured on a step response, and ${trace.label} is not one`,
+      'show the step response with show step EXPR and require it of that trace',
+    );
     return null;
   }
   if (!stepOnly && trace.kind === 'step') {
-    cx.error(st.measure.range, 'wrong-measure', `${measure} is a frequency-domain measure; ${trace.label} is a step response`, 'a step response takes settling and overshoot');
+    cx.error(
+      st.measure.range,
+      'wrong-measure',
+      `${measure} is a frequency-domain measure; ${trace.label} is a step response`,
+      'a step response takes settling and overshoot',
+    );
     return null;
   }
   if ((measure === 'corner' || measure === 'peak') && trace.kind === 'noise') {
@@ -37,7 +52,12 @@ export function requireStatement(cx: Elaboration, st: RequireStatement, shows: S
   }
   if (!pointwise && (st.over !== null || st.at !== null)) {
     const range = st.over?.range ?? (st.at as Value).range;
-    cx.error(range, 'not-pointwise', `${measure} is one number for the whole trace, so it takes no range`, `write require ${st.target.text} ${measure} ${st.op.op} VALUE`);
+    cx.error(
+      range,
+      'not-pointwise',
+      `${measure} is one number for the whole trace, so it takes no range`,
+      `write require ${st.target.text} ${measure} ${st.op.op} VALUE`,
+    );
     return null;
   }
   const slot = measureSlot(measure, trace);
@@ -74,10 +94,23 @@ export function requireStatement(cx: Elaboration, st: RequireStatement, shows: S
       over.to = f;
     }
     if (over.from !== undefined && over.to !== undefined && over.to <= over.from) {
-      const fix = over.to < over.from && st.over.from !== null && st.over.to !== null
-        ? { title: 'Swap the ends', replacement: `${sourceText(st.over.to)} .. ${sourceText(st.over.from)}`, range: { line, column: st.over.from.range.column, endColumn: st.over.to.range.endColumn } }
-        : undefined;
-      cx.error(st.over.range, 'range-reversed', over.to === over.from ? 'this range is empty: both ends are the same' : `this range runs backwards, from ${formatSi(over.from, 'Hz')} down to ${formatSi(over.to, 'Hz')}`, over.to === over.from ? `for one frequency write at ${formatSi(over.from, 'Hz')}` : 'write the lower frequency first', fix);
+      const fix =
+        over.to < over.from && st.over.from !== null && st.over.to !== null
+          ? {
+              title: 'Swap the ends',
+              replacement: `${sourceText(st.over.to)} .. ${sourceText(st.over.from)}`,
+              range: { line, column: st.over.from.range.column, endColumn: st.over.to.range.endColumn },
+            }
+          : undefined;
+      cx.error(
+        st.over.range,
+        'range-reversed',
+        over.to === over.from
+          ? 'this range is empty: both ends are the same'
+          : `this range runs backwards, from ${formatSi(over.from, 'Hz')} down to ${formatSi(over.to, 'Hz')}`,
+        over.to === over.from ? `for one frequency write at ${formatSi(over.from, 'Hz')}` : 'write the lower frequency first',
+        fix,
+      );
       return null;
     }
     spec.over = over;
@@ -89,7 +122,11 @@ export function requireStatement(cx: Elaboration, st: RequireStatement, shows: S
     spec.at = f;
   }
   if (trace.kind === 'step' || trace.kind === 'noise') {
-    cx.warn(st.range, 'not-available', `requirements on ${trace.kind === 'step' ? 'step responses' : 'noise'} are not available yet: this one is checked but not evaluated`);
+    cx.warn(
+      st.range,
+      'not-available',
+      `requirements on ${trace.kind === 'step' ? 'step responses' : 'noise'} are not available yet: this one is checked but not evaluated`,
+    );
   }
   return spec;
 }
@@ -109,7 +146,12 @@ function findTrace(cx: Elaboration, st: RequireStatement, shows: ShowStatement[]
     const found = shows.map((_, i) => i).filter(level);
     if (found.length === 0) continue;
     if (found.length > 1) {
-      cx.error(st.target.range, 'ambiguous-target', `${text} could be the trace on line ${shows[found[0]].range.line} or on line ${shows[found[1]].range.line}`, 'give the trace a label in quotes and require it by that label');
+      cx.error(
+        st.target.range,
+        'ambiguous-target',
+        `${text} could be the trace on line ${shows[found[0]].range.line} or on line ${shows[found[1]].range.line}`,
+        'give the trace a label in quotes and require it by that label',
+      );
       return null;
     }
     const i = found[0];
@@ -123,7 +165,11 @@ function findTrace(cx: Elaboration, st: RequireStatement, shows: ShowStatement[]
     st.target.range,
     'unknown-target',
     shows.length === 0 ? `there is no trace called ${text}: this cell shows nothing` : `there is no trace called ${text}`,
-    suggestionHint(near, undefined, shows.length === 0 ? `add show ${text}` : `the traces are ${names.join(', ')}; a requirement names a trace’s label or what its show line shows`),
+    suggestionHint(
+      near,
+      undefined,
+      shows.length === 0 ? `add show ${text}` : `the traces are ${names.join(', ')}; a requirement names a trace’s label or what its show line shows`,
+    ),
     st.target.quoted ? undefined : near.fix,
   );
   return null;
@@ -133,7 +179,8 @@ function findTrace(cx: Elaboration, st: RequireStatement, shows: ShowStatement[]
 function measureSlot(measure: Measure, trace: TraceSpec): Slot {
   const unit = MEASURES[measure];
   if (unit === '') {
-    const units: Unit[] = trace.unit === 'Ω' || trace.unit === 'V/A' ? ['Ω'] : trace.unit === 'A/V' || trace.unit === 'A/A' ? ['A'] : trace.unit === 'V/√Hz' ? ['V'] : [];
+    const units: Unit[] =
+      trace.unit === 'Ω' || trace.unit === 'V/A' ? ['Ω'] : trace.unit === 'A/V' || trace.unit === 'A/A' ? ['A'] : trace.unit === 'V/√Hz' ? ['V'] : [];
     return { says: `the magnitude of ${trace.label} is in ${trace.unit}`, units, unit: trace.unit };
   }
   const { in: written, example } = MEASURE_UNIT_WORDS[unit];

@@ -23,11 +23,23 @@ export function sweepStatement(cx: Elaboration, st: SweepStatement): SweepSpec |
       const f = read(cx, cx.top, v, line, hz);
       if (f === null) return null;
       if (f < 0) {
-        cx.error(v.range, 'sweep-non-positive', `a sweep’s frequencies cannot be negative; this is ${formatSi(f, 'Hz')}`, 'list frequencies of 0 Hz (the DC point) or above');
+        cx.error(
+          v.range,
+          'sweep-non-positive',
+          `a sweep’s frequencies cannot be negative; this is ${formatSi(f, 'Hz')}`,
+          'list frequencies of 0 Hz (the DC point) or above',
+        );
         return null;
       }
       if (fs.length > 0 && f <= fs[fs.length - 1]) {
-        cx.error(v.range, 'sweep-order', f === fs[fs.length - 1] ? `${formatSi(f, 'Hz')} is listed twice` : `the frequencies of sweep at go up: ${formatSi(f, 'Hz')} comes after ${formatSi(fs[fs.length - 1], 'Hz')}`, 'list them from low to high, each once');
+        cx.error(
+          v.range,
+          'sweep-order',
+          f === fs[fs.length - 1]
+            ? `${formatSi(f, 'Hz')} is listed twice`
+            : `the frequencies of sweep at go up: ${formatSi(f, 'Hz')} comes after ${formatSi(fs[fs.length - 1], 'Hz')}`,
+          'list them from low to high, each once',
+        );
         return null;
       }
       fs.push(f);
@@ -45,7 +57,12 @@ export function sweepStatement(cx: Elaboration, st: SweepStatement): SweepSpec |
   if (st.form === 'log') {
     if (from <= 0 || to <= 0) {
       const bad = from <= 0 ? st.from : st.to;
-      cx.error(bad.range, 'sweep-non-positive', `a log sweep cannot reach ${formatSi(from <= 0 ? from : to, 'Hz')}: its frequencies are above 0 Hz`, 'start at a small positive frequency, like 1, or use a linear sweep: sweep 0 .. 10k, 101 linear');
+      cx.error(
+        bad.range,
+        'sweep-non-positive',
+        `a log sweep cannot reach ${formatSi(from <= 0 ? from : to, 'Hz')}: its frequencies are above 0 Hz`,
+        'start at a small positive frequency, like 1, or use a linear sweep: sweep 0 .. 10k, 101 linear',
+      );
       return null;
     }
   } else if (from < 0 || to < 0) {
@@ -54,22 +71,38 @@ export function sweepStatement(cx: Elaboration, st: SweepStatement): SweepSpec |
     return null;
   }
   if (to < from) {
-    cx.error(st.range, 'sweep-reversed', `this sweep runs backwards, from ${formatSi(from, 'Hz')} down to ${formatSi(to, 'Hz')}`, 'write the lower frequency first', {
-      title: 'Swap the ends',
-      replacement: `${sourceText(st.to)} .. ${sourceText(st.from)}`,
-      range: { line, column: st.from.range.column, endColumn: st.to.range.endColumn },
-    });
+    cx.error(
+      st.range,
+      'sweep-reversed',
+      `this sweep runs backwards, from ${formatSi(from, 'Hz')} down to ${formatSi(to, 'Hz')}`,
+      'write the lower frequency first',
+      {
+        title: 'Swap the ends',
+        replacement: `${sourceText(st.to)} .. ${sourceText(st.from)}`,
+        range: { line, column: st.from.range.column, endColumn: st.to.range.endColumn },
+      },
+    );
     return null;
   }
   if (to === from) {
-    cx.error(st.range, 'sweep-empty', `this sweep starts and stops at ${formatSi(from, 'Hz')}, so it is empty`, `for one frequency write sweep at ${sourceText(st.from)}`);
+    cx.error(
+      st.range,
+      'sweep-empty',
+      `this sweep starts and stops at ${formatSi(from, 'Hz')}, so it is empty`,
+      `for one frequency write sweep at ${sourceText(st.from)}`,
+    );
     return null;
   }
   if (st.form === 'linear') {
     const points = integer(cx, cx.top, st.points, line, 'a linear sweep’s count of points', 2, Number.MAX_SAFE_INTEGER);
     if (points === null) return null;
     if (points > cx.maxPoints) {
-      cx.error(st.points.range, 'sweep-too-many', `this sweep has ${points.toLocaleString('en-US')} points; the limit is ${cx.maxPoints.toLocaleString('en-US')}`, 'use fewer points');
+      cx.error(
+        st.points.range,
+        'sweep-too-many',
+        `this sweep has ${points.toLocaleString('en-US')} points; the limit is ${cx.maxPoints.toLocaleString('en-US')}`,
+        'use fewer points',
+      );
       return null;
     }
     if (from === 0) noteDcPoint(cx, st.range);
@@ -87,7 +120,12 @@ export function sweepStatement(cx: Elaboration, st: SweepStatement): SweepSpec |
   }
   const points = Math.ceil(Math.log10(to / from) * perDecade - 1e-9) + 1;
   if (points > cx.maxPoints) {
-    cx.error(st.perDecade?.range ?? st.range, 'sweep-too-many', `this sweep has ${points.toLocaleString('en-US')} points; the limit is ${cx.maxPoints.toLocaleString('en-US')}`, 'use fewer points per decade or a narrower range');
+    cx.error(
+      st.perDecade?.range ?? st.range,
+      'sweep-too-many',
+      `this sweep has ${points.toLocaleString('en-US')} points; the limit is ${cx.maxPoints.toLocaleString('en-US')}`,
+      'use fewer points per decade or a narrower range',
+    );
     return null;
   }
   return { kind: 'log', from, to, perDecade };
@@ -115,7 +153,12 @@ export function timeStatement(cx: Elaboration, st: TimeStatement): Circuit['time
     return null;
   }
   if (to <= from) {
-    cx.error(st.range, 'time-window', to === from ? 'this time window is empty' : `this time window runs backwards, from ${formatSi(from, 's')} to ${formatSi(to, 's')}`, 'write the earlier time first, like time 0 .. 10m');
+    cx.error(
+      st.range,
+      'time-window',
+      to === from ? 'this time window is empty' : `this time window runs backwards, from ${formatSi(from, 's')} to ${formatSi(to, 's')}`,
+      'write the earlier time first, like time 0 .. 10m',
+    );
     return null;
   }
   let points: number | undefined;
@@ -124,7 +167,12 @@ export function timeStatement(cx: Elaboration, st: TimeStatement): Circuit['time
     if (n === null) return null;
     points = n;
   }
-  cx.warn(st.range, 'not-available', 'the time window is not available yet: it is for step responses, which a later version adds', 'the line is checked but has no effect');
+  cx.warn(
+    st.range,
+    'not-available',
+    'the time window is not available yet: it is for step responses, which a later version adds',
+    'the line is checked but has no effect',
+  );
   return points === undefined ? { from, to } : { from, to, points };
 }
 
@@ -138,7 +186,12 @@ export function temperatureStatement(cx: Elaboration, st: TemperatureStatement):
   });
   if (t === null) return null;
   if (!bound(cx, st.value, t > 0, `a temperature is above absolute zero; this is ${formatSi(t, 'K')}`, 'write it in K (290 K) or °C (25°C)')) return null;
-  cx.warn(st.range, 'not-available', 'the temperature is not available yet: it is for noise results, which a later version adds', 'the line is checked but has no effect');
+  cx.warn(
+    st.range,
+    'not-available',
+    'the temperature is not available yet: it is for noise results, which a later version adds',
+    'the line is checked but has no effect',
+  );
   return t;
 }
 
@@ -156,6 +209,11 @@ export function spreadStatement(cx: Elaboration, st: SpreadStatement): Tolerance
       spec.seed = seed;
     }
   }
-  cx.warn(st.range, 'not-available', 'spreads are not available yet: this line is checked but does not change the results', 'a later version adds random draws and the extremes of the tolerance box');
+  cx.warn(
+    st.range,
+    'not-available',
+    'spreads are not available yet: this line is checked but does not change the results',
+    'a later version adds random draws and the extremes of the tolerance box',
+  );
   return spec;
 }

@@ -53,7 +53,12 @@ export function showStatement(cx: Elaboration, st: ShowStatement): TraceSpec | n
       const n = e.n === null ? 0 : cx.existingNode(e.n);
       if (p === null || n === null) return null;
       if (p === n) {
-        cx.error(st.exprRange, 'bad-trace', p === 0 ? 'the impedance from gnd to gnd is 0 by definition' : `the impedance between ${e.p.name} and itself is 0 by definition`, 'name two different nodes');
+        cx.error(
+          st.exprRange,
+          'bad-trace',
+          p === 0 ? 'the impedance from gnd to gnd is 0 by definition' : `the impedance between ${e.p.name} and itself is 0 by definition`,
+          'name two different nodes',
+        );
         return null;
       }
       probe = { kind: 'impedance', p, n };
@@ -76,7 +81,12 @@ export function showStatement(cx: Elaboration, st: ShowStatement): TraceSpec | n
     case 'step':
       kind = 'step';
       unit = e.kind === 'ratio' ? 'V/V' : e.kind === 'current' ? (current ? 'A/A' : 'A/V') : current ? 'V/A' : 'V/V';
-      cx.warn(st.range, 'not-available', 'step responses are not available yet: this trace is checked but not computed', 'a later version adds the time domain');
+      cx.warn(
+        st.range,
+        'not-available',
+        'step responses are not available yet: this trace is checked but not computed',
+        'a later version adds the time domain',
+      );
       break;
     default:
       if (e.kind === 'impedance') {
@@ -105,7 +115,12 @@ export function checkLabels(cx: Elaboration, shows: ShowStatement[], traces: (Tr
     const before = seen.get(t.label);
     if (before !== undefined) {
       const st = shows[i];
-      cx.error(st.label?.range ?? st.exprRange, 'duplicate-label', `a trace called ${t.label} is shown already, on line ${before}`, st.label === null ? `give one of them a label: show "${t.label} 2" ${st.exprText}` : 'give each trace a label of its own');
+      cx.error(
+        st.label?.range ?? st.exprRange,
+        'duplicate-label',
+        `a trace called ${t.label} is shown already, on line ${before}`,
+        st.label === null ? `give one of them a label: show "${t.label} 2" ${st.exprText}` : 'give each trace a label of its own',
+      );
       return;
     }
     seen.set(t.label, t.range.line);

@@ -13,7 +13,7 @@ import { CASCADE, designatorOf } from './context.js';
 import type { Elaboration, Scope } from './context.js';
 
 const QUANTITY_OF: Partial<Record<Unit, string>> = {
-  'Ω': 'a resistance',
+  Ω: 'a resistance',
   F: 'a capacitance',
   H: 'an inductance',
   Hz: 'a frequency',
@@ -41,18 +41,24 @@ export interface Slot {
   example?: string;
 }
 
-
 /** Parameters and designators share one namespace; a parameter must not take a reserved name. */
 export function checkNamespace(cx: Elaboration, scope: Scope, body: Statement[]): void {
   const params = scope.block?.params ?? [];
   for (const p of params) {
     const d = scope.designators.get(p.name.name);
-    if (d !== undefined) cx.error(p.name.range, 'name-clash', `${p.name.name} is the designator of a part on line ${d.line}; a parameter needs a name of its own`, 'rename the parameter or the part');
+    if (d !== undefined)
+      cx.error(
+        p.name.range,
+        'name-clash',
+        `${p.name.name} is the designator of a part on line ${d.line}; a parameter needs a name of its own`,
+        'rename the parameter or the part',
+      );
     reservedName(cx, p.name);
   }
   const seenParams = new Set<string>();
   for (const p of params) {
-    if (seenParams.has(p.name.name)) cx.error(p.name.range, 'redefined-name', `block ${scope.block?.name.name} has a parameter named ${p.name.name} already`, 'give each parameter once');
+    if (seenParams.has(p.name.name))
+      cx.error(p.name.range, 'redefined-name', `block ${scope.block?.name.name} has a parameter named ${p.name.name} already`, 'give each parameter once');
     seenParams.add(p.name.name);
   }
   const designators = new Map<string, number>();
@@ -61,7 +67,12 @@ export function checkNamespace(cx: Elaboration, scope: Scope, body: Statement[])
     if (d === null) continue;
     const before = designators.get(d.ident.name);
     if (before !== undefined) {
-      cx.error(d.ident.range, 'duplicate-designator', `there is a part named ${d.ident.name} already, on line ${before}`, 'every part needs a designator of its own');
+      cx.error(
+        d.ident.range,
+        'duplicate-designator',
+        `there is a part named ${d.ident.name} already, on line ${before}`,
+        'every part needs a designator of its own',
+      );
     } else {
       designators.set(d.ident.name, d.ident.range.line);
     }
@@ -73,16 +84,31 @@ export function checkNamespace(cx: Elaboration, scope: Scope, body: Statement[])
     if (reservedName(cx, st.name)) continue;
     const d = scope.designators.get(name);
     if (d !== undefined) {
-      cx.error(st.name.range, 'name-clash', `${name} is the designator of a part on line ${d.line}; a parameter needs a name of its own`, 'rename the parameter or the part');
+      cx.error(
+        st.name.range,
+        'name-clash',
+        `${name} is the designator of a part on line ${d.line}; a parameter needs a name of its own`,
+        'rename the parameter or the part',
+      );
       continue;
     }
     if (seenParams.has(name)) {
-      cx.error(st.name.range, 'redefined-name', `${name} is a parameter of block ${scope.block?.name.name} already; a parameter cannot be set twice`, 'choose another name');
+      cx.error(
+        st.name.range,
+        'redefined-name',
+        `${name} is a parameter of block ${scope.block?.name.name} already; a parameter cannot be set twice`,
+        'choose another name',
+      );
       continue;
     }
     const before = lets.get(name);
     if (before !== undefined) {
-      cx.error(st.name.range, 'redefined-name', `${name} is defined already, on line ${before}; a parameter cannot be set twice`, 'choose another name, or change the first definition');
+      cx.error(
+        st.name.range,
+        'redefined-name',
+        `${name} is defined already, on line ${before}; a parameter cannot be set twice`,
+        'choose another name, or change the first definition',
+      );
       continue;
     }
     lets.set(name, st.name.range.line);
@@ -125,7 +151,9 @@ function resolve(cx: Elaboration, scope: Scope, name: string, range: SourceRange
   if (scope.lets.has(name) && scope.designators.has(name)) return diagnostic(range, CASCADE, name);
   const later = scope.lets.get(name);
   if (later !== undefined && later >= line) {
-    return diagnostic(range, 'defined-later', `${name} is defined later, on line ${later}; a parameter must be defined above the line that uses it`, { hint: `move let ${name} = … above this line` });
+    return diagnostic(range, 'defined-later', `${name} is defined later, on line ${later}; a parameter must be defined above the line that uses it`, {
+      hint: `move let ${name} = … above this line`,
+    });
   }
   if (later !== undefined || own !== undefined) {
     // Defined above but its value failed: that error has been reported already.
@@ -134,15 +162,28 @@ function resolve(cx: Elaboration, scope: Scope, name: string, range: SourceRange
   if (scope.parent !== null && scope.block !== null && scope.parent.lets.has(name)) {
     const at = scope.parent.lets.get(name) as number;
     if (at > scope.block.range.line) {
-      return diagnostic(range, 'defined-later', `${name} is defined on line ${at}, below block ${scope.block.name.name}; a block sees the parameters defined above it`, { hint: `move let ${name} = … above the block` });
+      return diagnostic(
+        range,
+        'defined-later',
+        `${name} is defined on line ${at}, below block ${scope.block.name.name}; a block sees the parameters defined above it`,
+        { hint: `move let ${name} = … above the block` },
+      );
     }
   }
   const d = scope.designators.get(name) ?? scope.parent?.designators.get(name);
-  if (d !== undefined) return diagnostic(range, 'not-a-parameter', `${name} is a part (line ${d.line}), not a parameter`, { hint: 'a value is a number, a parameter defined with let, or an expression in parentheses' });
+  if (d !== undefined)
+    return diagnostic(range, 'not-a-parameter', `${name} is a part (line ${d.line}), not a parameter`, {
+      hint: 'a value is a number, a parameter defined with let, or an expression in parentheses',
+    });
   if (cx.program.brokenWords.has(name)) return diagnostic(range, CASCADE, name);
   const visible = cx.suggestBudget > 0 ? visibleParams(cx, scope, line) : [];
   const near = cx.near(name, visible);
-  const otherwise = visible.length > 0 ? `the parameters here are ${visible.slice(0, 8).join(', ')}${visible.length > 8 ? ', …' : ''}` : cx.suggestBudget > 0 ? 'define it first with let NAME = VALUE' : undefined;
+  const otherwise =
+    visible.length > 0
+      ? `the parameters here are ${visible.slice(0, 8).join(', ')}${visible.length > 8 ? ', …' : ''}`
+      : cx.suggestBudget > 0
+        ? 'define it first with let NAME = VALUE'
+        : undefined;
   return diagnostic(range, 'undefined-name', `there is no parameter named ${name}`, { hint: suggestionHint(near, undefined, otherwise), fix: near.fix });
 }
 
@@ -197,7 +238,12 @@ export function read(cx: Elaboration, scope: Scope, v: Value, line: number, slot
   }
   const quantity = QUANTITY_OF[q.unit] ?? q.unit;
   const example = slot.example !== undefined ? `, like ${slot.example}` : '';
-  cx.error(range, 'unit-mismatch', `${slot.says}${where}`, `${written} is ${quantity}; write the value with ${slot.units.length > 0 ? slot.units.join(' or ') + ' or ' : ''}no unit${example}`);
+  cx.error(
+    range,
+    'unit-mismatch',
+    `${slot.says}${where}`,
+    `${written} is ${quantity}; write the value with ${slot.units.length > 0 ? slot.units.join(' or ') + ' or ' : ''}no unit${example}`,
+  );
   return null;
 }
 

@@ -114,7 +114,12 @@ class LineReader {
           continue;
         }
         if (block !== null) {
-          cur.report(first.range, 'nested-block', 'a block cannot be defined inside another block', `end block ${block.name.name} first, then define ${header.name.name} on its own`);
+          cur.report(
+            first.range,
+            'nested-block',
+            'a block cannot be defined inside another block',
+            `end block ${block.name.name} first, then define ${header.name.name} on its own`,
+          );
         }
         this.unclosedAt = null;
         header.body = this.statements(header);
@@ -132,7 +137,12 @@ class LineReader {
           this.unclosedAt = line.line;
           return out;
         }
-        cur.report(first.range, 'not-in-block', `\`${first.text}\` belongs outside blocks`, 'a block holds parts, couple, use and let lines; put this line after the block’s end');
+        cur.report(
+          first.range,
+          'not-in-block',
+          `\`${first.text}\` belongs outside blocks`,
+          'a block holds parts, couple, use and let lines; put this line after the block’s end',
+        );
         continue;
       }
       const statement = this.safely(cur, () => statementOf(cur));
@@ -215,12 +225,24 @@ function unknownStatement(cur: Cursor, first: Token): never {
   const bracket = cur.isPunct('[', 1);
   const near = didYouMean(word, STATEMENT_WORDS);
   if (!bracket && near.question !== undefined) {
-    return cur.error(first.range, 'unknown-statement', `\`${word}\` is not a statement`, suggestionHint(near, `the statements are ${STATEMENT_LIST}`), near.fix);
+    return cur.error(
+      first.range,
+      'unknown-statement',
+      `\`${word}\` is not a statement`,
+      suggestionHint(near, `the statements are ${STATEMENT_LIST}`),
+      near.fix,
+    );
   }
   const upper = word[0].toUpperCase();
   if (bracket && word[0] !== upper && partLetter(upper) !== null) {
     const fixed = upper + word.slice(1);
-    return cur.error(first.range, 'unknown-statement', `\`${word}\` is not a statement or a part`, `designators start with a capital letter: ${fixed}`, replaceWith(fixed));
+    return cur.error(
+      first.range,
+      'unknown-statement',
+      `\`${word}\` is not a statement or a part`,
+      `designators start with a capital letter: ${fixed}`,
+      replaceWith(fixed),
+    );
   }
   if (bracket || /^[A-Z]/.test(word)) {
     const transistor = 'the language describes linear networks: model a transistor’s small signal with A (controlled source), R and C parts';
@@ -239,10 +261,17 @@ function unknownStatement(cur: Cursor, first: Token): never {
       D: 'the language describes linear networks: model a diode’s small signal with R and C parts',
       X: 'a sub-network is written as a block and placed with use NAME as B1 [nodes]',
     };
-    const hint = word.includes('.') ? 'a name with a dot is a part inside a block instance; give this part a designator of its own, like R7' : (hints[upper] ?? 'an impedance is built from R, C and L parts; a sub-network is a block placed with use');
+    const hint = word.includes('.')
+      ? 'a name with a dot is a part inside a block instance; give this part a designator of its own, like R7'
+      : (hints[upper] ?? 'an impedance is built from R, C and L parts; a sub-network is a block placed with use');
     return cur.error(first.range, 'unknown-part-kind', `\`${word}\` is not a kind of part: a designator starts with ${PART_LIST}`, hint);
   }
-  return cur.error(first.range, 'unknown-statement', `\`${word}\` is not a statement`, `the statements are ${STATEMENT_LIST}; parts start with ${orList(PART_LETTERS)}`);
+  return cur.error(
+    first.range,
+    'unknown-statement',
+    `\`${word}\` is not a statement`,
+    `the statements are ${STATEMENT_LIST}; parts start with ${orList(PART_LETTERS)}`,
+  );
 }
 
 // ---------------------------------------------------------------------------------------

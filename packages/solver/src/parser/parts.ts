@@ -103,14 +103,24 @@ function passive(cur: Cursor, part: PassiveKind, designator: Ident, nodes: NodeL
   const note = (kind: string, range: SourceRange) => {
     const before = seen.get(kind);
     if (before !== undefined) {
-      cur.report(range, 'duplicate-option', kind === 'tolerance' ? `${designator.name} has a tolerance already` : `${designator.name} has ${kind} already`, 'give each option once');
+      cur.report(
+        range,
+        'duplicate-option',
+        kind === 'tolerance' ? `${designator.name} has a tolerance already` : `${designator.name} has ${kind} already`,
+        'give each option once',
+      );
     }
     seen.set(kind, range);
   };
   const allowed = (t: Token, option: string): boolean => {
     if (words.includes(option)) return true;
     const owner = (Object.keys(PASSIVES) as PassiveKind[]).find((k) => PASSIVES[k].options.includes(option)) ?? 'resistor';
-    cur.report(t.range, 'wrong-option', `${option} is an option of ${PART_CLASSES[PASSIVES[owner].letter].article}, not of ${article}`, `${article} takes ${optionText}`);
+    cur.report(
+      t.range,
+      'wrong-option',
+      `${option} is an option of ${PART_CLASSES[PASSIVES[owner].letter].article}, not of ${article}`,
+      `${article} takes ${optionText}`,
+    );
     return false;
   };
   while (!cur.atEnd()) {
@@ -163,7 +173,12 @@ function passive(cur: Cursor, part: PassiveKind, designator: Ident, nodes: NodeL
     if (t.kind === 'name' && (t.text === 'esr' || t.text === 'esl' || t.text === 'dcr')) {
       cur.next();
       const ok = allowed(t, t.text);
-      const amount = value(cur, `the value after ${t.text}`, PASSIVE_STOP_WORDS, t.text === 'esl' ? 'esl is in H, like esl 1n' : `${t.text} is in Ω, like ${t.text} 20m`);
+      const amount = value(
+        cur,
+        `the value after ${t.text}`,
+        PASSIVE_STOP_WORDS,
+        t.text === 'esl' ? 'esl is in H, like esl 1n' : `${t.text} is in Ω, like ${t.text} 20m`,
+      );
       if (amount === null || !ok) continue;
       const kind = t.text;
       const range = merge(t.range, amount.range);
@@ -178,7 +193,12 @@ function passive(cur: Cursor, part: PassiveKind, designator: Ident, nodes: NodeL
 
 function unknownOption(cur: Cursor, t: Token, designator: string, words: readonly string[], list: string, article: string): never {
   if (t.kind === 'number' || (t.kind === 'punct' && t.punct === '(')) {
-    cur.error(t.range, 'unexpected-token', `\`${show(t)}\` is one value too many: ${designator} has its value already`, `a tolerance is written ±5% or 5%; ${article} takes ${list}`);
+    cur.error(
+      t.range,
+      'unexpected-token',
+      `\`${show(t)}\` is one value too many: ${designator} has its value already`,
+      `a tolerance is written ±5% or 5%; ${article} takes ${list}`,
+    );
   }
   if (t.kind === 'name') {
     const near = didYouMean(t.text, words);
@@ -206,7 +226,8 @@ function opamp(cur: Cursor, designator: Ident, nodes: NodeList): OpAmpStatement 
   const options: OpAmpStatement['options'] = [];
   while (!cur.atEnd()) {
     const t = cur.peek() as Token;
-    const name = t.kind === 'name' ? ((OPAMP_OPTION_WORDS as string[]).includes(t.text) ? (t.text as OpAmpOptionName) : RETIRED_OPAMP_OPTIONS[t.text]) : undefined;
+    const name =
+      t.kind === 'name' ? ((OPAMP_OPTION_WORDS as string[]).includes(t.text) ? (t.text as OpAmpOptionName) : RETIRED_OPAMP_OPTIONS[t.text]) : undefined;
     if (name !== undefined) {
       cur.next();
       if (name !== t.text) retired(cur, t.range, t.text, name);
@@ -240,14 +261,21 @@ function controlled(cur: Cursor, designator: Ident, nodes: NodeList): Controlled
     nodes,
     fourNode ? 4 : 2,
     fourNode ? `a voltage-controlled source (${mode})` : `a current-controlled source (${mode})`,
-    fourNode ? `${designator.name} [o+ o- c+ c-] ${mode} ${mode === 'gm' ? '1m' : '10'}` : `${designator.name} [o+ o-] ${mode} ${mode === 'rm' ? '1k' : '10'} of R1`,
+    fourNode
+      ? `${designator.name} [o+ o- c+ c-] ${mode} ${mode === 'gm' ? '1m' : '10'}`
+      : `${designator.name} [o+ o-] ${mode} ${mode === 'rm' ? '1k' : '10'} of R1`,
   );
   const what = { vgain: 'the gain after vgain', gm: 'the transconductance after gm', igain: 'the gain after igain', rm: 'the transresistance after rm' }[mode];
   const v = value(cur, what, ['of'], { vgain: 'vgain is in V/V or dB', gm: 'gm is in S', igain: 'igain is in A/A or dB', rm: 'rm is in Ω' }[mode]);
   let control: Ident | null = null;
   if (!fourNode) {
     if (cur.eat('of') === undefined) {
-      cur.report(cur.here(), 'missing-control', `${mode} needs the part whose current controls it`, `write ${designator.name} [o+ o-] ${mode} ${mode === 'rm' ? '1k' : '10'} of R1`);
+      cur.report(
+        cur.here(),
+        'missing-control',
+        `${mode} needs the part whose current controls it`,
+        `write ${designator.name} [o+ o-] ${mode} ${mode === 'rm' ? '1k' : '10'} of R1`,
+      );
     } else {
       control = ident(cur, 'the controlling part after of', `${mode} 10 of R1`);
     }
@@ -281,7 +309,8 @@ export function blockHeader(cur: Cursor): BlockStatement {
       if (cur.eat('=') !== undefined) def = value(cur, `the default of ${p.name}`);
       params.push({ name: p, default: def });
       if (cur.isPunct(')')) break;
-      if (cur.eat(',') === undefined) cur.error(cur.here(), 'unexpected-token', `expected \`,\` or \`)\` after ${p.name}`, 'parameters are separated by commas: (R, C = 10n)');
+      if (cur.eat(',') === undefined)
+        cur.error(cur.here(), 'unexpected-token', `expected \`,\` or \`)\` after ${p.name}`, 'parameters are separated by commas: (R, C = 10n)');
     }
     if (cur.eat(')') === undefined) cur.error(open.range, 'unclosed-parenthesis', 'this `(` is never closed', 'the parameter list ends with `)`');
   }
@@ -296,7 +325,8 @@ export function useStatement(cur: Cursor): UseStatement {
   const instanceToken = cur.peek();
   const instance = ident(cur, 'the instance’s designator', `use ${block.name} as B1 [in out]`);
   checkDesignator(cur, instanceToken as Token, INSTANCE_LETTER);
-  if (!cur.isPunct('[')) cur.error(cur.here(), 'missing-nodes', `${instance.name} needs its nodes in brackets`, `write use ${block.name} as ${instance.name} [in out]`);
+  if (!cur.isPunct('['))
+    cur.error(cur.here(), 'missing-nodes', `${instance.name} needs its nodes in brackets`, `write use ${block.name} as ${instance.name} [in out]`);
   const nodes = nodeList(cur);
   const args: UseStatement['args'] = [];
   if (cur.isPunct('(')) {
@@ -307,7 +337,8 @@ export function useStatement(cur: Cursor): UseStatement {
       const v = value(cur, `the value of ${p.name}`);
       args.push({ name: p, value: v });
       if (cur.isPunct(')')) break;
-      if (cur.eat(',') === undefined) cur.error(cur.here(), 'unexpected-token', `expected \`,\` or \`)\` after the value of ${p.name}`, 'values are separated by commas: (R = 10k, C = 1n)');
+      if (cur.eat(',') === undefined)
+        cur.error(cur.here(), 'unexpected-token', `expected \`,\` or \`)\` after the value of ${p.name}`, 'values are separated by commas: (R = 10k, C = 1n)');
     }
     if (cur.eat(')') === undefined) cur.error(open.range, 'unclosed-parenthesis', 'this `(` is never closed', 'the list of values ends with `)`');
   }

@@ -73,7 +73,12 @@ export function driveStatement(cur: Cursor): DriveStatement {
   if (cur.isPunct('[')) {
     const list = nodeList(cur);
     if (list.nodes.length !== 2) {
-      cur.report(list.range, 'node-count', `a drive in brackets names 2 nodes; this has ${list.nodes.length === 0 ? 'none' : list.nodes.length}`, 'write drive [p n], or drive NODE for a drive from gnd');
+      cur.report(
+        list.range,
+        'node-count',
+        `a drive in brackets names 2 nodes; this has ${list.nodes.length === 0 ? 'none' : list.nodes.length}`,
+        'write drive [p n], or drive NODE for a drive from gnd',
+      );
     }
     nodes = list.nodes;
     nodesRange = list.range;
@@ -112,7 +117,12 @@ function traceText(e: TraceExpr): string {
 function traceExpr(cur: Cursor, mode: ShowMode): { expr: TraceExpr; range: SourceRange } {
   const start = cur.peek();
   if (start === undefined) {
-    return cur.error(cur.here(), 'missing-trace', 'what to show is missing', 'write show NODE, show NODE - NODE, show NODE / NODE, show current R1 or show impedance NODE');
+    return cur.error(
+      cur.here(),
+      'missing-trace',
+      'what to show is missing',
+      'write show NODE, show NODE - NODE, show NODE / NODE, show current R1 or show impedance NODE',
+    );
   }
   let expr: TraceExpr;
   if (cur.isWord('current') && cur.peek(1) !== undefined) {
@@ -123,7 +133,12 @@ function traceExpr(cur: Cursor, mode: ShowMode): { expr: TraceExpr; range: Sourc
     if (cur.isPunct('[')) {
       const list = nodeList(cur);
       if (list.nodes.length < 1 || list.nodes.length > 2) {
-        cur.error(list.range, 'node-count', `impedance in brackets names 2 nodes; this has ${list.nodes.length === 0 ? 'none' : list.nodes.length}`, 'write show impedance [a b], or show impedance NODE for the impedance to gnd');
+        cur.error(
+          list.range,
+          'node-count',
+          `impedance in brackets names 2 nodes; this has ${list.nodes.length === 0 ? 'none' : list.nodes.length}`,
+          'write show impedance [a b], or show impedance NODE for the impedance to gnd',
+        );
       }
       expr = { kind: 'impedance', p: list.nodes[0], n: list.nodes[1] ?? null, bracketed: true };
     } else {
@@ -296,7 +311,13 @@ export function retiredToleranceStatement(cur: Cursor): SpreadStatement {
   const range = cur.whole();
   const source = (v: Value) => cur.line.text.slice(v.range.column - 1, v.range.endColumn - 1);
   const report = (replacement?: string) =>
-    cur.report(range, 'retired-word', '`tolerance` is an earlier form of the language', replacement === undefined ? SPREAD_HINT : `write ${replacement}`, replacement === undefined ? undefined : replaceWith(replacement));
+    cur.report(
+      range,
+      'retired-word',
+      '`tolerance` is an earlier form of the language',
+      replacement === undefined ? SPREAD_HINT : `write ${replacement}`,
+      replacement === undefined ? undefined : replaceWith(replacement),
+    );
   if (word !== undefined && word.kind === 'name' && word.text === 'worstcase') {
     report(`${RETIRED.tolerance} ${RETIRED.worstcase}`);
     return { kind: 'spread', mode: 'extremes', draws: null, seed: null, range };
@@ -346,7 +367,13 @@ export function requireStatement(cur: Cursor): RequireStatement {
       const t = tokens[i];
       if (isOp(tokens[i + 1]) && t.kind === 'name') {
         const near = didYouMean(t.text, MEASURE_WORDS);
-        cur.error(t.range, 'unknown-measure', `\`${t.text}\` is not a measure`, suggestionHint(near, `the measures are ${MEASURE_LIST}.`, `The measures are ${MEASURE_LIST}.`), near.fix);
+        cur.error(
+          t.range,
+          'unknown-measure',
+          `\`${t.text}\` is not a measure`,
+          suggestionHint(near, `the measures are ${MEASURE_LIST}.`, `The measures are ${MEASURE_LIST}.`),
+          near.fix,
+        );
       }
     }
     if (cur.atEnd()) cur.error(keyword.range, 'missing-target', 'what to require is missing', hint);
@@ -361,14 +388,26 @@ export function requireStatement(cur: Cursor): RequireStatement {
   const opToken = cur.next() as Token;
   const opInfo = OPS[opToken.punct as Punct] as { op: '>=' | '<=' | '='; fix?: string };
   if (opInfo.fix !== undefined) {
-    cur.report(opToken.range, 'bad-operator', `\`${opToken.text}\` is not a comparison here`, `the comparisons are >=, <= and = VALUE ± TOL`, replaceWith(opInfo.fix));
+    cur.report(
+      opToken.range,
+      'bad-operator',
+      `\`${opToken.text}\` is not a comparison here`,
+      `the comparisons are >=, <= and = VALUE ± TOL`,
+      replaceWith(opInfo.fix),
+    );
   }
   const v = value(cur, 'the value to compare with', ['over', 'at']);
   if (v === null) throw new StatementError('require');
   let tolerance: Value | null = null;
   if (cur.eat('±') !== undefined) {
     tolerance = value(cur, 'the tolerance after ±');
-    if (opInfo.op !== '=') cur.report(tolerance?.range ?? opToken.range, 'bad-tolerance', `a tolerance goes with =, not with ${opInfo.op}`, 'write = VALUE ± TOL, or drop the tolerance');
+    if (opInfo.op !== '=')
+      cur.report(
+        tolerance?.range ?? opToken.range,
+        'bad-tolerance',
+        `a tolerance goes with =, not with ${opInfo.op}`,
+        'write = VALUE ± TOL, or drop the tolerance',
+      );
   } else if (opInfo.op === '=') {
     cur.report(v.range, 'missing-tolerance', '= needs a tolerance', `write = ${v.kind === 'number' ? v.text : 'VALUE'} ± 2% or give an absolute tolerance`);
   }
@@ -391,7 +430,18 @@ export function requireStatement(cur: Cursor): RequireStatement {
   cur.finish('the requirement', hint);
   const whole = cur.whole();
   const text = cur.line.text.slice(whole.column - 1, whole.endColumn - 1).trim();
-  return { kind: 'require', target, measure, op: { op: opInfo.op, range: opToken.range }, value: v, tolerance, over, at, text, range: merge(keyword.range, whole) };
+  return {
+    kind: 'require',
+    target,
+    measure,
+    op: { op: opInfo.op, range: opToken.range },
+    value: v,
+    tolerance,
+    over,
+    at,
+    text,
+    range: merge(keyword.range, whole),
+  };
 }
 
 /** The target's words in the same canonical form as a `show` line's (`loop out / in`). */

@@ -73,7 +73,10 @@ export function value(cur: Cursor, what: string, stopWords: readonly string[] = 
         const col = u.range.column - 1;
         describeSuffixProblem(reading.reason, '', col, col + u.text.length, (start, end, code, message, hint, fix) => {
           const range = { line: u.range.line, column: start + 1, endColumn: end + 1 };
-          const qf = fix === undefined ? undefined : replaceWith(fix.replacement, { line: u.range.line, column: (fix.start ?? start) + 1, endColumn: (fix.end ?? end) + 1 });
+          const qf =
+            fix === undefined
+              ? undefined
+              : replaceWith(fix.replacement, { line: u.range.line, column: (fix.start ?? start) + 1, endColumn: (fix.end ?? end) + 1 });
           cur.report(range, code, message, hint, qf);
         });
         v.bad = true;
@@ -145,10 +148,19 @@ export function nodeName(cur: Cursor, what: string): Ident {
     cur.next();
     const renamed = cur.plan().node(t.text);
     if (t.text === '0') {
-      cur.report(t.range, 'ground-is-gnd', 'ground is written gnd, not 0', 'the ground node has one name, gnd', { title: 'Replace with gnd', replacement: renamed });
+      cur.report(t.range, 'ground-is-gnd', 'ground is written gnd, not 0', 'the ground node has one name, gnd', {
+        title: 'Replace with gnd',
+        replacement: renamed,
+      });
       return { name: renamed, range: t.range };
     }
-    cur.report(t.range, 'digit-node', `\`${t.text}\` cannot be a node name: a node name starts with a letter or _`, `write ${renamed}, or a name that says what the node is, like out`, replaceWith(renamed));
+    cur.report(
+      t.range,
+      'digit-node',
+      `\`${t.text}\` cannot be a node name: a node name starts with a letter or _`,
+      `write ${renamed}, or a name that says what the node is, like out`,
+      replaceWith(renamed),
+    );
     return { name: t.text, range: t.range };
   }
   if (t !== undefined && t.kind === 'number') {

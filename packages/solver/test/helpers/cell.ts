@@ -19,7 +19,13 @@ export function trace(result: Result, label: string): TraceResult {
 
 export function readout(result: Result, label: string, name: string): Readout {
   const r = result.readouts.find((x) => x.trace === label && x.name === name);
-  if (!r) throw new Error(`no readout ${name} on ${label}; have ${result.readouts.filter((x) => x.trace === label).map((x) => x.name).join(', ')}`);
+  if (!r)
+    throw new Error(
+      `no readout ${name} on ${label}; have ${result.readouts
+        .filter((x) => x.trace === label)
+        .map((x) => x.name)
+        .join(', ')}`,
+    );
   return r;
 }
 
@@ -43,5 +49,8 @@ export function rel(a: number, b: number): number {
 
 /** Frequencies written with full precision for a `sweep at` line. */
 export function sweepAt(...fs: number[]): string {
-  return `sweep at ${[...fs].sort((a, b) => a - b).map((f) => f.toPrecision(17)).join(', ')}`;
+  return `sweep at ${[...fs]
+    .sort((a, b) => a - b)
+    .map((f) => f.toPrecision(17))
+    .join(', ')}`;
 }

@@ -46,7 +46,17 @@ export class Net {
   }
 
   opamp(name: string, p: string, n: string, o: string, opts: { gain?: number; gbw?: number; zout?: number } = {}): this {
-    this.elements.push({ kind: 'opamp', name, range: R0, p: this.node(p), n: this.node(n), o: this.node(o), zout: opts.zout ?? 0, gain: opts.gain, gbw: opts.gbw });
+    this.elements.push({
+      kind: 'opamp',
+      name,
+      range: R0,
+      p: this.node(p),
+      n: this.node(n),
+      o: this.node(o),
+      zout: opts.zout ?? 0,
+      gain: opts.gain,
+      gbw: opts.gbw,
+    });
     return this;
   }
 
@@ -82,8 +92,7 @@ export class Net {
 
   show(label: string, probe: Probe, kind?: TraceKind): this {
     const k: TraceKind =
-      kind ??
-      (probe.kind === 'impedance' ? 'impedance' : probe.kind === 'current' ? 'current' : this.drive?.kind === 'current' ? 'transimpedance' : 'ratio');
+      kind ?? (probe.kind === 'impedance' ? 'impedance' : probe.kind === 'current' ? 'current' : this.drive?.kind === 'current' ? 'transimpedance' : 'ratio');
     const unit = k === 'impedance' || k === 'transimpedance' ? 'Ω' : k === 'current' ? 'A/V' : 'V/V';
     this.traces.push({ label, expr: label, kind: k, probe, unit, range: { line: 10 + this.traces.length, column: 1, endColumn: 5 } });
     return this;

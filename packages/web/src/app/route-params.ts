@@ -14,7 +14,9 @@ export function notebookIdOf(params: { id?: string }): string {
 }
 
 /** A notebook cell's name by its id (its title or "Circuit 2": the contract's cellName), or "a deleted cell" for one no longer listed. */
-export function cellNamer(cells: readonly { id: number; kind: CellKind; title: string | null; position: number; deletedAt: string | null }[]): (cellId: number) => string {
+export function cellNamer(
+  cells: readonly { id: number; kind: CellKind; title: string | null; position: number; deletedAt: string | null }[],
+): (cellId: number) => string {
   const byId = new Map(cells.map((cell) => [cell.id, cell]));
   return (cellId) => {
     const cell = byId.get(cellId);

@@ -27,7 +27,13 @@ export const router = createBrowserRouter([
           { path: 'settings', lazy: () => import('./routes/settings') },
           { path: 'admin', lazy: () => import('./routes/admin') },
           { path: 'help', lazy: () => import('./routes/help') },
-          { path: '*', element: null, loader: () => { throw data({ what: 'This page' }, { status: 404 }); } },
+          {
+            path: '*',
+            element: null,
+            loader: () => {
+              throw data({ what: 'This page' }, { status: 404 });
+            },
+          },
         ],
       },
     ],

@@ -25,7 +25,16 @@ describe('moving to another page', () => {
 
   it('puts the focus on the new page’s heading and names the page in the title, but not on the first load', async () => {
     const router = createMemoryRouter(
-      [{ path: '/', element: <Frame />, children: [{ index: true, element: <Page title="Notebook" /> }, { path: 'versions', element: <Page title="Versions" /> }] }],
+      [
+        {
+          path: '/',
+          element: <Frame />,
+          children: [
+            { index: true, element: <Page title="Notebook" /> },
+            { path: 'versions', element: <Page title="Versions" /> },
+          ],
+        },
+      ],
       { initialEntries: ['/'] },
     );
     render(<RouterProvider router={router} />);

@@ -22,7 +22,11 @@ describe('the API client', () => {
   });
 
   it('turns the API’s error shape into an ApiError with its id and message', async () => {
-    answer(400, { error: 'validation', message: 'title: A title cannot be empty.', details: { issues: [{ path: 'title', message: 'A title cannot be empty.' }] } });
+    answer(400, {
+      error: 'validation',
+      message: 'title: A title cannot be empty.',
+      details: { issues: [{ path: 'title', message: 'A title cannot be empty.' }] },
+    });
     const error = await apiRequest('/api/notebooks', z.unknown(), { method: 'POST', body: {} }).catch((e: unknown) => e);
     expect(error).toBeInstanceOf(ApiError);
     expect(error).toMatchObject({ status: 400, id: 'validation', message: 'title: A title cannot be empty.' });
@@ -40,7 +44,10 @@ describe('the API client', () => {
   });
 
   it('says the server cannot be reached when the request fails on the way', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))),
+    );
     const error = await apiRequest('/api/notebooks', z.unknown()).catch((e: unknown) => e);
     expect(error).toMatchObject({ status: 0, unreachable: true });
   });

@@ -97,6 +97,11 @@ export async function apiRequest<T>(path: string, schema: z.ZodType<T>, options:
   }
   if (json === undefined) throw new ApiError(response.status, 'internal', 'The server sent an answer that is not JSON.');
   const parsed = schema.safeParse(json);
-  if (!parsed.success) throw new ApiError(response.status, 'internal', `The server's answer did not have the expected shape (${parsed.error.issues[0]?.path.join('.') || 'body'}).`);
+  if (!parsed.success)
+    throw new ApiError(
+      response.status,
+      'internal',
+      `The server's answer did not have the expected shape (${parsed.error.issues[0]?.path.join('.') || 'body'}).`,
+    );
   return parsed.data;
 }

@@ -22,8 +22,6 @@ async function rename(queryRunner: QueryRunner, from: string, to: string): Promi
   await queryRunner.query('ALTER TABLE review_decisions DROP CONSTRAINT chk_review_decisions_state');
   await queryRunner.query('UPDATE review_assignments SET state = ? WHERE state = ?', [to, from]);
   await queryRunner.query('UPDATE review_decisions SET state = ? WHERE state = ?', [to, from]);
-  await queryRunner.query(
-    `ALTER TABLE review_assignments ADD CONSTRAINT chk_review_assignments_state CHECK (state IN ('requested', '${to}', 'signed_off'))`,
-  );
+  await queryRunner.query(`ALTER TABLE review_assignments ADD CONSTRAINT chk_review_assignments_state CHECK (state IN ('requested', '${to}', 'signed_off'))`);
   await queryRunner.query(`ALTER TABLE review_decisions ADD CONSTRAINT chk_review_decisions_state CHECK (state IN ('${to}', 'signed_off'))`);
 }

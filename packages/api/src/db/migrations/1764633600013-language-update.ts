@@ -26,7 +26,7 @@ export class LanguageUpdate1764633600013 implements MigrationInterface {
     ]);
     const [system]: { id: number }[] = await queryRunner.query('SELECT id FROM users WHERE login = ?', [SYSTEM_USER.login]);
     const now = new Date();
-    for (let after = 0; ; ) {
+    for (let after = 0; ;) {
       const cells: { id: number; revision: number; text: string }[] = await queryRunner.query(
         `SELECT c.id, c.revision, r.text FROM cells c JOIN cell_revisions r ON r.cellId = c.id AND r.number = c.revision
           WHERE c.kind = 'circuit' AND c.id > ? ORDER BY c.id LIMIT ${batch}`,

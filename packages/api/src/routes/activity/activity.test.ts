@@ -35,7 +35,12 @@ describe('/api/notebooks/:id/activity', () => {
 
   it('tells saves, versions, forks, pins, replies and review states, newest first, each with who and what', async () => {
     const [reviewer, viewer] = [await buildUser(), await buildUser()];
-    const notebook = await buildNotebook({ members: [[reviewer, 'reviewer'], [viewer, 'viewer']] });
+    const notebook = await buildNotebook({
+      members: [
+        [reviewer, 'reviewer'],
+        [viewer, 'viewer'],
+      ],
+    });
     const owner = await signedIn(server.url, notebook.ownerUser.login);
     const reviewing = await signedIn(server.url, reviewer.login);
     const viewing = await signedIn(server.url, viewer.login);
@@ -46,7 +51,9 @@ describe('/api/notebooks/:id/activity', () => {
     await owner.post(`/api/notebooks/${id}/versions`, { label: 'First look' });
     const fork = NotebookSchema.parse((await viewing.post(`/api/notebooks/${id}/forks`, {})).body);
     const review = ReviewSchema.parse((await owner.post(`/api/notebooks/${id}/reviews`, { reviewerIds: [reviewer.id], message: 'Corner, please.' })).body);
-    const pin = PinSchema.parse((await reviewing.post(`/api/notebooks/${id}/pins`, { cellId: circuit.id, trace: 'out', frequency: 1326, body: 'Corner moved down.' })).body);
+    const pin = PinSchema.parse(
+      (await reviewing.post(`/api/notebooks/${id}/pins`, { cellId: circuit.id, trace: 'out', frequency: 1326, body: 'Corner moved down.' })).body,
+    );
     await owner.post(`/api/notebooks/${id}/pins/${pin.id}/comments`, { body: 'On purpose: more margin.' });
     await reviewing.post(`/api/notebooks/${id}/pins/${pin.id}/resolve`);
     await reviewing.post(`/api/notebooks/${id}/reviews/${review.id}/decision`, { state: 'signed_off', summary: 'Fine.' });
@@ -76,7 +83,11 @@ describe('/api/notebooks/:id/activity', () => {
     expect(position('fork')).toBeLessThan(position('revision'));
 
     const find = <K extends ActivityItem['kind']>(kind: K) => items.filter((item): item is Extract<ActivityItem, { kind: K }> => item.kind === kind);
-    expect(find('revision').map((r) => [r.cell.id, r.cell.kind, r.revisionNumber, r.message]).sort()).toEqual(
+    expect(
+      find('revision')
+        .map((r) => [r.cell.id, r.cell.kind, r.revisionNumber, r.message])
+        .sort(),
+    ).toEqual(
       [
         [notebook.cells[0]!.id, 'note', 1, null],
         [circuit.id, 'circuit', 1, null],
@@ -86,9 +97,16 @@ describe('/api/notebooks/:id/activity', () => {
     // Nothing changed after "First look", so the review is of that version.
     expect(find('version').map((v) => v.version)).toEqual([{ number: 1, label: 'First look' }]);
     expect(find('fork')[0]!.fork).toEqual({ id: fork.id, title: fork.title });
-    expect(find('pin')[0]).toMatchObject({ pin: { id: pin.id, cellId: circuit.id, revisionNumber: 2, trace: 'out', frequency: 1326 }, excerpt: 'Corner moved down.' });
+    expect(find('pin')[0]).toMatchObject({
+      pin: { id: pin.id, cellId: circuit.id, revisionNumber: 2, trace: 'out', frequency: 1326 },
+      excerpt: 'Corner moved down.',
+    });
     expect(find('comment')[0]).toMatchObject({ pin: { id: pin.id }, excerpt: 'On purpose: more margin.' });
-    expect(find('review_requested')[0]).toMatchObject({ review: { id: review.id, round: 1, versionNumber: 1 }, reviewers: [{ id: reviewer.id }], excerpt: 'Corner, please.' });
+    expect(find('review_requested')[0]).toMatchObject({
+      review: { id: review.id, round: 1, versionNumber: 1 },
+      reviewers: [{ id: reviewer.id }],
+      excerpt: 'Corner, please.',
+    });
     expect(review.version.number).toBe(1);
     expect(find('review_decision')[0]).toMatchObject({ review: { id: review.id, round: 1 }, state: 'signed_off', excerpt: 'Fine.' });
     expect(new Set(items.map((item) => item.id)).size).toBe(items.length);
@@ -99,8 +117,15 @@ describe('/api/notebooks/:id/activity', () => {
 
   it('does not show a fork the caller may not read, and refuses a cursor it did not make', async () => {
     const [forker, reader] = [await buildUser(), await buildUser()];
-    const notebook = await buildNotebook({ members: [[forker, 'viewer'], [reader, 'viewer']] });
-    const fork = NotebookSchema.parse((await (await signedIn(server.url, forker.login)).post(`/api/notebooks/${notebook.id}/forks`, { title: 'Private try' })).body);
+    const notebook = await buildNotebook({
+      members: [
+        [forker, 'viewer'],
+        [reader, 'viewer'],
+      ],
+    });
+    const fork = NotebookSchema.parse(
+      (await (await signedIn(server.url, forker.login)).post(`/api/notebooks/${notebook.id}/forks`, { title: 'Private try' })).body,
+    );
     const readerClient = await signedIn(server.url, reader.login);
     const seen = ActivityPageSchema.parse((await readerClient.get(`/api/notebooks/${notebook.id}/activity`)).body);
     const forkItem = seen.items.find((item) => item.kind === 'fork');
@@ -110,7 +135,11 @@ describe('/api/notebooks/:id/activity', () => {
     const forkerView = ActivityPageSchema.parse((await (await signedIn(server.url, forker.login)).get(`/api/notebooks/${notebook.id}/activity`)).body);
     expect(forkerView.items.find((item) => item.kind === 'fork')).toMatchObject({ fork: { id: fork.id, title: 'Private try' }, actor: { id: forker.id } });
 
-    for (const cursor of ['nonsense', Buffer.from('12.revision.DROP TABLE').toString('base64url'), Buffer.from('12.unknown.000000000001').toString('base64url')]) {
+    for (const cursor of [
+      'nonsense',
+      Buffer.from('12.revision.DROP TABLE').toString('base64url'),
+      Buffer.from('12.unknown.000000000001').toString('base64url'),
+    ]) {
       const reply = await readerClient.get(`/api/notebooks/${notebook.id}/activity?cursor=${cursor}`);
       expect(reply.status, cursor).toBe(400);
       expect(reply.body).toMatchObject({ error: 'validation', details: { issues: [{ path: 'query.cursor' }] } });

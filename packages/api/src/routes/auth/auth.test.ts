@@ -113,7 +113,10 @@ describe('sign-in through the OAuth stand-in', () => {
 
   it('has the stand-in send codes only to the callback registered for the client, as GitHub does', async () => {
     const authorize = (standinUrl: string, redirectUri: string) =>
-      fetch(`${standinUrl}/login/oauth/authorize?${new URLSearchParams({ client_id: standinClient.id, redirect_uri: redirectUri, state: 's', login: 'someone' })}`, { redirect: 'manual' });
+      fetch(
+        `${standinUrl}/login/oauth/authorize?${new URLSearchParams({ client_id: standinClient.id, redirect_uri: redirectUri, state: 's', login: 'someone' })}`,
+        { redirect: 'manual' },
+      );
     // Unregistered (the local default): the API's callback path on loopback only.
     for (const elsewhere of ['http://attacker.example/auth/github/callback', `${server.url}/somewhere/else`]) {
       const refused = await authorize(server.standin.url, elsewhere);
@@ -126,7 +129,11 @@ describe('sign-in through the OAuth stand-in', () => {
     try {
       expect((await authorize(registered.url, 'https://rolloff.example/auth/github/callback')).status).toBe(302);
       expect((await authorize(registered.url, 'https://rolloff.example/auth/github/callback/more')).status).toBe(302);
-      for (const elsewhere of ['https://rolloff.example:8443/auth/github/callback', 'http://rolloff.example/auth/github/callback', 'https://rolloff.example/auth/other']) {
+      for (const elsewhere of [
+        'https://rolloff.example:8443/auth/github/callback',
+        'http://rolloff.example/auth/github/callback',
+        'https://rolloff.example/auth/other',
+      ]) {
         expect((await authorize(registered.url, elsewhere)).status, elsewhere).toBe(400);
       }
     } finally {
@@ -142,7 +149,7 @@ describe('sign-in through the OAuth stand-in', () => {
     expect((await client.get('/api/me')).status).toBe(401);
   });
 
-  it('marks the sign-in start\'s cookie Secure when the request came over HTTPS through the proxy', async () => {
+  it("marks the sign-in start's cookie Secure when the request came over HTTPS through the proxy", async () => {
     const client = new Client(server.url);
     const start = await client.fetch('/auth/github?login=someone', { headers: { 'x-forwarded-proto': 'https' } });
     const cookies = start.headers.getSetCookie().filter((line) => !line.startsWith(`${CSRF_COOKIE}=`));

@@ -20,7 +20,16 @@ export function authRouter(auth: Auth): Router {
 
   router.get('/github', start, (req, res, next) => {
     if (!auth.signInAvailable) {
-      res.status(503).type('html').send(messagePage('Sign-in is not set up', 'Set OAUTH_BASE_URL (the local stand-in) or GITHUB_CLIENT_ID and GITHUB_CLIENT_SECRET, then restart the server.', { href: '/', text: 'Back to Rolloff' }));
+      res
+        .status(503)
+        .type('html')
+        .send(
+          messagePage(
+            'Sign-in is not set up',
+            'Set OAUTH_BASE_URL (the local stand-in) or GITHUB_CLIENT_ID and GITHUB_CLIENT_SECRET, then restart the server.',
+            { href: '/', text: 'Back to Rolloff' },
+          ),
+        );
       return;
     }
     const { query } = start.input(req);
@@ -34,7 +43,15 @@ export function authRouter(auth: Auth): Router {
     auth.passport.authenticate('github', (error: unknown, user: Express.User | false, info?: { message?: string }) => {
       if (error) {
         console.error('sign-in failed:', error);
-        res.status(502).type('html').send(messagePage('Sign-in did not complete', 'GitHub (or the sign-in stand-in) did not answer as expected. Try again in a moment.', { href: '/auth/github', text: 'Sign in again' }));
+        res
+          .status(502)
+          .type('html')
+          .send(
+            messagePage('Sign-in did not complete', 'GitHub (or the sign-in stand-in) did not answer as expected. Try again in a moment.', {
+              href: '/auth/github',
+              text: 'Sign in again',
+            }),
+          );
         return;
       }
       if (!user) {
@@ -42,7 +59,12 @@ export function authRouter(auth: Auth): Router {
         res
           .status(refusal?.status ?? 401)
           .type('html')
-          .send(messagePage(refusal?.title ?? 'Sign-in did not complete', refusal?.message ?? 'The sign-in was cancelled or has expired.', { href: '/auth/github', text: 'Sign in again' }));
+          .send(
+            messagePage(refusal?.title ?? 'Sign-in did not complete', refusal?.message ?? 'The sign-in was cancelled or has expired.', {
+              href: '/auth/github',
+              text: 'Sign in again',
+            }),
+          );
         return;
       }
       const returnTo = (res.locals.returnTo as string | undefined) ?? '/notebooks';

@@ -8,7 +8,7 @@ import type { Reply } from '../../../test/client.js';
 import { buildNotebook, buildUser } from '../../../test/factories.js';
 import { useTestServer } from '../../../test/use-test-server.js';
 
-describe('PATCH /api/notebooks/:id/cells/:cellId (a cell\'s title)', () => {
+describe("PATCH /api/notebooks/:id/cells/:cellId (a cell's title)", () => {
   const server = useTestServer();
 
   it('requires sign-in', async () => {
@@ -37,7 +37,12 @@ describe('PATCH /api/notebooks/:id/cells/:cellId (a cell\'s title)', () => {
     expect(fork.cells.map((cell) => cell.title)).toEqual([null, 'Input filter']);
 
     // A pin's message names it by its title too.
-    const note = await client.post<{ message: string }>(`/api/notebooks/${notebook.id}/pins`, { cellId: notebook.cells[0]!.id, trace: 'out', frequency: 1000, body: 'x' });
+    const note = await client.post<{ message: string }>(`/api/notebooks/${notebook.id}/pins`, {
+      cellId: notebook.cells[0]!.id,
+      trace: 'out',
+      frequency: 1000,
+      body: 'x',
+    });
     expect(note.body.message).toMatch(/Note 1 is a note cell/);
 
     const cleared = CellSavedSchema.parse((await client.patch(path, { title: null })).body);

@@ -118,9 +118,7 @@ describe('/api/notebooks/:id/cells', () => {
   it('50 parallel saves to 50 different cells lose none', async () => {
     const cells = Array.from({ length: 50 }, (_, i) => ({ kind: 'note' as const, text: `cell ${i}` }));
     const { notebook, client, base } = await ownNotebook(cells);
-    const replies = await Promise.all(
-      notebook.cells.map((cell, i) => client.put(`${base}/${cell.id}`, { text: `cell ${i}, edited`, baseRevision: 1 })),
-    );
+    const replies = await Promise.all(notebook.cells.map((cell, i) => client.put(`${base}/${cell.id}`, { text: `cell ${i}, edited`, baseRevision: 1 })));
     expect(replies.map((r) => r.status)).toEqual(Array(50).fill(201));
     const after = NotebookSchema.parse((await client.get(`/api/notebooks/${notebook.id}`)).body);
     expect(after.cells.map((c) => c.text)).toEqual(cells.map((_, i) => `cell ${i}, edited`));
@@ -148,7 +146,11 @@ describe('/api/notebooks/:id/cells', () => {
     expect(removed.status).toBe(200);
     expect(CellSavedSchema.parse(removed.body).cell.deletedAt).not.toBeNull();
     const detail = NotebookSchema.parse((await client.get(`/api/notebooks/${notebook.id}`)).body);
-    expect(detail.cells.map((cell) => [cell.id, cell.position])).toEqual([[d, 0], [c, 1], [a, 2]]);
+    expect(detail.cells.map((cell) => [cell.id, cell.position])).toEqual([
+      [d, 0],
+      [c, 1],
+      [a, 2],
+    ]);
     expect(detail.deletedCells.map((cell) => cell.id)).toEqual([b]);
     expect(detail.cellCount).toBe(3);
 
@@ -181,7 +183,15 @@ describe('/api/notebooks/:id/cells', () => {
     const db = await connect();
     const now = new Date();
     for (let i = notebook.cells.length; i < LIMITS.cellsPerNotebook; i++) {
-      const [inserted] = [await db.query('INSERT INTO cells (notebookId, kind, position, revision, createdAt, updatedAt) VALUES (?, ?, ?, 1, ?, ?)', [notebook.id, 'note', i, now, now])];
+      const [inserted] = [
+        await db.query('INSERT INTO cells (notebookId, kind, position, revision, createdAt, updatedAt) VALUES (?, ?, ?, 1, ?, ?)', [
+          notebook.id,
+          'note',
+          i,
+          now,
+          now,
+        ]),
+      ];
       await db.query('INSERT INTO cell_revisions (cellId, number, text, createdAt) VALUES (?, 1, ?, ?)', [inserted.insertId, '', now]);
     }
     const full = await client.post(base, { kind: 'note', text: 'one too many' });
@@ -190,10 +200,19 @@ describe('/api/notebooks/:id/cells', () => {
     expect((full.body as { message: string }).message).toMatch(/500 cells/);
   });
 
-  it('shows a deleted cell\'s history only to those who may edit, as the notebook shows the cell', async () => {
+  it("shows a deleted cell's history only to those who may edit, as the notebook shows the cell", async () => {
     const viewer = await buildUser();
     const reviewer = await buildUser();
-    const notebook = await buildNotebook({ cells: [{ kind: 'note', text: 'kept' }, { kind: 'note', text: 'gone' }], members: [[viewer, 'viewer'], [reviewer, 'reviewer']] });
+    const notebook = await buildNotebook({
+      cells: [
+        { kind: 'note', text: 'kept' },
+        { kind: 'note', text: 'gone' },
+      ],
+      members: [
+        [viewer, 'viewer'],
+        [reviewer, 'reviewer'],
+      ],
+    });
     const owner = await signedIn(server.url, notebook.ownerUser.login);
     const gone = notebook.cells[1]!.id;
     const history = `/api/notebooks/${notebook.id}/cells/${gone}/revisions`;

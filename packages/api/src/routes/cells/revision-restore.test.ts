@@ -23,7 +23,7 @@ describe('POST /api/notebooks/:id/cells/:cellId/revisions/:number/restore', () =
     expect(reply.status).toBe(401);
   });
 
-  it('saves an old circuit revision in today\'s forms as a new revision, and says so', async () => {
+  it("saves an old circuit revision in today's forms as a new revision, and says so", async () => {
     const notebook = await buildNotebook({ cells: [{ kind: 'circuit', text: oldLowPass }] });
     const client = await signedIn(server.url, notebook.ownerUser.login);
     const cellId = notebook.cells[0]!.id;

@@ -28,7 +28,10 @@ export function devMailRouter(standinUrl: string): Router {
       if (!parsed.success) throw new Error('its reply is not a list of messages');
       messages = parsed.data.messages;
     } catch (error) {
-      res.status(502).type('html').send(mailboxDownPage(standinUrl, (error as Error).message));
+      res
+        .status(502)
+        .type('html')
+        .send(mailboxDownPage(standinUrl, (error as Error).message));
       return;
     }
     // The stand-in lists newest first already; sorting again keeps the page right if it ever does not.

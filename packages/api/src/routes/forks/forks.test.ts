@@ -28,7 +28,13 @@ describe('/api/notebooks/:id/forks', () => {
     const made = await client.post<Notebook>(`/api/notebooks/${source.id}/forks`, {});
     expect(made.status).toBe(201);
     const fork = NotebookSchema.parse(made.body);
-    expect(fork).toMatchObject({ title: 'Decoupling network (fork)', description: source.description, role: 'owner', owner: { id: viewer.id }, versionCount: 0 });
+    expect(fork).toMatchObject({
+      title: 'Decoupling network (fork)',
+      description: source.description,
+      role: 'owner',
+      owner: { id: viewer.id },
+      versionCount: 0,
+    });
     expect(source.description).toBe('Analog rail, below 1 Ω from 10 kHz up.');
     expect(fork.id).not.toBe(source.id);
     expect(fork.cells.map((c) => [c.kind, c.text, c.revision])).toEqual(source.cells.map((c) => [c.kind, c.text, 1]));

@@ -33,7 +33,15 @@ describe('/api/notebooks', () => {
     });
     expect(created.status).toBe(201);
     const notebook = NotebookSchema.parse(created.body);
-    expect(notebook).toMatchObject({ title: 'Anti-alias filter', role: 'owner', visibility: 'private', cellCount: 3, forkCount: 0, forkedFrom: null, lineage: [] });
+    expect(notebook).toMatchObject({
+      title: 'Anti-alias filter',
+      role: 'owner',
+      visibility: 'private',
+      cellCount: 3,
+      forkCount: 0,
+      forkedFrom: null,
+      lineage: [],
+    });
     expect(notebook.owner).toMatchObject({ id: user.id, login: user.login });
     expect(notebook.permissions).toEqual({ read: true, fork: true, review: true, edit: true, share: true, delete: true });
     expect(notebook.cells.map((cell) => [cell.position, cell.kind, cell.revision])).toEqual([
@@ -161,7 +169,10 @@ describe('/api/notebooks', () => {
     expect((long.body as { message: string }).message).toMatch(/^title: .*200/);
     expect((await client.post('/api/notebooks', { title: 'x'.repeat(LIMITS.titleLength) })).status).toBe(201);
 
-    const many = await client.post('/api/notebooks', { title: 'Many', cells: Array.from({ length: LIMITS.cellsPerNotebook + 1 }, () => ({ kind: 'note', text: '' })) });
+    const many = await client.post('/api/notebooks', {
+      title: 'Many',
+      cells: Array.from({ length: LIMITS.cellsPerNotebook + 1 }, () => ({ kind: 'note', text: '' })),
+    });
     expect(many.status).toBe(400);
     expect((many.body as { message: string }).message).toMatch(/^cells: .*500/);
   });
@@ -180,7 +191,11 @@ describe('/api/notebooks', () => {
     // Trimmed, and CR LF kept as a plain line break.
     expect(NotebookSchema.parse(created.body).description).toBe('Ferrite bead and two capacitors.\nSee the second cell.');
     const id = created.body.id;
-    for (const [user, role] of [[editor, 'editor'], [reviewer, 'reviewer'], [viewer, 'viewer']] as const) {
+    for (const [user, role] of [
+      [editor, 'editor'],
+      [reviewer, 'reviewer'],
+      [viewer, 'viewer'],
+    ] as const) {
       expect((await ownerClient.put(`/api/notebooks/${id}/members/${user.id}`, { role })).status).toBe(201);
     }
     const untitled = NotebookSchema.parse((await ownerClient.post('/api/notebooks', { title: 'No words yet' })).body);

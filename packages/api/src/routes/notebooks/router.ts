@@ -3,14 +3,7 @@ import { Router } from 'express';
 import { actorOf, requireUser } from '../../auth/require-user.js';
 import { NotebookCreateSchema, NotebookListQuerySchema, NotebookUpdateSchema } from '../../contract/notebooks.js';
 import { connect } from '../../db/connection.js';
-import {
-  createNotebook,
-  deleteNotebook,
-  getNotebook,
-  listNotebooks,
-  restoreNotebook,
-  updateNotebook,
-} from '../../services/notebooks.js';
+import { createNotebook, deleteNotebook, getNotebook, listNotebooks, restoreNotebook, updateNotebook } from '../../services/notebooks.js';
 import { validate } from '../../validate.js';
 import { activityRouter } from '../activity/router.js';
 import { cellsRouter } from '../cells/router.js';

@@ -21,13 +21,26 @@ describe('/api/notebooks/:id/pins', () => {
 
   async function team() {
     const [editor, reviewer, other, viewer] = [await buildUser(), await buildUser(), await buildUser(), await buildUser()];
-    const notebook = await buildNotebook({ members: [[editor, 'editor'], [reviewer, 'reviewer'], [other, 'reviewer'], [viewer, 'viewer']] });
+    const notebook = await buildNotebook({
+      members: [
+        [editor, 'editor'],
+        [reviewer, 'reviewer'],
+        [other, 'reviewer'],
+        [viewer, 'viewer'],
+      ],
+    });
     const as = (user: User) => signedIn(server.url, user.login);
     return {
       notebook,
       circuit: notebook.cells[1]!,
       people: { owner: notebook.ownerUser, editor, reviewer, other, viewer },
-      clients: { owner: await as(notebook.ownerUser), editor: await as(editor), reviewer: await as(reviewer), other: await as(other), viewer: await as(viewer) },
+      clients: {
+        owner: await as(notebook.ownerUser),
+        editor: await as(editor),
+        reviewer: await as(reviewer),
+        other: await as(other),
+        viewer: await as(viewer),
+      },
       base: `/api/notebooks/${notebook.id}/pins`,
     };
   }
@@ -69,18 +82,24 @@ describe('/api/notebooks/:id/pins', () => {
     expect(pin.frequency).toBe(corner);
     expect(pin.comments.map((c) => [c.author?.id, c.body])).toEqual([[people.reviewer.id, 'Is this the **corner** we want?']]);
 
-    expect((await clients.editor.put(`/api/notebooks/${notebook.id}/cells/${circuit.id}`, { text: rcLowPass.replace('100n', '120n'), baseRevision: 1 })).status).toBe(201);
+    expect(
+      (await clients.editor.put(`/api/notebooks/${notebook.id}/cells/${circuit.id}`, { text: rcLowPass.replace('100n', '120n'), baseRevision: 1 })).status,
+    ).toBe(201);
     const later = PinListSchema.parse((await clients.viewer.get(base)).body);
     expect(later.items.map((p) => [p.id, p.revisionNumber, p.currentRevisionNumber])).toEqual([[pin.id, 1, 2]]);
 
     // A pin can be put on an older revision on purpose, or on the current one by default.
-    const onOld = PinSchema.parse((await clients.other.post(base, { cellId: circuit.id, revisionNumber: 1, trace: 'out', frequency: 50, body: 'Flat here.' })).body);
+    const onOld = PinSchema.parse(
+      (await clients.other.post(base, { cellId: circuit.id, revisionNumber: 1, trace: 'out', frequency: 50, body: 'Flat here.' })).body,
+    );
     const onNew = PinSchema.parse((await clients.editor.post(base, { cellId: circuit.id, trace: 'out', frequency: 2e3, body: 'Moved.' })).body);
     expect([onOld.revisionNumber, onNew.revisionNumber]).toEqual([1, 2]);
 
     // Filtered by cell, oldest first.
     const other = await clients.owner.post<{ cell: { id: number } }>(`/api/notebooks/${notebook.id}/cells`, { kind: 'circuit', text: rcLowPass });
-    const elsewhere = PinSchema.parse((await clients.owner.post(base, { cellId: other.body.cell.id, trace: 'out', frequency: 10, body: 'Another cell.' })).body);
+    const elsewhere = PinSchema.parse(
+      (await clients.owner.post(base, { cellId: other.body.cell.id, trace: 'out', frequency: 10, body: 'Another cell.' })).body,
+    );
     expect(PinListSchema.parse((await clients.viewer.get(`${base}?cellId=${circuit.id}`)).body).items.map((p) => p.id)).toEqual([pin.id, onOld.id, onNew.id]);
     expect(PinListSchema.parse((await clients.viewer.get(`${base}?cellId=${other.body.cell.id}`)).body).items.map((p) => p.id)).toEqual([elsewhere.id]);
     expect(PinListSchema.parse((await clients.viewer.get(base)).body).items).toHaveLength(4);
@@ -112,7 +131,9 @@ describe('/api/notebooks/:id/pins', () => {
       if (path) expect(reply.body.details!.issues.map((i) => i.path)).toContain(path);
     }
     // JSON can spell a number too large for a double: it arrives as Infinity and is refused.
-    const huge = await clients.reviewer.post<ErrorReply>(base, undefined, { raw: `{"cellId": ${circuit.id}, "trace": "out", "frequency": 1e400, "body": "x"}` });
+    const huge = await clients.reviewer.post<ErrorReply>(base, undefined, {
+      raw: `{"cellId": ${circuit.id}, "trace": "out", "frequency": 1e400, "body": "x"}`,
+    });
     expect(huge.status).toBe(400);
     expect(huge.body.details!.issues).toEqual([{ path: 'frequency', message: 'A frequency is a finite number of Hz.' }]);
     // A long comment within the limit is kept whole.

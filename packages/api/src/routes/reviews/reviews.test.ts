@@ -34,7 +34,14 @@ describe('/api/notebooks/:id/reviews', () => {
     return {
       notebook,
       people: { editor, first, second, viewer, idle, owner: notebook.ownerUser },
-      clients: { owner: await as(notebook.ownerUser), editor: await as(editor), first: await as(first), second: await as(second), viewer: await as(viewer), idle: await as(idle) },
+      clients: {
+        owner: await as(notebook.ownerUser),
+        editor: await as(editor),
+        first: await as(first),
+        second: await as(second),
+        viewer: await as(viewer),
+        idle: await as(idle),
+      },
       base: `/api/notebooks/${notebook.id}/reviews`,
     };
   }
@@ -58,7 +65,10 @@ describe('/api/notebooks/:id/reviews', () => {
 
   it('asks reviewers to review a new "For review" version, and mails each of them a link to it', async () => {
     const { notebook, people, clients, base } = await team();
-    const asked = await clients.editor.post<Review>(base, { reviewerIds: [people.first.id, people.second.id, people.first.id], message: 'Check the **corner** against the converter.' });
+    const asked = await clients.editor.post<Review>(base, {
+      reviewerIds: [people.first.id, people.second.id, people.first.id],
+      message: 'Check the **corner** against the converter.',
+    });
     expect(asked.status).toBe(201);
     const review = ReviewSchema.parse(asked.body);
     expect(review).toMatchObject({
@@ -106,7 +116,9 @@ describe('/api/notebooks/:id/reviews', () => {
     expect(first.version).toEqual({ number: 1, label: 'Ready' });
 
     const cell = notebook.cells[1]!;
-    expect((await clients.editor.put(`/api/notebooks/${notebook.id}/cells/${cell.id}`, { text: `${rcLowPass}# C1 to 120n\n`, baseRevision: 1 })).status).toBe(201);
+    expect((await clients.editor.put(`/api/notebooks/${notebook.id}/cells/${cell.id}`, { text: `${rcLowPass}# C1 to 120n\n`, baseRevision: 1 })).status).toBe(
+      201,
+    );
     const second = ReviewSchema.parse((await clients.editor.post(base, { reviewerIds: [people.first.id] })).body);
     expect(second).toMatchObject({ round: 2, version: { number: 2, label: 'For review' } });
 
@@ -250,7 +262,7 @@ describe('/api/notebooks/:id/reviews', () => {
     expect((await clients.owner.get(`${base}/${elsewhere.id}`)).status).toBe(404);
   });
 
-  it('mails each decision to the requester and the notebook\'s editors and owner, but not to the reviewer', async () => {
+  it("mails each decision to the requester and the notebook's editors and owner, but not to the reviewer", async () => {
     const { notebook, people, clients, base } = await team();
     const review = ReviewSchema.parse((await clients.editor.post(base, { reviewerIds: [people.first.id, people.second.id] })).body);
     await clients.first.post(`${base}/${review.id}/decision`, { state: 'needs_changes', summary: 'Raise C1 to 120n.' });

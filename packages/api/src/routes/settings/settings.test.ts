@@ -27,9 +27,13 @@ describe('/api/me/settings', () => {
     expect(changed.status).toBe(200);
     expect(changed.body).toEqual({ mail: { ...everyOn.mail, pinReplies: false } });
     await client.patch('/api/me/settings', { mail: { reviewRequests: false, addedToNotebook: false } });
-    expect((await client.get('/api/me/settings')).body).toEqual({ mail: { reviewRequests: false, reviewDecisions: true, pinReplies: false, addedToNotebook: false } });
+    expect((await client.get('/api/me/settings')).body).toEqual({
+      mail: { reviewRequests: false, reviewDecisions: true, pinReplies: false, addedToNotebook: false },
+    });
     await client.patch('/api/me/settings', { mail: { pinReplies: true } });
-    expect((await client.get('/api/me/settings')).body).toEqual({ mail: { reviewRequests: false, reviewDecisions: true, pinReplies: true, addedToNotebook: false } });
+    expect((await client.get('/api/me/settings')).body).toEqual({
+      mail: { reviewRequests: false, reviewDecisions: true, pinReplies: true, addedToNotebook: false },
+    });
 
     // Someone else's settings are their own.
     const other = await signedIn(server.url, (await buildUser()).login);
@@ -54,7 +58,12 @@ describe('/api/me/settings', () => {
 
   it('sends nothing of a kind a person turned off, and keeps sending the rest', async () => {
     const [quiet, loud] = [await buildUser(), await buildUser()];
-    const notebook = await buildNotebook({ members: [[quiet, 'reviewer'], [loud, 'reviewer']] });
+    const notebook = await buildNotebook({
+      members: [
+        [quiet, 'reviewer'],
+        [loud, 'reviewer'],
+      ],
+    });
     const quietClient = await signedIn(server.url, quiet.login);
     await quietClient.patch('/api/me/settings', { mail: { reviewRequests: false } });
     const owner = await signedIn(server.url, notebook.ownerUser.login);
@@ -66,12 +75,16 @@ describe('/api/me/settings', () => {
     // Not even queued: the mail log has nothing for them.
     const db = await connect();
     expect(await db.query('SELECT id FROM mail_log WHERE userId = ?', [quiet.id])).toEqual([]);
-    expect(await db.query("SELECT kind, status, attempts FROM mail_log WHERE userId = ?", [loud.id])).toEqual([{ kind: 'reviewRequests', status: 'sent', attempts: 1 }]);
+    expect(await db.query('SELECT kind, status, attempts FROM mail_log WHERE userId = ?', [loud.id])).toEqual([
+      { kind: 'reviewRequests', status: 'sent', attempts: 1 },
+    ]);
 
     // Turning requests off leaves decisions on: the owner hears of the quiet reviewer's sign-off.
     await owner.patch('/api/me/settings', { mail: { reviewRequests: false } });
     await quietClient.post(`/api/notebooks/${notebook.id}/reviews/${review.id}/decision`, { state: 'signed_off' });
-    expect((await server.mailbox()).filter((m) => m.to.includes(notebook.ownerUser.email!)).map((m) => m.subject)).toEqual([`Signed off: “${notebook.title}”, version 1`]);
+    expect((await server.mailbox()).filter((m) => m.to.includes(notebook.ownerUser.email!)).map((m) => m.subject)).toEqual([
+      `Signed off: “${notebook.title}”, version 1`,
+    ]);
     await owner.patch('/api/me/settings', { mail: { reviewDecisions: false } });
     await (await signedIn(server.url, loud.login)).post(`/api/notebooks/${notebook.id}/reviews/${review.id}/decision`, { state: 'signed_off' });
     expect((await server.mailbox()).filter((m) => m.to.includes(notebook.ownerUser.email!))).toHaveLength(1);

@@ -44,7 +44,10 @@ describe('/api/notebooks/:id/versions', () => {
     const again = VersionSchema.parse((await reader.get(`/api/notebooks/${notebook.id}/versions/1`)).body);
     expect(again.cells).toEqual(version.cells);
     const list = VersionListSchema.parse((await reader.get(`/api/notebooks/${notebook.id}/versions`)).body);
-    expect(list.items.map((v) => [v.number, v.label])).toEqual([[2, 'Second'], [1, 'For review']]);
+    expect(list.items.map((v) => [v.number, v.label])).toEqual([
+      [2, 'Second'],
+      [1, 'For review'],
+    ]);
     expect((await reader.post(`/api/notebooks/${notebook.id}/versions`, { label: 'mine' })).status).toBe(403);
     expect((await reader.get(`/api/notebooks/${notebook.id}/versions/3`)).status).toBe(404);
   });

@@ -137,26 +137,45 @@ export function oauthStandinApp(clients: OAuthClient[], identities: IdentityDire
 
   function grant(res: Response, request: AuthorizeRequest, identity: Identity): void {
     const code = token();
-    codes.set(code, { login: identity.login, clientId: request.clientId, redirectUri: request.redirectUri, scope: request.scope, expiresAt: Date.now() + codeLifetimeMs });
+    codes.set(code, {
+      login: identity.login,
+      clientId: request.clientId,
+      redirectUri: request.redirectUri,
+      scope: request.scope,
+      expiresAt: Date.now() + codeLifetimeMs,
+    });
     redirectBack(res, request, { code });
   }
 
   app.get('/', (_req, res) => {
-    res.type('text').send('Rolloff OAuth stand-in. Identities: ' + identities.list().map((i) => i.login).join(', ') + '\n');
+    res.type('text').send(
+      'Rolloff OAuth stand-in. Identities: ' +
+        identities
+          .list()
+          .map((i) => i.login)
+          .join(', ') +
+        '\n',
+    );
   });
 
   app.get('/login/oauth/authorize', (req: Request, res: Response) => {
     const request = readRequest(req.query as Record<string, unknown>);
     const problem = requestProblem(request);
     if (problem) {
-      res.status(400).type('html').send(`<!doctype html><title>Bad sign-in request</title><p>${problem.replace(/</g, '&lt;')}</p>`);
+      res
+        .status(400)
+        .type('html')
+        .send(`<!doctype html><title>Bad sign-in request</title><p>${problem.replace(/</g, '&lt;')}</p>`);
       return;
     }
     const login = text(req.query.login);
     if (login) {
       const invalid = identityProblem(login, '');
       if (!invalid) return grant(res, request, identities.findOrAdd(login));
-      res.status(400).type('html').send(authorizePage(request, identities.list(), invalid));
+      res
+        .status(400)
+        .type('html')
+        .send(authorizePage(request, identities.list(), invalid));
       return;
     }
     res.type('html').send(authorizePage(request, identities.list()));
@@ -167,7 +186,10 @@ export function oauthStandinApp(clients: OAuthClient[], identities: IdentityDire
     const request = readRequest(body);
     const problem = requestProblem(request);
     if (problem) {
-      res.status(400).type('html').send(`<!doctype html><title>Bad sign-in request</title><p>${problem.replace(/</g, '&lt;')}</p>`);
+      res
+        .status(400)
+        .type('html')
+        .send(`<!doctype html><title>Bad sign-in request</title><p>${problem.replace(/</g, '&lt;')}</p>`);
       return;
     }
     if (body.deny) {
@@ -177,7 +199,10 @@ export function oauthStandinApp(clients: OAuthClient[], identities: IdentityDire
     const email = text(body.email).trim();
     const invalid = identityProblem(login, email);
     if (invalid) {
-      res.status(400).type('html').send(authorizePage(request, identities.list(), invalid));
+      res
+        .status(400)
+        .type('html')
+        .send(authorizePage(request, identities.list(), invalid));
       return;
     }
     grant(res, request, identities.findOrAdd(login, text(body.name).trim(), email));

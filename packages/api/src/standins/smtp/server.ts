@@ -12,8 +12,6 @@ try {
   process.on('SIGTERM', stop);
 } catch (error) {
   const code = (error as NodeJS.ErrnoException).code;
-  console.error(
-    code === 'EADDRINUSE' ? `Port ${smtpPort} or ${httpPort} is already in use (set SMTP_STANDIN_PORT / SMTP_STANDIN_HTTP_PORT).` : error,
-  );
+  console.error(code === 'EADDRINUSE' ? `Port ${smtpPort} or ${httpPort} is already in use (set SMTP_STANDIN_PORT / SMTP_STANDIN_HTTP_PORT).` : error);
   process.exit(1);
 }

@@ -26,7 +26,12 @@ export function Component() {
   if (notebook.isPending) return <Loading />;
   if (notebook.isError) return <ErrorMessage error={notebook.error} retry={() => void notebook.refetch()} />;
   return (
-    <SubPage backTo={appPaths.notebook(id)} backLabel={notebook.data.title} title="Activity" intro="Saves, versions, forks, pins and reviews of this notebook, newest first.">
+    <SubPage
+      backTo={appPaths.notebook(id)}
+      backLabel={notebook.data.title}
+      title="Activity"
+      intro="Saves, versions, forks, pins and reviews of this notebook, newest first."
+    >
       <ActivityTimeline notebookId={id} cellName={cellNamer(notebook.data.cells)} />
     </SubPage>
   );

@@ -50,7 +50,9 @@ export function Component() {
         cellId={cellId}
         kind={cell.kind}
         editable={notebook.data.permissions.edit}
-        renderOverlay={({ entries }) => <RevisionOverlay entries={entries} cellKey={`${id}:${cellId}`} filename={`${slugOf(notebook.data.title)}-cell-history`} />}
+        renderOverlay={({ entries }) => (
+          <RevisionOverlay entries={entries} cellKey={`${id}:${cellId}`} filename={`${slugOf(notebook.data.title)}-cell-history`} />
+        )}
         onRestored={() => void client.invalidateQueries({ queryKey: notebookQueryOptions(id).queryKey, exact: true })}
       />
     </SubPage>

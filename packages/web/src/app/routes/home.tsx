@@ -33,8 +33,8 @@ export function HomeRoute() {
       <div className="space-y-6 lg:pt-8">
         <h1 className="text-3xl font-semibold tracking-tight">Filter design notebooks for analog engineers</h1>
         <p className="max-w-2xl text-lg text-ink-soft">
-          Write each candidate network as a short component list, see its Bode plot, corners and margins as you type, and check it against
-          the requirements you wrote down.
+          Write each candidate network as a short component list, see its Bode plot, corners and margins as you type, and check it against the requirements you
+          wrote down.
         </p>
         <p className="max-w-2xl text-lg text-ink-soft">Every revision is kept, so a colleague can fork it, review a frozen version and sign it off.</p>
         <div className="flex flex-wrap items-center gap-4">

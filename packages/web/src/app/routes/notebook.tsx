@@ -153,7 +153,9 @@ function NotebookPage({ notebook }: { notebook: Notebook }) {
   const refresh = useCallback(() => void client.invalidateQueries({ queryKey: key, exact: true }), [client, key]);
   const onSaved = useCallback(
     (saved: CellSaved) =>
-      client.setQueryData(key, (old) => (old ? { ...old, updatedAt: saved.cell.updatedAt, cells: old.cells.map((c) => (c.id === saved.cell.id ? saved.cell : c)) } : old)),
+      client.setQueryData(key, (old) =>
+        old ? { ...old, updatedAt: saved.cell.updatedAt, cells: old.cells.map((c) => (c.id === saved.cell.id ? saved.cell : c)) } : old,
+      ),
     [client, key],
   );
   const renderCircuit = useCallback(
@@ -194,7 +196,9 @@ function NotebookPage({ notebook }: { notebook: Notebook }) {
         }
         actions={
           <>
-            {notebook.permissions.edit && !notebook.deletedAt ? <AskForReview notebook={notebook} onShareFirst={notebook.permissions.share ? () => setSharing('reviewer') : undefined} /> : null}
+            {notebook.permissions.edit && !notebook.deletedAt ? (
+              <AskForReview notebook={notebook} onShareFirst={notebook.permissions.share ? () => setSharing('reviewer') : undefined} />
+            ) : null}
             <Link to={appPaths.activity(notebook.id)} className={buttonClass('secondary')}>
               Activity
             </Link>
@@ -233,7 +237,11 @@ function NotebookPage({ notebook }: { notebook: Notebook }) {
         {remove.error ? <ErrorMessage error={remove.error} /> : null}
         <div className="mt-4 flex justify-end gap-2">
           <Button onClick={() => setConfirmDelete(false)}>Keep it</Button>
-          <Button variant="danger" disabled={remove.isPending} onClick={() => remove.mutate(undefined, { onSuccess: () => navigate(`${appPaths.notebooks()}?scope=deleted`) })}>
+          <Button
+            variant="danger"
+            disabled={remove.isPending}
+            onClick={() => remove.mutate(undefined, { onSuccess: () => navigate(`${appPaths.notebooks()}?scope=deleted`) })}
+          >
             Delete notebook
           </Button>
         </div>

@@ -167,7 +167,10 @@ function ReviewPage({ notebook, review, version, meId }: ReviewPageProps) {
       </header>
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
         {/* The panel comes first, so on a phone the decision sits near the top; wide screens put it beside the cells. */}
-        <aside aria-label="Review panel" className="space-y-6 self-start lg:col-start-2 lg:row-start-1 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:overflow-y-auto lg:pr-1">
+        <aside
+          aria-label="Review panel"
+          className="space-y-6 self-start lg:col-start-2 lg:row-start-1 lg:sticky lg:top-4 lg:max-h-[calc(100vh-2rem)] lg:overflow-y-auto lg:pr-1"
+        >
           <DecisionControls notebookId={id} review={review} meId={meId} onDecided={onDecided} />
           <PanelSection title="Reviewers">
             <ReviewersList review={review} />
@@ -208,7 +211,8 @@ function ReviewPage({ notebook, review, version, meId }: ReviewPageProps) {
                   pins={marksOf(cell.cellId, cell.revision)}
                   onPick={(pick) => {
                     if (pick.kind === 'pin') setFocusedPin(pick.pinId);
-                    else if (canPin) setDrafts((old) => ({ ...old, [cell.cellId]: { trace: pick.trace, frequency: formatSi(pick.frequency, 'Hz'), picked: Date.now() } }));
+                    else if (canPin)
+                      setDrafts((old) => ({ ...old, [cell.cellId]: { trace: pick.trace, frequency: formatSi(pick.frequency, 'Hz'), picked: Date.now() } }));
                   }}
                   footer={
                     canPin

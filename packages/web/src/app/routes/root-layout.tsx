@@ -56,7 +56,11 @@ export function RootLayout() {
             ) : null}
           </div>
           <div className="flex items-center gap-4">
-            {me.data ? <UserMenu me={me.data} /> : me.isSuccess && location.pathname !== appPaths.home() ? <SignInButton size="sm" returnTo={location.pathname} /> : null}
+            {me.data ? (
+              <UserMenu me={me.data} />
+            ) : me.isSuccess && location.pathname !== appPaths.home() ? (
+              <SignInButton size="sm" returnTo={location.pathname} />
+            ) : null}
             <ThemeSwitch />
           </div>
         </div>

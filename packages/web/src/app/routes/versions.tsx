@@ -26,7 +26,12 @@ export function Component() {
   if (notebook.isPending) return <Loading />;
   if (notebook.isError) return <ErrorMessage error={notebook.error} retry={() => void notebook.refetch()} />;
   return (
-    <SubPage backTo={appPaths.notebook(id)} backLabel={notebook.data.title} title="Versions" intro="A version keeps every cell as it was, read-only, for a review or to fork from.">
+    <SubPage
+      backTo={appPaths.notebook(id)}
+      backLabel={notebook.data.title}
+      title="Versions"
+      intro="A version keeps every cell as it was, read-only, for a review or to fork from."
+    >
       <VersionsPanel notebookId={id} canCreate={notebook.data.permissions.edit} />
     </SubPage>
   );

@@ -16,6 +16,12 @@ export function buttonClass(variant: Variant = 'secondary', size: 'sm' | 'md' = 
 }
 
 /** A button in one of our four looks. */
-export function Button({ variant = 'secondary', size = 'md', className = '', type = 'button', ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant; size?: 'sm' | 'md' }) {
+export function Button({
+  variant = 'secondary',
+  size = 'md',
+  className = '',
+  type = 'button',
+  ...props
+}: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant; size?: 'sm' | 'md' }) {
   return <button type={type} className={`${buttonClass(variant, size)} ${className}`} {...props} />;
 }

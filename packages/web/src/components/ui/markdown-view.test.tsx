@@ -13,7 +13,9 @@ describe('note cells', () => {
   });
 
   it('never render raw HTML or script links', () => {
-    const { container } = render(<MarkdownView text={'<script>window.hacked = true</script>\n\n<b onclick="x()">bold</b> [run](javascript:alert(1)) <img src=x onerror="alert(1)">'} />);
+    const { container } = render(
+      <MarkdownView text={'<script>window.hacked = true</script>\n\n<b onclick="x()">bold</b> [run](javascript:alert(1)) <img src=x onerror="alert(1)">'} />,
+    );
     expect(container.querySelector('script')).toBeNull();
     expect(container.querySelector('b')).toBeNull();
     expect(container.querySelector('img')).toBeNull();

@@ -6,7 +6,13 @@ import type { Components } from 'react-markdown';
 /** The text of a heading's children, for its anchor. */
 function textOf(node: ReactNode): string {
   return Children.toArray(node)
-    .map((child) => (typeof child === 'string' || typeof child === 'number' ? String(child) : isValidElement<{ children?: ReactNode }>(child) ? textOf(child.props.children) : ''))
+    .map((child) =>
+      typeof child === 'string' || typeof child === 'number'
+        ? String(child)
+        : isValidElement<{ children?: ReactNode }>(child)
+          ? textOf(child.props.children)
+          : '',
+    )
     .join('');
 }
 
@@ -26,7 +32,8 @@ export function headingAnchor(text: string): string {
 export function demotedHeadings(topLevel: number): Components {
   const entries = [1, 2, 3, 4, 5, 6].map((written) => {
     const tag = `h${Math.min(6, topLevel + written - 1)}`;
-    const Heading = ({ children }: { children?: ReactNode }) => createElement(tag, { id: headingAnchor(textOf(children)) || undefined, className: `md-h${written}` }, children);
+    const Heading = ({ children }: { children?: ReactNode }) =>
+      createElement(tag, { id: headingAnchor(textOf(children)) || undefined, className: `md-h${written}` }, children);
     return [`h${written}`, Heading] as const;
   });
   return Object.fromEntries(entries) as Components;

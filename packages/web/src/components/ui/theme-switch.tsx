@@ -24,11 +24,7 @@ export function ThemeSwitch() {
   return (
     <label className="flex items-center gap-2 text-sm text-ink-soft">
       <span className="sr-only">Theme</span>
-      <select
-        value={theme}
-        onChange={(event) => setTheme(event.target.value as Theme)}
-        className="rounded-md border border-rule bg-panel px-2 py-1 text-ink"
-      >
+      <select value={theme} onChange={(event) => setTheme(event.target.value as Theme)} className="rounded-md border border-rule bg-panel px-2 py-1 text-ink">
         <option value="system">System theme</option>
         <option value="light">Light</option>
         <option value="dark">Dark</option>

@@ -77,8 +77,7 @@ function describe(item: ActivityItem, notebookId: string, cellName: (cellId: num
           <Link className={linkClass} to={appPaths.review(notebookId, item.review.id)}>
             review version {item.review.versionNumber}
           </Link>{' '}
-          (round {item.review.round})
-          {item.excerpt ? <span className="block text-ink-soft">“{item.excerpt}”</span> : null}
+          (round {item.review.round}){item.excerpt ? <span className="block text-ink-soft">“{item.excerpt}”</span> : null}
         </>
       );
     case 'review_decision':
@@ -88,8 +87,7 @@ function describe(item: ActivityItem, notebookId: string, cellName: (cellId: num
           <Link className={linkClass} to={appPaths.review(notebookId, item.review.id)}>
             version {item.review.versionNumber}
           </Link>{' '}
-          (round {item.review.round})
-          {item.excerpt ? <span className="block text-ink-soft">“{item.excerpt}”</span> : null}
+          (round {item.review.round}){item.excerpt ? <span className="block text-ink-soft">“{item.excerpt}”</span> : null}
         </>
       );
   }

@@ -52,7 +52,12 @@ export function CellHistory({ notebookId, cellId, kind, editable, renderOverlay,
   const overlay = useMemo(
     () =>
       left.data && right.data
-        ? { entries: [{ name: `revision ${right.data.number}`, text: right.data.text }, ...(left.data.number !== right.data.number ? [{ name: `revision ${left.data.number}`, text: left.data.text }] : [])] }
+        ? {
+            entries: [
+              { name: `revision ${right.data.number}`, text: right.data.text },
+              ...(left.data.number !== right.data.number ? [{ name: `revision ${left.data.number}`, text: left.data.text }] : []),
+            ],
+          }
         : null,
     [left.data, right.data],
   );
@@ -86,10 +91,22 @@ export function CellHistory({ notebookId, cellId, kind, editable, renderOverlay,
             {items.map((revision) => (
               <tr key={revision.number} className="border-t border-rule align-top" data-revision={revision.number}>
                 <td className="py-1.5">
-                  <input type="radio" name="older" aria-label={`Compare revision ${revision.number} as A`} checked={older === revision.number} onChange={() => setOlder(revision.number)} />
+                  <input
+                    type="radio"
+                    name="older"
+                    aria-label={`Compare revision ${revision.number} as A`}
+                    checked={older === revision.number}
+                    onChange={() => setOlder(revision.number)}
+                  />
                 </td>
                 <td className="py-1.5">
-                  <input type="radio" name="newer" aria-label={`Compare revision ${revision.number} as B`} checked={newer === revision.number} onChange={() => setNewer(revision.number)} />
+                  <input
+                    type="radio"
+                    name="newer"
+                    aria-label={`Compare revision ${revision.number} as B`}
+                    checked={newer === revision.number}
+                    onChange={() => setNewer(revision.number)}
+                  />
                 </td>
                 <td className="py-1.5">
                   <span className="font-medium">revision {revision.number}</span>
@@ -97,12 +114,19 @@ export function CellHistory({ notebookId, cellId, kind, editable, renderOverlay,
                   <div className="text-xs text-ink-faint" title={exactTime(revision.createdAt)}>
                     {revision.author ? revision.author.name || revision.author.login : 'unknown'}
                     {revision.message ? ` · ${revision.message}` : ''} · {timeAgo(revision.createdAt)}
-                    {revision.diagnostics && revision.diagnostics.errors > 0 ? ` · ${revision.diagnostics.errors} error${revision.diagnostics.errors === 1 ? '' : 's'}` : ''}
+                    {revision.diagnostics && revision.diagnostics.errors > 0
+                      ? ` · ${revision.diagnostics.errors} error${revision.diagnostics.errors === 1 ? '' : 's'}`
+                      : ''}
                   </div>
                 </td>
                 <td className="py-1.5 text-right">
                   {editable && revision.number !== current ? (
-                    <Button size="sm" disabled={restore.isPending} onClick={() => restore.mutate({ number: revision.number, currentRevision: current })} aria-label={`Restore revision ${revision.number}`}>
+                    <Button
+                      size="sm"
+                      disabled={restore.isPending}
+                      onClick={() => restore.mutate({ number: revision.number, currentRevision: current })}
+                      aria-label={`Restore revision ${revision.number}`}
+                    >
                       Restore
                     </Button>
                   ) : null}

@@ -62,7 +62,13 @@ function AddCellBar({ onAdd, busy, position, end }: { onAdd: (kind: CellKind, po
     <div className="group flex items-center gap-2 py-1" data-add-bar={end ? 'end' : position}>
       <span className="h-px flex-1 bg-rule opacity-0 transition-opacity group-focus-within:opacity-100 group-hover:opacity-100" />
       <span className="flex gap-1 opacity-60 transition-opacity group-focus-within:opacity-100 group-hover:opacity-100">
-        <Button size="sm" variant="quiet" disabled={busy} onClick={() => onAdd('circuit', position)} aria-label={`Add a circuit cell at position ${position + 1}`}>
+        <Button
+          size="sm"
+          variant="quiet"
+          disabled={busy}
+          onClick={() => onAdd('circuit', position)}
+          aria-label={`Add a circuit cell at position ${position + 1}`}
+        >
           + Circuit cell
         </Button>
         <Button size="sm" variant="quiet" disabled={busy} onClick={() => onAdd('note', position)} aria-label={`Add a note cell at position ${position + 1}`}>
@@ -90,7 +96,21 @@ interface CellItemProps {
   busy: boolean;
 }
 
-function CellItem({ notebookId, cell, index, count, editable, autoFocus, renderCircuit, onSaved, onMove, onDelete, onLeave, historyHref, busy }: CellItemProps) {
+function CellItem({
+  notebookId,
+  cell,
+  index,
+  count,
+  editable,
+  autoFocus,
+  renderCircuit,
+  onSaved,
+  onMove,
+  onDelete,
+  onLeave,
+  historyHref,
+  busy,
+}: CellItemProps) {
   const autosave = useCellAutosave({ notebookId, cell, editable, onSaved });
   const [conflictOpen, setConflictOpen] = useState(true);
   // The one name a cell has everywhere: its title, or "Circuit 2" / "Note 3".
@@ -128,7 +148,13 @@ function CellItem({ notebookId, cell, index, count, editable, autoFocus, renderC
               <Button size="sm" variant="quiet" disabled={busy || index === 0} onClick={() => onMove(cell, index - 1)} aria-label={`Move ${label} up`}>
                 ↑
               </Button>
-              <Button size="sm" variant="quiet" disabled={busy || index === count - 1} onClick={() => onMove(cell, index + 1)} aria-label={`Move ${label} down`}>
+              <Button
+                size="sm"
+                variant="quiet"
+                disabled={busy || index === count - 1}
+                onClick={() => onMove(cell, index + 1)}
+                aria-label={`Move ${label} down`}
+              >
                 ↓
               </Button>
               <Button size="sm" variant="quiet" disabled={busy} onClick={() => onDelete(cell)} aria-label={`Delete ${label}`}>

@@ -59,8 +59,8 @@ export function ConflictDialog({ open, mine, theirs, onKeepMine, onTakeTheirs, o
   return (
     <Dialog open={open} title="Someone else saved this cell first" onClose={onDismiss} width="max-w-4xl">
       <p className="mb-3 text-sm text-ink-soft">
-        {who} saved revision {theirs.number} ({exactTime(theirs.createdAt)}) while you were typing. Your text is not lost: choose which text the
-        cell goes on with.
+        {who} saved revision {theirs.number} ({exactTime(theirs.createdAt)}) while you were typing. Your text is not lost: choose which text the cell goes on
+        with.
       </p>
       <div className="grid gap-3 md:grid-cols-2">
         <TextColumn heading={`Theirs: revision ${theirs.number} by ${who}`} side={sides.theirs} tone="theirs" testId="conflict-theirs" />

@@ -79,7 +79,11 @@ export function NoteCell({ text, onChange, editable, onLeave, label, startEditin
       }}
       className="rounded-lg px-1 py-1"
     >
-      {text.trim() ? <MarkdownView text={text} /> : <p className="text-sm italic text-ink-faint">{editable ? 'An empty note: press Enter or double-click to write.' : 'An empty note.'}</p>}
+      {text.trim() ? (
+        <MarkdownView text={text} />
+      ) : (
+        <p className="text-sm italic text-ink-faint">{editable ? 'An empty note: press Enter or double-click to write.' : 'An empty note.'}</p>
+      )}
       {editable ? (
         <Button size="sm" variant="quiet" className="mt-1" onClick={() => setEditing(true)}>
           Edit note

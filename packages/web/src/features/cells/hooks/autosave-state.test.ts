@@ -48,7 +48,12 @@ describe('the autosave machine', () => {
       pauses.push(nextSaveIn(state, 800, 1_000) ?? -1);
     }
     expect(pauses).toEqual([...RETRY_STEPS_MS, RETRY_STEPS_MS.at(-1)]);
-    const signedOut = run(initialAutosave(cell, null), typed('drive a'), { type: 'send' }, { ...offline, failure: { kind: 'retry', message: 'signed out', slow: true } });
+    const signedOut = run(
+      initialAutosave(cell, null),
+      typed('drive a'),
+      { type: 'send' },
+      { ...offline, failure: { kind: 'retry', message: 'signed out', slow: true } },
+    );
     expect(nextSaveIn(signedOut, 800, 1_000)).toBe(10_000);
   });
 

@@ -42,10 +42,7 @@ export interface AutosaveState {
 }
 
 /** What a failed save means for the person. */
-export type SaveFailure =
-  | { kind: 'conflict'; theirs: CellRevision }
-  | { kind: 'retry'; message: string; slow: boolean }
-  | { kind: 'refused'; message: string };
+export type SaveFailure = { kind: 'conflict'; theirs: CellRevision } | { kind: 'retry'; message: string; slow: boolean } | { kind: 'refused'; message: string };
 
 export type AutosaveEvent =
   | { type: 'edited'; text: string; editable: boolean }
@@ -69,7 +66,15 @@ const SIGNED_OUT_PAUSE_MS = 10_000;
 
 /** The cell's current revision in the shape of a conflict's "theirs" (a cell carries no revision message). */
 function revisionOf(cell: Cell): CellRevision {
-  return { cellId: cell.id, number: cell.revision, text: cell.text, author: cell.updatedBy, message: null, createdAt: cell.updatedAt, diagnostics: cell.diagnostics };
+  return {
+    cellId: cell.id,
+    number: cell.revision,
+    text: cell.text,
+    author: cell.updatedBy,
+    message: null,
+    createdAt: cell.updatedAt,
+    diagnostics: cell.diagnostics,
+  };
 }
 
 /**

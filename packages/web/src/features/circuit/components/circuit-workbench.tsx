@@ -57,7 +57,15 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
     // first and sticky, so they stay in view while the text under them is edited.
     <div className="grid gap-4 lg:grid-cols-2" data-testid="circuit-workbench" data-busy={busy}>
       <div className="min-w-0 space-y-2 max-lg:order-3" onFocus={() => setEditing(!readOnly)} onBlur={() => setEditing(false)}>
-        <LazyCircuitEditor value={text} onChange={onChange} diagnostics={diagnostics} readOnly={readOnly} label={label} onLeave={onLeave} autoFocus={autoFocus} />
+        <LazyCircuitEditor
+          value={text}
+          onChange={onChange}
+          diagnostics={diagnostics}
+          readOnly={readOnly}
+          label={label}
+          onLeave={onLeave}
+          autoFocus={autoFocus}
+        />
         {result ? <DiagnosticsList diagnostics={problemsOf(result.diagnostics)} /> : null}
         <DiagnosticsAnnouncement diagnostics={diagnostics?.items ?? null} editing={editing} />
         <p className="text-xs text-ink-faint">
@@ -78,9 +86,16 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
           ) : null}
           {stale ? <p className="text-xs text-warn">The cell has errors: showing the last result that solved.</p> : null}
         </div>
-        <div className={`max-lg:sticky max-lg:top-0 max-lg:z-10 max-lg:order-2 max-lg:max-h-[45vh] max-lg:overflow-y-auto max-lg:bg-paper ${stale ? 'opacity-60' : ''}`} data-testid="workbench-plots">
+        <div
+          className={`max-lg:sticky max-lg:top-0 max-lg:z-10 max-lg:order-2 max-lg:max-h-[45vh] max-lg:overflow-y-auto max-lg:bg-paper ${stale ? 'opacity-60' : ''}`}
+          data-testid="workbench-plots"
+        >
           {shown ? <p className="sr-only">{plotSummary(shown.traces, shown.readouts)}</p> : null}
-          {shown ? <LazyCircuitPlots series={series} filename={filename} pins={pins} /> : <PlotPlaceholder text={outcome ? 'Nothing to plot: fix the errors or add a show line.' : 'Solving…'} />}
+          {shown ? (
+            <LazyCircuitPlots series={series} filename={filename} pins={pins} />
+          ) : (
+            <PlotPlaceholder text={outcome ? 'Nothing to plot: fix the errors or add a show line.' : 'Solving…'} />
+          )}
         </div>
         <div className="space-y-3 max-lg:order-4">
           {shown ? (

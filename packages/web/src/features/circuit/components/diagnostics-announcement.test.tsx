@@ -3,7 +3,14 @@ import { act, cleanup, render, screen } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { DiagnosticsAnnouncement, announcementOf } from './diagnostics-announcement';
 
-const problem = (severity: Diagnostic['severity'], line: number, message: string): Diagnostic => ({ severity, line, column: 1, endColumn: 2, message, code: 'test' });
+const problem = (severity: Diagnostic['severity'], line: number, message: string): Diagnostic => ({
+  severity,
+  line,
+  column: 1,
+  endColumn: 2,
+  message,
+  code: 'test',
+});
 
 describe('reading a cell’s problems out', () => {
   beforeEach(() => vi.useFakeTimers());

@@ -20,8 +20,7 @@ export function HazardCaution({ cautions }: { cautions: readonly Diagnostic[] })
 export function SmallSignalNote() {
   return (
     <p className="text-xs text-ink-faint">
-      Results are small-signal linear models: no clipping, slew limits, saturation, heating or breakdown. Check the real circuit before
-      trusting it with more.
+      Results are small-signal linear models: no clipping, slew limits, saturation, heating or breakdown. Check the real circuit before trusting it with more.
     </p>
   );
 }

@@ -58,8 +58,7 @@ describe('completion in circuit cells', () => {
 });
 
 describe('the completion source while typing', () => {
-  const complete = (doc: string, explicit = false) =>
-    cellCompletionSource(new CompletionContext(EditorState.create({ doc }), doc.length, explicit));
+  const complete = (doc: string, explicit = false) => cellCompletionSource(new CompletionContext(EditorState.create({ doc }), doc.length, explicit));
 
   it('offers nothing on the SI prefix or unit of a number, even when asked', () => {
     for (const doc of ['C1 [a gnd] 10n', 'L1 [a b] 1m', 'R1 [in a] 4k7', 'C2 [b out] 2.2uF', 'let C = 1e-9', 'sweep 10 .. 1M']) {

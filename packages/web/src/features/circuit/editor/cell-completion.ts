@@ -6,14 +6,7 @@
 import type { Completion, CompletionContext, CompletionResult } from '@codemirror/autocomplete';
 import { CONNECTIVES, CONTROLLED_MODE_WORDS, GROUND, NOISE_OFF, OPAMP_OPTION_WORDS, OPAMP_WORD, PASSIVES, SHOW_MODES, TRACE_WORDS } from '@rolloff/solver';
 import { tokenizeCell, tokenizeCellLine } from './cell-language';
-import {
-  functionWords,
-  measureWords,
-  partKindWords,
-  partLetters,
-  statementInfo,
-  statementWords,
-} from './cell-words';
+import { functionWords, measureWords, partKindWords, partLetters, statementInfo, statementWords } from './cell-words';
 
 /** The names a cell defines, found with the same tokenizer that colours it. */
 export interface CellNames {
@@ -71,7 +64,8 @@ export function completionsFor(lineBefore: string, names: CellNames): Completion
       if (!closedBracket) return [];
       if (previous === 'noise') return [option(NOISE_OFF, 'keyword', 'no thermal noise')];
       const kinds: readonly string[] = letter === 'U' ? [OPAMP_WORD] : letter === 'A' ? CONTROLLED_MODE_WORDS : [];
-      const optionWords: readonly string[] = letter === 'U' ? OPAMP_OPTION_WORDS : letter === 'A' ? CONNECTIVES.part : (Object.values(PASSIVES).find((p) => p.letter === letter)?.options ?? []);
+      const optionWords: readonly string[] =
+        letter === 'U' ? OPAMP_OPTION_WORDS : letter === 'A' ? CONNECTIVES.part : (Object.values(PASSIVES).find((p) => p.letter === letter)?.options ?? []);
       return [...kinds.map((k) => option(k, 'type', 'part kind', 3)), ...values, ...optionWords.map((w) => option(w, 'keyword', 'option'))];
     }
     case 'couple':

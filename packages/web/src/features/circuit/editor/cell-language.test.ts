@@ -39,11 +39,19 @@ describe('the cell language mode', () => {
       ['gbw', 'modifier'],
       ['1M', 'number'],
     ]);
-    expect(tokenizeCellLine('C1 [a b] 2n2F').tokens.slice(-2).map((t) => [t.text, t.style])).toEqual([
+    expect(
+      tokenizeCellLine('C1 [a b] 2n2F')
+        .tokens.slice(-2)
+        .map((t) => [t.text, t.style]),
+    ).toEqual([
       ['2n2', 'number'],
       ['F', 'unit'],
     ]);
-    expect(tokenizeCellLine('C1 [a b] 10nF').tokens.slice(-2).map((t) => [t.text, t.style])).toEqual([
+    expect(
+      tokenizeCellLine('C1 [a b] 10nF')
+        .tokens.slice(-2)
+        .map((t) => [t.text, t.style]),
+    ).toEqual([
       ['10n', 'number'],
       ['F', 'unit'],
     ]);
@@ -59,11 +67,19 @@ describe('the cell language mode', () => {
   });
 
   it('reads a prefixed unit after a number, and a unit standing apart', () => {
-    expect(tokenizeCellLine('C1 [a b] 10 nF').tokens.slice(-2).map((t) => [t.text, t.style])).toEqual([
+    expect(
+      tokenizeCellLine('C1 [a b] 10 nF')
+        .tokens.slice(-2)
+        .map((t) => [t.text, t.style]),
+    ).toEqual([
       ['10', 'number'],
       ['nF', 'unit'],
     ]);
-    expect(tokenizeCellLine('temperature 25°C').tokens.slice(-2).map((t) => [t.text, t.style])).toEqual([
+    expect(
+      tokenizeCellLine('temperature 25°C')
+        .tokens.slice(-2)
+        .map((t) => [t.text, t.style]),
+    ).toEqual([
       ['25', 'number'],
       ['°C', 'unit'],
     ]);

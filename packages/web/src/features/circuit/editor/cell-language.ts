@@ -135,11 +135,20 @@ function numberPieces(token: Token, line: string): [number, number, CellTokenSty
   const to = token.range.endColumn - 1;
   if (token.unitRange === undefined) return [[from, to, 'number']];
   const suffixFrom = token.unitRange.column - 1;
-  if (token.bad === true) return [[from, suffixFrom, 'number'], [suffixFrom, to, 'invalid']];
+  if (token.bad === true)
+    return [
+      [from, suffixFrom, 'number'],
+      [suffixFrom, to, 'invalid'],
+    ];
   if (token.unit === null || token.unit === undefined) return [[from, to, 'number']];
   // The unit is the suffix's end; a letter before it is the SI prefix.
   const unitFrom = UNIT_SPELLINGS[line.slice(suffixFrom, to)] !== undefined ? suffixFrom : suffixFrom + 1;
-  return unitFrom === from ? [[from, to, 'unit']] : [[from, unitFrom, 'number'], [unitFrom, to, 'unit']];
+  return unitFrom === from
+    ? [[from, to, 'unit']]
+    : [
+        [from, unitFrom, 'number'],
+        [unitFrom, to, 'unit'],
+      ];
 }
 
 function punctStyle(token: Token, walk: Walk): CellTokenStyle {
@@ -164,7 +173,17 @@ function punctStyle(token: Token, walk: Walk): CellTokenStyle {
 
 /** Tokenizes one line with the solver's lexer and styles each token; returns where the line stands too. */
 export function tokenizeCellLine(text: string, line = 1): { tokens: CellToken[]; state: CellLineState } {
-  const walk: Walk = { head: null, inBracket: false, measureSeen: false, words: 0, parens: 0, afterEquals: false, prevWord: null, previous: null, numbersSeen: 0 };
+  const walk: Walk = {
+    head: null,
+    inBracket: false,
+    measureSeen: false,
+    words: 0,
+    parens: 0,
+    afterEquals: false,
+    prevWord: null,
+    previous: null,
+    numbersSeen: 0,
+  };
   const tokens: CellToken[] = [];
   const add = (from: number, to: number, style: CellTokenStyle) => {
     if (to > from) tokens.push({ line, from, to, text: text.slice(from, to), style });

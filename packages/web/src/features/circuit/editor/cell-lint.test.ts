@@ -23,7 +23,15 @@ function fakeView(doc: string) {
 describe('solver diagnostics in the editor', () => {
   it('places each diagnostic on the columns the solver names', () => {
     const doc = Text.of(['let R = 10k', 'R1 [in out] Rx']);
-    const diagnostic: Diagnostic = { severity: 'error', line: 2, column: 13, endColumn: 15, message: 'Rx is not defined', hint: 'did you mean R?', code: 'undefined-name' };
+    const diagnostic: Diagnostic = {
+      severity: 'error',
+      line: 2,
+      column: 13,
+      endColumn: 15,
+      message: 'Rx is not defined',
+      hint: 'did you mean R?',
+      code: 'undefined-name',
+    };
     const [lint] = toLintDiagnostics(doc, [diagnostic]);
     expect(doc.sliceString(lint.from, lint.to)).toBe('Rx');
     expect(lint.severity).toBe('error');

@@ -38,9 +38,7 @@ export const partKindWords: readonly string[] = [OPAMP_WORD, ...CONTROLLED_MODE_
 export const partOptionWords: readonly string[] = [...PASSIVE_OPTIONS, ...OPAMP_OPTION_WORDS, ...CONNECTIVES.part];
 
 /** Words inside show, drive, sweep, time, spread and use statements. */
-const modifierWords: readonly string[] = [
-  ...new Set<string>([...SHOW_MODES, ...TRACE_WORDS, ...Object.values(CONNECTIVES).flat(), NOISE_OFF]),
-];
+const modifierWords: readonly string[] = [...new Set<string>([...SHOW_MODES, ...TRACE_WORDS, ...Object.values(CONNECTIVES).flat(), NOISE_OFF])];
 
 /** What a requirement measures. */
 export const measureWords: readonly string[] = MEASURE_WORDS;

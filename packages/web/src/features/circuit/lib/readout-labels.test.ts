@@ -15,7 +15,9 @@ describe('readouts on screen', () => {
   });
 
   it('add the frequency a readout was found at', () => {
-    expect(formatReadout({ trace: 'impedance in', name: 'min-impedance', value: 0.5, unit: 'Ω', at: 12_000 })).toBe(`${formatSi(0.5, 'Ω')} at ${formatSi(12_000, 'Hz')}`);
+    expect(formatReadout({ trace: 'impedance in', name: 'min-impedance', value: 0.5, unit: 'Ω', at: 12_000 })).toBe(
+      `${formatSi(0.5, 'Ω')} at ${formatSi(12_000, 'Hz')}`,
+    );
   });
 
   it('leave out the peak of a flat passband, but keep a real one', () => {

@@ -37,11 +37,16 @@ function sameValues(a: ArrayLike<unknown>, b: ArrayLike<unknown>): boolean {
 
 /** The figure's curves at their points, as CSV text (CRLF line ends, a header row first). */
 export function figureCsv(figure: Figure): string {
-  const curves = figure.data.filter((trace): trace is Partial<ScatterData> & { x: ArrayLike<unknown>; y: ArrayLike<unknown> } => trace.mode === 'lines' && !!trace.x && !!trace.y);
+  const curves = figure.data.filter(
+    (trace): trace is Partial<ScatterData> & { x: ArrayLike<unknown>; y: ArrayLike<unknown> } => trace.mode === 'lines' && !!trace.x && !!trace.y,
+  );
   if (curves.length === 0) return '';
   const x = curves[0].x;
   const shared = curves.filter((curve) => sameValues(curve.x, x));
-  const header = [axisTitle(figure.layout, 'xaxis') || 'x', ...shared.map((curve) => [curve.name && fromPlotText(curve.name), axisTitle(figure.layout, axisKey(curve.yaxis, 'yaxis'))].filter(Boolean).join(' '))];
+  const header = [
+    axisTitle(figure.layout, 'xaxis') || 'x',
+    ...shared.map((curve) => [curve.name && fromPlotText(curve.name), axisTitle(figure.layout, axisKey(curve.yaxis, 'yaxis'))].filter(Boolean).join(' ')),
+  ];
   const rows = [header.map(field).join(',')];
   for (let i = 0; i < x.length; i++) rows.push([cell(x[i]), ...shared.map((curve) => cell(curve.y[i]))].join(','));
   return `${rows.join('\r\n')}\r\n`;

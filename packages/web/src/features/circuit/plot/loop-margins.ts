@@ -105,7 +105,18 @@ export function loopMarginMarks(trace: TraceResult, readouts: readonly Readout[]
       bgcolor: panel,
     });
   } else if (gainMargin && !Number.isFinite(gainMargin.value)) {
-    annotations.push({ xref: 'paper', yref: 'y domain', x: 1, y: 0.04, xanchor: 'right', yanchor: 'bottom', showarrow: false, text: marginText(gainMargin), font, bgcolor: panel });
+    annotations.push({
+      xref: 'paper',
+      yref: 'y domain',
+      x: 1,
+      y: 0.04,
+      xanchor: 'right',
+      yanchor: 'bottom',
+      showarrow: false,
+      text: marginText(gainMargin),
+      font,
+      bgcolor: panel,
+    });
   }
   return { shapes, annotations };
 }

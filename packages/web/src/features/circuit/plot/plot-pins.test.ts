@@ -9,7 +9,15 @@ import { valueAtFrequency } from './trace-at';
 
 const result = analyze(FIRST_EXAMPLE);
 const trace = result.traces[0];
-const pin = (overrides: Partial<PlotPin> = {}): PlotPin => ({ id: 11, label: 'P1', trace: trace.label, frequency: 2500, resolved: false, note: 'Is <this> corner right?', ...overrides });
+const pin = (overrides: Partial<PlotPin> = {}): PlotPin => ({
+  id: 11,
+  label: 'P1',
+  trace: trace.label,
+  frequency: 2500,
+  resolved: false,
+  note: 'Is <this> corner right?',
+  ...overrides,
+});
 const bodeOf = (pins: PlotPin[], series = [{ result }]): Figure => bodeFigure(series, pins);
 
 describe('pins on the Bode plot', () => {
@@ -53,7 +61,12 @@ describe('a click on the plot', () => {
   });
 
   it('opens a pin rather than making one when a pin is under the pointer', () => {
-    expect(readPlotPick(figure.targets, [{ curveNumber: magnitude, x: 2500 }, { curveNumber: pinCurve, x: 2500 }])).toEqual({ kind: 'pin', pinId: 11 });
+    expect(
+      readPlotPick(figure.targets, [
+        { curveNumber: magnitude, x: 2500 },
+        { curveNumber: pinCurve, x: 2500 },
+      ]),
+    ).toEqual({ kind: 'pin', pinId: 11 });
   });
 
   it('ignores an earlier revision drawn for comparison, and points that are not frequencies', () => {

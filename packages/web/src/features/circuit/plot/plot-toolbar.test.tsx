@@ -11,7 +11,9 @@ import type { Figure } from './result-figures';
 
 // Plotly cannot draw in jsdom (no SVG geometry): the chart's calls to it are recorded instead.
 const plotly = vi.hoisted(() => ({
-  react: vi.fn(async (element: HTMLElement, _data: Data[], _layout: Partial<Layout>, _config: Partial<Config>) => Object.assign(element, { on: vi.fn(), removeAllListeners: vi.fn() })),
+  react: vi.fn(async (element: HTMLElement, _data: Data[], _layout: Partial<Layout>, _config: Partial<Config>) =>
+    Object.assign(element, { on: vi.fn(), removeAllListeners: vi.fn() }),
+  ),
   relayout: vi.fn(async (element: HTMLElement, _update: Partial<Layout>) => Object.assign(element, { on: vi.fn(), removeAllListeners: vi.fn() })),
   purge: vi.fn(),
   downloadImage: vi.fn(async () => ''),
@@ -74,9 +76,13 @@ describe('the plot toolbar', () => {
     const config = plotly.react.mock.calls[0][3];
     expect(config).toMatchObject({ displayModeBar: false, showLink: false, showSendToCloud: false, showEditInChartStudio: false });
     const offers = [...container.querySelectorAll('*')].filter((element) =>
-      [element.textContent, element.getAttribute('aria-label'), element.getAttribute('title'), element.getAttribute('data-title'), element.getAttribute('href')].some((text) =>
-        /cloud|chart studio|share|upload|plotly\.com|plot\.ly/i.test(text ?? ''),
-      ),
+      [
+        element.textContent,
+        element.getAttribute('aria-label'),
+        element.getAttribute('title'),
+        element.getAttribute('data-title'),
+        element.getAttribute('href'),
+      ].some((text) => /cloud|chart studio|share|upload|plotly\.com|plot\.ly/i.test(text ?? '')),
     );
     expect(offers).toEqual([]);
   });

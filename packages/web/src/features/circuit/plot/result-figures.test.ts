@@ -83,7 +83,9 @@ describe('the Bode figure of a result', () => {
 
 describe('requirements drawn from the fields the solver carries', () => {
   it('shades a range and a limit written as parameters like literals', () => {
-    const written = FIRST_EXAMPLE.replace('let R  = 10k', 'let R  = 10k\nlet fpass = 500\nlet floor = -38').replace('over 10 .. 500', 'over 10 .. fpass').replace('<= -38 dB over 10k ..', '<= floor over (fpass*20) ..');
+    const written = FIRST_EXAMPLE.replace('let R  = 10k', 'let R  = 10k\nlet fpass = 500\nlet floor = -38')
+      .replace('over 10 .. 500', 'over 10 .. fpass')
+      .replace('<= -38 dB over 10k ..', '<= floor over (fpass*20) ..');
     const result = analyze(written);
     expect(result.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
     const rects = shapesOf(bodeOf(result)).filter((s) => s.type === 'rect' && s.yref === 'y');
@@ -99,12 +101,23 @@ describe('requirements drawn from the fields the solver carries', () => {
   }
 
   it('draws an `=` band exactly as carried, not re-derived from limit and tolerance', () => {
-    const rect = shapesOf(bodeOf(withCorner({ limit: 1000, tolerance: { relative: 0.02 }, band: { low: 900, high: 1300 } }))).find((s) => s.yref === 'y domain');
+    const rect = shapesOf(bodeOf(withCorner({ limit: 1000, tolerance: { relative: 0.02 }, band: { low: 900, high: 1300 } }))).find(
+      (s) => s.yref === 'y domain',
+    );
     expect(rect).toMatchObject({ x0: 900, x1: 1300, fillcolor: testTheme.pass });
   });
 
   it('draws a band’s closed sides as limit lines, and tints by the status carried', () => {
-    const result = withCorner({ measure: 'gain', op: '=', limit: -1, tolerance: { absolute: 0.1 }, band: { low: -2, high: 0.5 }, over: { from: 20, to: 200 }, unit: 'dB', status: 'fail' });
+    const result = withCorner({
+      measure: 'gain',
+      op: '=',
+      limit: -1,
+      tolerance: { absolute: 0.1 },
+      band: { low: -2, high: 0.5 },
+      over: { from: 20, to: 200 },
+      unit: 'dB',
+      status: 'fail',
+    });
     const shapes = shapesOf(bodeOf(result)).filter((s) => s.yref === 'y' && s.x0 === 20 && s.x1 === 200);
     expect(shapes.find((s) => s.type === 'rect')).toMatchObject({ y0: -2, y1: 0.5, fillcolor: testTheme.fail });
     expect(shapes.filter((s) => s.type === 'line').map((s) => s.y0)).toEqual([-2, 0.5]);

@@ -253,7 +253,19 @@ function requirementShapes(
     if (span) {
       const band = allowedBand(requirement, axis);
       const [x0, x1] = span;
-      shapes.push({ type: 'rect', layer: 'below', xref: 'x', yref: yaxis, x0, x1, y0: band[0], y1: band[1], fillcolor: colour, opacity: 0.13, line: { width: 0 } });
+      shapes.push({
+        type: 'rect',
+        layer: 'below',
+        xref: 'x',
+        yref: yaxis,
+        x0,
+        x1,
+        y0: band[0],
+        y1: band[1],
+        fillcolor: colour,
+        opacity: 0.13,
+        line: { width: 0 },
+      });
       for (const limit of limitsOf(requirement)) {
         shapes.push({ type: 'line', layer: 'below', xref: 'x', yref: yaxis, x0, x1, y0: limit, y1: limit, line: { color: colour, width: 1.5, dash: 'dash' } });
       }
@@ -371,9 +383,18 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
   const limitsOn = (panel: Panel) => on(panel).flatMap((p) => limitsOf(p.requirement));
   const magnitudeRange: [number, number] =
     kind === 'bode'
-      ? decibelRange(slots.map((s) => s.trace.magnitudeDb), limitsOn('magnitude'))
-      : logRange(slots.map((s) => s.trace.magnitude), limitsOn('magnitude'));
-  const phase = phaseRange(slots.map((s) => s.trace.phaseDeg), limitsOn('phase'));
+      ? decibelRange(
+          slots.map((s) => s.trace.magnitudeDb),
+          limitsOn('magnitude'),
+        )
+      : logRange(
+          slots.map((s) => s.trace.magnitude),
+          limitsOn('magnitude'),
+        );
+  const phase = phaseRange(
+    slots.map((s) => s.trace.phaseDeg),
+    limitsOn('phase'),
+  );
   const magnitudeAxis: [number, number] = kind === 'bode' ? magnitudeRange : [10 ** magnitudeRange[0], 10 ** magnitudeRange[1]];
   const magnitudeShading = requirementShapes(on('magnitude'), 'y', magnitudeAxis, theme);
   const phaseShading = requirementShapes(on('phase'), 'y2', phase, theme);
@@ -426,7 +447,17 @@ function minimumImpedanceMarkers(readouts: Readout[], traceColour: (trace: strin
   for (const readout of readouts) {
     const colour = traceColour(readout.trace);
     if (readout.name !== 'min-impedance' || colour === null || readout.at === null || !(readout.value > 0) || !(readout.at > 0)) continue;
-    points.push({ type: 'scatter', mode: 'markers', x: [readout.at], y: [readout.value], xaxis: 'x', yaxis: 'y', showlegend: false, hoverinfo: 'skip', marker: { color: colour, size: 8 } });
+    points.push({
+      type: 'scatter',
+      mode: 'markers',
+      x: [readout.at],
+      y: [readout.value],
+      xaxis: 'x',
+      yaxis: 'y',
+      showlegend: false,
+      hoverinfo: 'skip',
+      marker: { color: colour, size: 8 },
+    });
     annotations.push({
       xref: 'x',
       yref: 'y',
@@ -500,7 +531,10 @@ export function figuresFor(series: PlotSeries[], theme: PlotTheme, pins: readonl
     const steps = series.length > 0 ? stepFigure(series, theme) : null;
     return steps ? [steps] : [];
   }
-  return [gainPhaseFigure('bode', series, theme, pins), gainPhaseFigure('impedance', series, theme, pins), noiseFigure(series, theme), stepFigure(series, theme)].filter(
-    (f): f is Figure => f !== null,
-  );
+  return [
+    gainPhaseFigure('bode', series, theme, pins),
+    gainPhaseFigure('impedance', series, theme, pins),
+    noiseFigure(series, theme),
+    stepFigure(series, theme),
+  ].filter((f): f is Figure => f !== null);
 }

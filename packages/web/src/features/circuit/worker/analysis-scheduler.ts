@@ -119,14 +119,17 @@ export class AnalysisScheduler {
   private scheduleCancel(): void {
     if (this.cancelTimer || !this.running) return;
     const waited = Date.now() - this.running.startedAt;
-    this.cancelTimer = setTimeout(() => {
-      this.cancelTimer = null;
-      const running = this.running;
-      if (running && this.latest.get(running.key) !== running.job.id) {
-        this.replaceWorker();
-        this.pump();
-      }
-    }, Math.max(0, this.cancelAfterMs - waited));
+    this.cancelTimer = setTimeout(
+      () => {
+        this.cancelTimer = null;
+        const running = this.running;
+        if (running && this.latest.get(running.key) !== running.job.id) {
+          this.replaceWorker();
+          this.pump();
+        }
+      },
+      Math.max(0, this.cancelAfterMs - waited),
+    );
   }
 
   private clearCancel(): void {

@@ -4,7 +4,10 @@ import { renderWithQuery } from '../../../test/render-with-query';
 import { HealthStatus } from './health-status';
 
 function renderWithAnswer(status: number, body: unknown) {
-  vi.stubGlobal('fetch', vi.fn(async () => new Response(JSON.stringify(body), { status })));
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(async () => new Response(JSON.stringify(body), { status })),
+  );
   renderWithQuery(<HealthStatus />);
 }
 

@@ -23,7 +23,11 @@ const headings = demotedHeadings(2);
 /** The rendered language reference. */
 export function LanguageReference() {
   if (!reference) {
-    return <p className="text-ink-soft">The language reference has not been written yet. Until then, the editor's hints and completion show what each line can say.</p>;
+    return (
+      <p className="text-ink-soft">
+        The language reference has not been written yet. Until then, the editor's hints and completion show what each line can say.
+      </p>
+    );
   }
   return (
     <div className="flex flex-col gap-6 lg:flex-row-reverse lg:items-start lg:justify-end">

@@ -29,8 +29,8 @@ export function ForksPanel({ notebookId, forkCount }: { notebookId: string; fork
       </ul>
       {forks.data && forks.data.total > forks.data.items.length ? (
         <p className="mt-1 text-xs text-ink-faint" data-testid="private-forks">
-          {forks.data.total - forks.data.items.length === 1 ? 'One fork is' : `${forks.data.total - forks.data.items.length} forks are`} private to its owner; ask
-          them to share it.
+          {forks.data.total - forks.data.items.length === 1 ? 'One fork is' : `${forks.data.total - forks.data.items.length} forks are`} private to its owner;
+          ask them to share it.
         </p>
       ) : null}
     </section>

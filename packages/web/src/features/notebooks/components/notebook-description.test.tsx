@@ -46,7 +46,10 @@ function stubUpdate(notebook: Notebook, status = 200) {
     vi.fn(async (_url: string, init: RequestInit = {}) => {
       const body = init.body ? (JSON.parse(String(init.body)) as { description: string }) : undefined;
       calls.push({ method: init.method ?? 'GET', body });
-      const answer = status === 200 ? { ...notebook, description: body?.description ?? notebook.description } : { error: 'validation', message: 'description: refused by the server.' };
+      const answer =
+        status === 200
+          ? { ...notebook, description: body?.description ?? notebook.description }
+          : { error: 'validation', message: 'description: refused by the server.' };
       return new Response(JSON.stringify(answer), { status, headers: { 'content-type': 'application/json' } });
     }),
   );

@@ -94,7 +94,9 @@ describe('the notebooks table', () => {
     const row = (await screen.findByText('Anti-alias filter')).closest('tr')!;
     expect(last(queries)).toEqual({ scope: 'mine', sort: 'title', order: 'desc' });
     const headings = screen.getAllByRole('columnheader').map((th) => th.textContent?.replace(/[↑↓]/g, ''));
-    const cells = within(row).getAllByRole('cell').map((td) => td.textContent);
+    const cells = within(row)
+      .getAllByRole('cell')
+      .map((td) => td.textContent);
     expect(cells[headings.indexOf('Versions')]).toBe('2');
     expect(screen.queryByText(/page shown/)).toBeNull();
   });

@@ -66,7 +66,11 @@ export function NotebooksTable() {
     const descending = sort.order === 'desc';
     return (
       <th scope="col" className="px-3 py-2 font-medium" aria-sort={active ? (descending ? 'descending' : 'ascending') : 'none'}>
-        <button type="button" className="inline-flex items-center gap-1 uppercase tracking-wide hover:text-ink" onClick={() => setParams((old) => withSort(old, nextSort(sort, key)))}>
+        <button
+          type="button"
+          className="inline-flex items-center gap-1 uppercase tracking-wide hover:text-ink"
+          onClick={() => setParams((old) => withSort(old, nextSort(sort, key)))}
+        >
           {label}
           <span aria-hidden>{active ? (descending ? '↓' : '↑') : ''}</span>
         </button>

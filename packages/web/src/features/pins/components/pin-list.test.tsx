@@ -30,8 +30,15 @@ function stubApi(pins: Pin[]) {
       const match = /\/pins\/(\d+)\/(comments|resolve|reopen)$/.exec(url);
       const pin = pins.find((p) => p.id === Number(match?.[1]));
       if (!match || !pin) return json({ error: 'not_found', message: 'That pin does not exist.' }, 404);
-      if (match[2] === 'comments') pin.comments = [...pin.comments, { id: 90 + pin.comments.length, author: ines, body: body.body, createdAt: '2026-12-02T12:00:00.000Z' }];
-      else Object.assign(pin, match[2] === 'resolve' ? { resolved: true, resolvedBy: ines, resolvedAt: '2026-12-02T12:00:00.000Z' } : { resolved: false, resolvedBy: null, resolvedAt: null });
+      if (match[2] === 'comments')
+        pin.comments = [...pin.comments, { id: 90 + pin.comments.length, author: ines, body: body.body, createdAt: '2026-12-02T12:00:00.000Z' }];
+      else
+        Object.assign(
+          pin,
+          match[2] === 'resolve'
+            ? { resolved: true, resolvedBy: ines, resolvedAt: '2026-12-02T12:00:00.000Z' }
+            : { resolved: false, resolvedBy: null, resolvedAt: null },
+        );
       return json(pin, match[2] === 'comments' ? 201 : 200);
     }),
   );
@@ -75,7 +82,14 @@ describe('the pin threads', () => {
   });
 
   it('name each pin, where it sits and its thread, with comments rendered as safe Markdown', async () => {
-    const pins = [buildPin(), buildPin({ id: 6, frequency: 1_500, comments: [{ id: 60, author: null, body: '<img src=x onerror="alert(1)"> *why* this dip?', createdAt: '2026-12-02T10:40:00.000Z' }] })];
+    const pins = [
+      buildPin(),
+      buildPin({
+        id: 6,
+        frequency: 1_500,
+        comments: [{ id: 60, author: null, body: '<img src=x onerror="alert(1)"> *why* this dip?', createdAt: '2026-12-02T10:40:00.000Z' }],
+      }),
+    ];
     await renderThreads(pins, { canComment: false });
     const first = threadOf('P1');
     expect(first.textContent).toContain('27 kHz');
@@ -90,7 +104,9 @@ describe('the pin threads', () => {
   });
 
   it('say "on revision N" for a pin made on a revision the cell has moved on from', async () => {
-    await renderThreads([buildPin({ revisionNumber: 2, currentRevisionNumber: 3 }), buildPin({ id: 6, revisionNumber: 3, currentRevisionNumber: 3 })], { canComment: false });
+    await renderThreads([buildPin({ revisionNumber: 2, currentRevisionNumber: 3 }), buildPin({ id: 6, revisionNumber: 3, currentRevisionNumber: 3 })], {
+      canComment: false,
+    });
     expect(within(threadOf('P1')).getByTestId('pin-revision').textContent).toBe('on revision 2');
     expect(within(threadOf('P2')).queryByTestId('pin-revision')).toBeNull();
   });
@@ -136,6 +152,9 @@ describe('the pin threads', () => {
     expect(within(threadOf('P1')).getByTestId('pin-resolved').textContent).toBe('resolved by Inês Carvalho');
     await userEvent.click(within(threadOf('P1')).getByRole('button', { name: 'Reopen' }));
     await waitFor(() => expect(screen.queryByText('Every pin is resolved.')).toBeNull());
-    expect(calls.filter((c) => c.method === 'POST').map((c) => c.url)).toEqual([`/api/notebooks/${reviewNotebookId}/pins/5/resolve`, `/api/notebooks/${reviewNotebookId}/pins/5/reopen`]);
+    expect(calls.filter((c) => c.method === 'POST').map((c) => c.url)).toEqual([
+      `/api/notebooks/${reviewNotebookId}/pins/5/resolve`,
+      `/api/notebooks/${reviewNotebookId}/pins/5/reopen`,
+    ]);
   });
 });

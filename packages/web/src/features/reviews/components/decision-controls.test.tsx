@@ -25,7 +25,9 @@ function stubApi(review: Review) {
       const decided: Review = {
         ...review,
         state: body.state,
-        reviewers: review.reviewers.map((r) => (r.user.id === mara.id ? { ...r, state: body.state, summary: body.summary, decidedAt: '2026-12-02T11:00:00.000Z' } : r)),
+        reviewers: review.reviewers.map((r) =>
+          r.user.id === mara.id ? { ...r, state: body.state, summary: body.summary, decidedAt: '2026-12-02T11:00:00.000Z' } : r,
+        ),
         history: [...review.history, { reviewer: mara, state: body.state, summary: body.summary, createdAt: '2026-12-02T11:00:00.000Z' }],
       };
       return new Response(JSON.stringify(decided), { status: 200, headers: { 'content-type': 'application/json' } });
@@ -72,7 +74,10 @@ describe('the decision controls', () => {
   });
 
   it('let a reviewer who asked for changes sign off later, but not ask twice', async () => {
-    const review = buildReview({ state: 'needs_changes', reviewers: [{ user: mara, state: 'needs_changes', summary: 'Raise Cz.', decidedAt: '2026-12-02T11:00:00.000Z' }] });
+    const review = buildReview({
+      state: 'needs_changes',
+      reviewers: [{ user: mara, state: 'needs_changes', summary: 'Raise Cz.', decidedAt: '2026-12-02T11:00:00.000Z' }],
+    });
     const calls = stubApi(review);
     renderControls(review, mara.id);
     expect(screen.queryByRole('button', { name: 'Ask for changes' })).toBeNull();

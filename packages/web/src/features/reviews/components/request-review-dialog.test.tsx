@@ -53,14 +53,19 @@ describe('asking for a review', () => {
     await userEvent.type(screen.getByLabelText(/What should they look at/), 'The *margins* at light load.');
     await userEvent.click(ask);
     await waitFor(() => expect(onRequested).toHaveBeenCalledTimes(1));
-    expect(sent).toEqual([{ url: `/api/notebooks/${reviewNotebookId}/reviews`, body: { reviewerIds: [mara.id, kenji.id], message: 'The *margins* at light load.' } }]);
+    expect(sent).toEqual([
+      { url: `/api/notebooks/${reviewNotebookId}/reviews`, body: { reviewerIds: [mara.id, kenji.id], message: 'The *margins* at light load.' } },
+    ]);
     expect((onRequested.mock.calls[0][0] as Review).id).toBe(31);
   });
 
   it('says what the server refused, and keeps the choice', async () => {
     vi.stubGlobal(
       'fetch',
-      vi.fn(async () => new Response(JSON.stringify({ error: 'validation', message: 'reviewerIds: Tobias Okafor cannot review: they are a viewer.' }), { status: 400 })),
+      vi.fn(
+        async () =>
+          new Response(JSON.stringify({ error: 'validation', message: 'reviewerIds: Tobias Okafor cannot review: they are a viewer.' }), { status: 400 }),
+      ),
     );
     renderDialog({ candidates });
     await userEvent.click(screen.getByRole('checkbox', { name: /Tobias Okafor/ }));

@@ -67,8 +67,8 @@ export function RequestReviewDialog({ notebookId, open, onClose, candidates, can
         }}
       >
         <p className="text-sm text-ink-soft">
-          The reviewers read the latest version. If the notebook changed since, a new version “For review” is made first. Each of them gets an
-          e-mail with a link.
+          The reviewers read the latest version. If the notebook changed since, a new version “For review” is made first. Each of them gets an e-mail with a
+          link.
         </p>
         <fieldset className="space-y-2">
           <legend className="text-sm font-medium">Reviewers</legend>

@@ -42,8 +42,8 @@ export function ReviewHistory({ review }: { review: Review }) {
     <ol className="space-y-3 border-l-2 border-rule pl-3 text-sm" data-testid="review-history">
       <li>
         <p>
-          <span className="font-medium">{nameOf(review.requestedBy)}</span> asked {review.reviewers.map((r) => nameOf(r.user)).join(', ')} to review
-          version {review.version.number} · <When iso={review.createdAt} />
+          <span className="font-medium">{nameOf(review.requestedBy)}</span> asked {review.reviewers.map((r) => nameOf(r.user)).join(', ')} to review version{' '}
+          {review.version.number} · <When iso={review.createdAt} />
         </p>
         {review.message ? <MarkdownView text={review.message} compact /> : null}
       </li>

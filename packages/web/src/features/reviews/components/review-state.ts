@@ -15,11 +15,7 @@ export const REVIEW_STATE_WORDS: Record<ReviewState, string> = {
  * superseded by a later one; signed off already (final for the round); or free to decide
  * (first decision, or a sign-off after asking for changes).
  */
-export type MyDecision =
-  | { kind: 'not-asked' }
-  | { kind: 'superseded' }
-  | { kind: 'signed-off' }
-  | { kind: 'open'; state: 'requested' | 'needs_changes' };
+export type MyDecision = { kind: 'not-asked' } | { kind: 'superseded' } | { kind: 'signed-off' } | { kind: 'open'; state: 'requested' | 'needs_changes' };
 
 /** What `meId` may still decide in `review`. */
 export function myDecision(review: Review, meId: number): MyDecision {

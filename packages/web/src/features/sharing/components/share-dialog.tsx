@@ -122,7 +122,17 @@ function AddMember({ notebookId, taken, initialRole }: { notebookId: string; tak
 }
 
 /** The share dialog of a notebook. */
-export function ShareDialog({ notebookId, open, onClose, canShare, visibility, onVisibilityChange, visibilityBusy, link, initialRole = 'viewer' }: ShareDialogProps) {
+export function ShareDialog({
+  notebookId,
+  open,
+  onClose,
+  canShare,
+  visibility,
+  onVisibilityChange,
+  visibilityBusy,
+  link,
+  initialRole = 'viewer',
+}: ShareDialogProps) {
   const members = useMemberList(notebookId, open);
   const put = usePutMember(notebookId);
   const remove = useRemoveMember(notebookId);
@@ -149,11 +159,18 @@ export function ShareDialog({ notebookId, open, onClose, canShare, visibility, o
               </span>
             </label>
           ) : (
-            <p className="text-sm text-ink-soft">{visibility === 'link' ? 'Link sharing is on: anyone signed in with the link can view.' : 'Only the members below can open this notebook.'}</p>
+            <p className="text-sm text-ink-soft">
+              {visibility === 'link' ? 'Link sharing is on: anyone signed in with the link can view.' : 'Only the members below can open this notebook.'}
+            </p>
           )}
           {visibility === 'link' ? (
             <div className="flex gap-2">
-              <input readOnly value={link} aria-label="Link to this notebook" className="flex-1 rounded-md border border-rule bg-sunken px-2 py-1 font-mono text-xs" />
+              <input
+                readOnly
+                value={link}
+                aria-label="Link to this notebook"
+                className="flex-1 rounded-md border border-rule bg-sunken px-2 py-1 font-mono text-xs"
+              />
               <Button
                 size="sm"
                 onClick={() => {
@@ -185,7 +202,13 @@ export function ShareDialog({ notebookId, open, onClose, canShare, visibility, o
                       disabled={put.isPending}
                       onChange={(role) => put.mutate({ userId: member.user.id, role })}
                     />
-                    <Button size="sm" variant="danger" disabled={remove.isPending} onClick={() => remove.mutate(member.user.id)} aria-label={`Remove ${member.user.login}`}>
+                    <Button
+                      size="sm"
+                      variant="danger"
+                      disabled={remove.isPending}
+                      onClick={() => remove.mutate(member.user.id)}
+                      aria-label={`Remove ${member.user.login}`}
+                    >
                       Remove
                     </Button>
                   </>
