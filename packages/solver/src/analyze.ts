@@ -16,12 +16,14 @@ import { internalError } from './diagnostic.js';
 export interface AnalyzeOptions {
   /** The most sweep points a cell may ask for (and the default sweep may use). */
   maxPoints?: number;
+  /** The most parts the network may have once its blocks are expanded. */
+  maxParts?: number;
 }
 
 /** Compile and analyse one cell. */
 export function analyze(text: string, options: AnalyzeOptions = {}): Result {
   try {
-    const compiled = compile(text, { maxPoints: options.maxPoints });
+    const compiled = compile(text, { maxPoints: options.maxPoints, maxParts: options.maxParts });
     const diagnostics = [...compiled.diagnostics];
     if (!compiled.circuit || diagnostics.some((d) => d.severity === 'error')) return emptyResult(diagnostics);
     const solved = analyzeCircuit(compiled.circuit, options);

@@ -12,6 +12,8 @@ import { cautions } from './cautions.js';
 export interface CompileOptions {
   /** Most frequency points a sweep may have (default `DEFAULT_MAX_POINTS`). */
   maxPoints?: number;
+  /** Most parts the network may have once its blocks are expanded (default `DEFAULT_MAX_PARTS`). */
+  maxParts?: number;
 }
 
 /**
@@ -22,7 +24,7 @@ export function compile(text: string, options: CompileOptions = {}): { circuit: 
   const source = typeof text === 'string' ? text : String(text);
   try {
     const parsed = parse(source);
-    const elaborated = elaborate(parsed.program, { maxPoints: options.maxPoints });
+    const elaborated = elaborate(parsed.program, { maxPoints: options.maxPoints, maxParts: options.maxParts });
     const diagnostics = tidyDiagnostics([...parsed.diagnostics, ...elaborated.diagnostics, ...cautions(source, elaborated.circuit)], source);
     const failed = diagnostics.some((d) => d.severity === 'error');
     return { circuit: failed ? null : elaborated.circuit, diagnostics };

@@ -13,6 +13,7 @@ export { lex, separateUnit } from './lexer.js';
 export * from './vocabulary.js';
 export { modernizeCellText } from './modernize.js';
 export { compile } from './compile.js';
+export { DEFAULT_MAX_PARTS } from './elaborate/index.js';
 export { DEFAULT_MAX_POINTS } from './sweep.js';
 export { analyze } from './analyze.js';
 export { HAZARDOUS_VOLTAGE } from './cautions.js';

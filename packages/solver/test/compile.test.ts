@@ -38,6 +38,16 @@ describe('compile', () => {
     expect(elaborate(parse(cell).program, { maxPoints: 601 }).circuit).not.toBeNull();
   });
 
+  it('honours maxParts', () => {
+    const cell = 'block pair [i o]\n  R1 [i o] 1k\n  R2 [i o] 1k\nend\ndrive in\nuse pair as B1 [in out]\nuse pair as B2 [in out]\nR1 [out gnd] 1k\nshow out\n';
+    expect(compile(cell, { maxParts: 5 }).circuit).not.toBeNull();
+    const limited = compile(cell, { maxParts: 4 });
+    expect(limited.circuit).toBeNull();
+    expect(limited.diagnostics.map((d) => [d.code, d.message])).toEqual([
+      ['network-too-large', 'the network has 5 parts after its blocks are expanded; the limit is 4'],
+    ]);
+  });
+
   it('returns a circuit with warnings, and none with an error', () => {
     const warned = compile(RC + 'spread extremes\n');
     expect(warned.circuit).not.toBeNull();
