@@ -306,7 +306,7 @@ export function blockHeader(cur: Cursor): BlockStatement {
     while (!cur.atEnd() && !cur.isPunct(')')) {
       const p = ident(cur, 'a parameter name', '(R, C = 10n)');
       let def: Value | null = null;
-      if (cur.eat('=') !== undefined) def = value(cur, `the default of ${p.name}`);
+      if (cur.eat('=') !== undefined) def = listValue(cur, `the default of ${p.name}`, p.name);
       params.push({ name: p, default: def });
       if (cur.isPunct(')')) break;
       if (cur.eat(',') === undefined)
@@ -334,7 +334,7 @@ export function useStatement(cur: Cursor): UseStatement {
     while (!cur.atEnd() && !cur.isPunct(')')) {
       const p = ident(cur, 'a parameter name', '(R = 10k)');
       cur.expect('=', 'missing-equals', `\`=\` is missing after ${p.name}`, `write (${p.name} = VALUE)`);
-      const v = value(cur, `the value of ${p.name}`);
+      const v = listValue(cur, `the value of ${p.name}`, p.name);
       args.push({ name: p, value: v });
       if (cur.isPunct(')')) break;
       if (cur.eat(',') === undefined)
@@ -344,4 +344,38 @@ export function useStatement(cur: Cursor): UseStatement {
   }
   cur.finish(instance.name, `write use ${block.name} as ${instance.name} [nodes] (NAME = VALUE, …)`);
   return { kind: 'use', block, instance, nodes, args, range: merge(keyword.range, cur.whole()) };
+}
+
+const OPERATORS: readonly string[] = ['+', '-', '*', '/', '^'];
+
+/**
+ * A value in a parameter list, `(R = 10k)`. An expression there needs parentheses, because
+ * the commas and the closing `)` of the list end it; only a `let` line takes one without.
+ * The quick fix adds them around the expression as far as the next `,` or `)` of the list.
+ */
+function listValue(cur: Cursor, what: string, name: string): Value | null {
+  const v = value(cur, what);
+  const op = cur.peek();
+  if (v === null || op === undefined || op.kind !== 'punct' || !OPERATORS.includes(op.text)) return v;
+  let depth = 0;
+  const first = cur.tokens.findIndex((t) => t.range.column === v.range.column);
+  let last = cur.tokens[cur.pos - 1];
+  while (!cur.atEnd()) {
+    const t = cur.peek() as Token;
+    if (depth === 0 && t.kind === 'punct' && (t.punct === ',' || t.punct === ')')) break;
+    if (t.kind === 'punct' && t.punct === '(') depth++;
+    if (t.kind === 'punct' && t.punct === ')') depth--;
+    last = cur.next() as Token;
+  }
+  const range = merge(v.range, last.range);
+  const text = cur.line.text.slice(range.column - 1, range.endColumn - 1);
+  cur.report(
+    range,
+    'unparenthesised-expression',
+    `\`${text}\` is an expression: in a parameter list it needs parentheses`,
+    `write ${name} = (${text}); a let line is the one place an expression goes without them`,
+    { title: `Write (${text})`, replacement: `(${text})`, range },
+  );
+  // Read as the expression it is, so that the lines that use the value say nothing more.
+  return { kind: 'expr', tokens: cur.tokens.slice(first, cur.pos), text, range };
 }
