@@ -8,9 +8,10 @@
  */
 import type { Circuit, Measure, RequirementSpec } from './circuit.js';
 import type { Diagnostic, Readout, ReadoutId, RequirementResult } from './result.js';
-import { MEASURES } from './vocabulary.js';
+import { MEASURES, MEASURE_WHERE } from './vocabulary.js';
 import type { AcAnalysis, TraceData } from './analysis.js';
 import { stabilityReadouts } from './readouts.js';
+import { READOUT_NAMES } from './result.js';
 import type { Shape, TraceReadouts } from './readouts.js';
 import { TraceView } from './trace-view.js';
 import { extremeOver, measureAt } from './extremes.js';
@@ -20,14 +21,26 @@ import { formatSi } from './units.js';
 /** `=` without a written tolerance: equal within this relative amount. */
 const DEFAULT_RELATIVE_TOLERANCE = 1e-6;
 
-const POINTWISE = new Set<Measure>(['gain', 'phase', 'delay', 'magnitude']);
+/** The readout each one-number measure compares. */
 const READOUT_OF: Partial<Record<Measure, ReadoutId>> = {
   corner: 'corner',
+  'lower-corner': 'corner-low',
+  'upper-corner': 'corner-high',
+  bandwidth: 'bandwidth',
+  centre: 'center',
+  q: 'q',
   peak: 'peak',
+  'peak-frequency': 'peak-frequency',
+  'low-frequency-gain': 'low-frequency-gain',
+  'asymptotic-slope': 'rolloff',
+  'min-impedance': 'min-impedance',
   crossover: 'crossover',
   'phase-margin': 'phase-margin',
+  'phase-crossover': 'phase-crossover',
   'gain-margin': 'gain-margin',
 };
+
+const STABILITY = new Set<ReadoutId>(['crossover', 'phase-margin', 'phase-crossover', 'gain-margin']);
 
 /** Every requirement's result, in the order written, and warnings for what cannot be checked. */
 export function checkRequirements(
@@ -84,7 +97,7 @@ function structure(circuit: Circuit, req: RequirementSpec, analysis: AcAnalysis 
   const trace = circuit.traces[req.trace];
   const grid = analysis?.frequencies;
   const sweepEnd = (k: number): number => (grid && grid.length > 0 ? grid[k < 0 ? grid.length - 1 : k] : NaN);
-  const pointwise = POINTWISE.has(req.measure) && req.at === undefined;
+  const pointwise = MEASURE_WHERE[req.measure] === 'point' && req.at === undefined;
   return {
     line: req.range.line,
     text: req.text,
@@ -96,7 +109,7 @@ function structure(circuit: Circuit, req: RequirementSpec, analysis: AcAnalysis 
     band: bandOf(req),
     over: pointwise ? { from: req.over?.from ?? sweepEnd(0), to: req.over?.to ?? sweepEnd(-1) } : null,
     at: req.at ?? null,
-    unit: req.measure === 'magnitude' ? (trace?.unit ?? '') : MEASURES[req.measure],
+    unit: MEASURES[req.measure] ?? trace?.unit ?? '',
   };
 }
 
@@ -129,31 +142,59 @@ function measure(circuit: Circuit, req: RequirementSpec, band: RequirementResult
   if (!spec) return notApplicable('this requirement names a trace that does not exist');
   const trace = analysis?.traces.find((t) => t.plan.specIndex === req.trace);
   if (!analysis || !trace) return notApplicable(`the trace ${spec.label} has no AC result`);
-  if (POINTWISE.has(req.measure)) return pointwise(req, band, analysis, trace);
+  if (MEASURE_WHERE[req.measure] === 'point') return pointwise(req, band, analysis, trace);
 
   const name = READOUT_OF[req.measure]!;
-  let found: Readout | undefined = readouts.find((r) => r.trace === trace)?.readouts.find((r) => r.name === name);
-  if (!found && (req.measure === 'crossover' || req.measure === 'phase-margin' || req.measure === 'gain-margin')) {
-    found = stabilityReadouts(analysis, trace).find((r) => r.name === name);
-  }
-  if (!found) return notApplicable(missingReason(req.measure, spec.label, trace, readouts.find((r) => r.trace === trace)?.shape));
+  const own = readouts.find((r) => r.trace === trace);
+  let found: Readout | undefined = own?.readouts.find((r) => r.name === name);
+  if (!found && STABILITY.has(name)) found = stabilityReadouts(analysis, trace).find((r) => r.name === name);
+  if (!found) return notApplicable(missingReason(name, spec.label, trace, own?.shape));
   return { value: found.value, worstAt: null };
 }
 
 /** Why a trace has no such readout, in words the user can act on. */
-function missingReason(measure: Measure, label: string, trace: TraceData, shape: Shape | undefined): string {
-  if (zeroEverywhere(trace)) return `${label} is zero at every frequency of the sweep, so it has no ${measure}`;
-  if (measure === 'corner') {
-    if (trace.result.kind === 'loop') return `${label} is a loop gain, which has no corner: require its crossover`;
-    if (trace.result.kind === 'impedance') return `${label} is an impedance, which has no corner`;
-    if (shape === 'band-pass' || shape === 'band-stop') return `${label} is ${shape}: it has a lower and an upper corner, not one corner`;
-    if (shape === 'flat') return `${label} stays within 3 dB of its level across the sweep, so it has no corner`;
-    if (shape === 'unknown') return `neither end of ${label} settles to a passband level in the sweep, so it has no corner`;
-    return `${label} does not fall 3 dB below its passband level anywhere in the sweep`;
+function missingReason(name: ReadoutId, label: string, trace: TraceData, shape: Shape | undefined): string {
+  const words = READOUT_NAMES[name];
+  if (zeroEverywhere(trace)) return `${label} is zero at every frequency of the sweep, so it has no ${words}`;
+  const kind = trace.result.kind;
+  switch (name) {
+    case 'corner':
+      if (kind === 'loop') return `${label} is a loop gain, which has no corner: require its crossover`;
+      if (kind === 'impedance') return `${label} is an impedance, which has no corner`;
+      if (shape === 'band-pass' || shape === 'band-stop') return `${label} is ${shape}: it has a lower and an upper corner, not one corner`;
+      if (shape === 'flat') return `${label} stays within 3 dB of its level across the sweep, so it has no corner`;
+      if (shape === 'unknown') return `neither end of ${label} settles to a passband level in the sweep, so it has no corner`;
+      return `${label} does not fall 3 dB below its passband level anywhere in the sweep`;
+    case 'corner-low':
+    case 'corner-high':
+    case 'bandwidth':
+    case 'center':
+    case 'q':
+      if (kind === 'loop') return `${label} is a loop gain, which has no ${words}: require its crossover`;
+      if (shape === 'low-pass' || shape === 'high-pass') return `${label} is ${shape}: it has one corner, not a ${words}`;
+      if (shape === 'band-pass' || shape === 'band-stop') {
+        const from = shape === 'band-pass' ? 'its peak' : 'its passband level';
+        return `${label} does not cross 3 dB from ${from} on both sides within the sweep, so it has no ${words}: widen the sweep`;
+      }
+      return `${label} is neither band-pass nor band-stop in the sweep, so it has no ${words}`;
+    case 'peak':
+      return `${label} has no peak in the sweep`;
+    case 'peak-frequency':
+      return `${label} has no peak inside the sweep: its highest point is at an end`;
+    case 'low-frequency-gain':
+      if (kind === 'impedance') return `${label} is an impedance, which has no low-frequency gain: require its magnitude`;
+      if (shape === 'band-pass' || shape === 'high-pass') return `${label} is ${shape}: its low-frequency level is not a passband`;
+      return `the low end of ${label} does not settle to a level in the sweep`;
+    case 'rolloff':
+      return `the slope of ${label} does not settle above the sweep on a whole number of 20 dB/decade`;
+    case 'crossover':
+    case 'phase-margin':
+      return `the magnitude of ${label} never falls through 1 (0 dB) in the sweep`;
+    case 'phase-crossover':
+      return `the phase of ${label} never reaches −180° in the sweep`;
+    default:
+      return `${label} has no ${words} in the sweep`;
   }
-  if (measure === 'peak') return `${label} has no peak in the sweep`;
-  if (measure === 'crossover' || measure === 'phase-margin') return `the magnitude of ${label} never falls through 1 (0 dB) in the sweep`;
-  return `${label} has no ${measure} in the sweep`;
 }
 
 /** A pointwise requirement's worst value: the largest for `<=`, the smallest for `>=`, the farther from the limit for `=`. */

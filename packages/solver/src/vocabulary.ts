@@ -145,21 +145,74 @@ export const CONNECTIVES = {
   part: ['of'],
 } as const;
 
-/** What a requirement measures, with the unit of its value ('' for the trace's own unit). */
+/**
+ * What a requirement measures, with the unit of its value: '' for a plain number (Q), null
+ * for the trace's own unit (magnitude). Every readout a trace shows is a measure too.
+ */
 export const MEASURES = {
   gain: 'dB',
   phase: 'deg',
   delay: 's',
-  magnitude: '',
+  magnitude: null,
   corner: 'Hz',
+  'lower-corner': 'Hz',
+  'upper-corner': 'Hz',
+  bandwidth: 'Hz',
+  centre: 'Hz',
+  q: '',
   peak: 'dB',
+  'peak-frequency': 'Hz',
+  'low-frequency-gain': 'dB',
+  'asymptotic-slope': 'dB/decade',
+  'min-impedance': 'Ω',
   crossover: 'Hz',
   'phase-margin': 'deg',
+  'phase-crossover': 'Hz',
   'gain-margin': 'dB',
   settling: 's',
   overshoot: '%',
 } as const;
 export type Measure = keyof typeof MEASURES;
+
+/**
+ * Where a measure is read: `point`, at each point (`over` a range or `at` one frequency,
+ * else over the whole sweep); `trace`, one number for the whole trace, with no range.
+ */
+export type MeasureWhere = 'point' | 'trace';
+export const MEASURE_WHERE: Readonly<Record<Measure, MeasureWhere>> = {
+  gain: 'point',
+  phase: 'point',
+  delay: 'point',
+  magnitude: 'point',
+  corner: 'trace',
+  'lower-corner': 'trace',
+  'upper-corner': 'trace',
+  bandwidth: 'trace',
+  centre: 'trace',
+  q: 'trace',
+  peak: 'trace',
+  'peak-frequency': 'trace',
+  'low-frequency-gain': 'trace',
+  'asymptotic-slope': 'trace',
+  'min-impedance': 'trace',
+  crossover: 'trace',
+  'phase-margin': 'trace',
+  'phase-crossover': 'trace',
+  'gain-margin': 'trace',
+  settling: 'trace',
+  overshoot: 'trace',
+};
+
+/** Measures that only one kind of trace has. */
+export const MEASURE_TRACE: Readonly<Partial<Record<Measure, 'loop' | 'step' | 'impedance'>>> = {
+  crossover: 'loop',
+  'phase-margin': 'loop',
+  'phase-crossover': 'loop',
+  'gain-margin': 'loop',
+  settling: 'step',
+  overshoot: 'step',
+  'min-impedance': 'impedance',
+};
 export const MEASURE_WORDS = Object.keys(MEASURES) as Measure[];
 
 /** Functions of value expressions, with how many arguments each takes. */

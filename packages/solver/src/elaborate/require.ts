@@ -3,7 +3,7 @@ import type { Measure, RequirementSpec, TraceSpec } from '../circuit.js';
 import type { RequireStatement, ShowStatement, Value } from '../ast.js';
 import { suggestionHint } from '../suggest.js';
 import { formatSi } from '../units.js';
-import { MEASURES } from '../vocabulary.js';
+import { MEASURES, MEASURE_TRACE, MEASURE_WHERE } from '../vocabulary.js';
 import type { Unit } from '../vocabulary.js';
 import type { Elaboration } from './context.js';
 import { bound, evaluate, read, sourceText } from './values.js';
@@ -16,28 +16,14 @@ export function requireStatement(cx: Elaboration, st: RequireStatement, shows: S
   if (index === null) return null;
   const trace = traces[index] as TraceSpec;
   const measure = st.measure.name as Measure;
-  const pointwise = measure === 'gain' || measure === 'phase' || measure === 'delay' || measure === 'magnitude';
-  const loopOnly = measure === 'crossover' || measure === 'phase-margin' || measure === 'gain-margin';
-  const stepOnly = measure === 'settling' || measure === 'overshoot';
-  if (loopOnly && trace.kind !== 'loop') {
-    cx.error(
-      st.measure.range,
-      'wrong-measure',
-      `${measure} is measured on a loop gain, and ${trace.label} is not one`,
-      `show the loop gain with show loop EXPR and require it of that trace`,
-    );
+  const where = MEASURE_WHERE[measure];
+  const needs = MEASURE_TRACE[measure];
+  if (needs !== undefined && trace.kind !== needs) {
+    const { article, how } = TRACE_NEEDED[needs];
+    cx.error(st.measure.range, 'wrong-measure', `${measure} is measured on ${article}, and ${trace.label} is not one`, `${how} and require it of that trace`);
     return null;
   }
-  if (stepOnly && trace.kind !== 'step') {
-    cx.error(
-      st.measure.range,
-      'wrong-measure',
-      `${measure} is measured on a step response, and ${trace.label} is not one`,
-      'show the step response with show step EXPR and require it of that trace',
-    );
-    return null;
-  }
-  if (!stepOnly && trace.kind === 'step') {
+  if (needs !== 'step' && trace.kind === 'step') {
     cx.error(
       st.measure.range,
       'wrong-measure',
@@ -46,11 +32,11 @@ export function requireStatement(cx: Elaboration, st: RequireStatement, shows: S
     );
     return null;
   }
-  if ((measure === 'corner' || measure === 'peak') && trace.kind === 'noise') {
+  if (where !== 'point' && trace.kind === 'noise') {
     cx.error(st.measure.range, 'wrong-measure', `${measure} is not measured on a noise trace`, 'a noise trace takes gain and magnitude');
     return null;
   }
-  if (!pointwise && (st.over !== null || st.at !== null)) {
+  if (where !== 'point' && (st.over !== null || st.at !== null)) {
     const range = st.over?.range ?? (st.at as Value).range;
     cx.error(
       range,
@@ -71,7 +57,7 @@ export function requireStatement(cx: Elaboration, st: RequireStatement, shows: S
     let tolerance: RequirementSpec['tolerance'];
     if (q.unit === '%' && measure !== 'overshoot') tolerance = { amount: q.value / 100, relative: true };
     else {
-      const amount = read(cx, cx.top, st.tolerance, line, { ...slot, says: `the tolerance of ${measure} is in % or ${slot.unit ?? 'the measure’s unit'}` });
+      const amount = read(cx, cx.top, st.tolerance, line, { ...slot, says: `the tolerance of ${measure} is in % or ${slot.unit || 'a plain number'}` });
       if (amount === null) return null;
       tolerance = { amount, relative: false };
     }
@@ -175,23 +161,33 @@ function findTrace(cx: Elaboration, st: RequireStatement, shows: ShowStatement[]
   return null;
 }
 
+/** The trace a measure of one kind of trace needs, as messages say it. */
+const TRACE_NEEDED = {
+  loop: { article: 'a loop gain', how: 'show the loop gain with show loop EXPR' },
+  step: { article: 'a step response', how: 'show the step response with show step EXPR' },
+  impedance: { article: 'an impedance', how: 'show the impedance with show impedance NODE' },
+} as const;
+
 /** Units a requirement's value may carry, by measure and the trace's kind. */
 function measureSlot(measure: Measure, trace: TraceSpec): Slot {
   const unit = MEASURES[measure];
-  if (unit === '') {
+  if (unit === null) {
     const units: Unit[] =
       trace.unit === 'Ω' || trace.unit === 'V/A' ? ['Ω'] : trace.unit === 'A/V' || trace.unit === 'A/A' ? ['A'] : trace.unit === 'V/√Hz' ? ['V'] : [];
     return { says: `the magnitude of ${trace.label} is in ${trace.unit}`, units, unit: trace.unit };
   }
-  const { in: written, example } = MEASURE_UNIT_WORDS[unit];
-  return { says: `${measure} is ${written}`, units: [unit], unit: unit === 'deg' ? '°' : unit, example };
+  const { in: written, units, example } = MEASURE_UNIT_WORDS[unit];
+  return { says: `${measure} is ${written}`, units, unit: unit === 'deg' ? '°' : unit, example };
 }
 
-/** How a measure's unit is said in messages, with an example value. */
-const MEASURE_UNIT_WORDS: Record<Exclude<(typeof MEASURES)[Measure], ''>, { in: string; example: string }> = {
-  dB: { in: 'in dB', example: '-3 dB' },
-  deg: { in: 'in degrees', example: '45°' },
-  s: { in: 'a time, in s', example: '1m' },
-  Hz: { in: 'a frequency, in Hz', example: '1k' },
-  '%': { in: 'in %', example: '5%' },
+/** How a measure's unit is said in messages, the units its value may be written in, and an example value. */
+const MEASURE_UNIT_WORDS: Record<Exclude<(typeof MEASURES)[Measure], null>, { in: string; units: Unit[]; example: string }> = {
+  dB: { in: 'in dB', units: ['dB'], example: '-3 dB' },
+  deg: { in: 'in degrees', units: ['deg'], example: '45°' },
+  s: { in: 'a time, in s', units: ['s'], example: '1m' },
+  Hz: { in: 'a frequency, in Hz', units: ['Hz'], example: '1k' },
+  '%': { in: 'in %', units: ['%'], example: '5%' },
+  Ω: { in: 'an impedance, in Ω', units: ['Ω'], example: '100m' },
+  'dB/decade': { in: 'a slope, in dB/decade', units: ['dB'], example: '-40' },
+  '': { in: 'a plain number', units: [], example: '5' },
 };
