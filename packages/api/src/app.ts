@@ -9,8 +9,9 @@ import express from 'express';
 import type { Express } from 'express';
 import { csrfCheck, csrfCookie } from './auth/csrf.js';
 import { createAuth } from './auth/setup.js';
+import { setCellCheckBudget } from './cell-check-pool.js';
 import { authConfig, mailConfig } from './config.js';
-import type { AuthConfig } from './config.js';
+import type { AuthConfig, CellCheckConfig } from './config.js';
 import { connect } from './db/connection.js';
 import { errorMiddleware, unknownRoute } from './errors.js';
 import { createNotifier } from './mail/notifier.js';
@@ -34,9 +35,12 @@ export interface AppOptions {
   notifier?: Notifier;
   /** The SMTP stand-in's HTTP mailbox to show at /dev/mail; by default MAIL_STANDIN_URL; null: none. */
   mailStandinUrl?: string | null;
+  /** The budget of the server's cell checks; by default read from the environment (see config.ts). */
+  cellCheck?: CellCheckConfig;
 }
 
-export function createApp({ webDist, auth: settings = authConfig(), notifier, mailStandinUrl = mailConfig().standinUrl }: AppOptions): Express {
+export function createApp({ webDist, auth: settings = authConfig(), notifier, mailStandinUrl = mailConfig().standinUrl, cellCheck }: AppOptions): Express {
+  if (cellCheck) setCellCheckBudget(cellCheck);
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');

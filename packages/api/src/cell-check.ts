@@ -1,7 +1,9 @@
 /**
- * The one place the API asks the solver about a circuit cell's text, for saves and for the
- * migration that rewrites old forms (so it sits below both services and db). A save is never
- * refused for what the solver finds: the counts only travel with the answer and the revision.
+ * The one place the API asks the solver about a circuit cell's text: the compile pool's
+ * workers run it for saves (cell-check-pool.ts), and the migration that rewrites old forms
+ * runs it directly (so it sits below both services and db). A save is never refused for what
+ * the solver finds, only for going past the server's budget: the counts travel with the
+ * answer and the revision.
  */
 import { DEFAULT_MAX_POINTS, compile } from '@rolloff/solver';
 import type { DiagnosticCounts } from './contract/common.js';
@@ -9,10 +11,19 @@ import type { DiagnosticCounts } from './contract/common.js';
 /** Caps a sweep the check elaborates (the solver's own limit), so a save never waits on a huge frequency list. */
 const maxPoints = DEFAULT_MAX_POINTS;
 
-/** Error and warning counts of `text` as a circuit cell (compile: parse + elaborate, no solve). */
-export function checkCircuitText(text: string): DiagnosticCounts {
+/** What the check of one circuit text finds. */
+export interface CircuitCheck {
+  counts: DiagnosticCounts;
+  /** The labels of the traces the text shows (as its plots name them), or null when it has errors and so shows none. */
+  traces: string[] | null;
+  /** Whether the network has more than `maxParts` parts once its blocks are expanded. */
+  tooLarge: boolean;
+}
+
+/** Compiles `text` as a circuit cell (parse + elaborate, no solve); `maxParts` defaults to the solver's cap. */
+export function checkCircuit(text: string, maxParts?: number): CircuitCheck {
   try {
-    const { diagnostics } = compile(text, { maxPoints });
+    const { circuit, diagnostics } = compile(text, { maxPoints, maxParts });
     let errors = 0;
     let warnings = 0;
     for (const diagnostic of diagnostics) {
@@ -20,28 +31,19 @@ export function checkCircuitText(text: string): DiagnosticCounts {
       // An `info` diagnostic is a caution about the circuit, not a problem of the cell.
       else if (diagnostic.severity === 'warning') warnings++;
     }
-    return { errors, warnings };
+    return {
+      counts: { errors, warnings },
+      traces: circuit?.traces.map((trace) => trace.label) ?? null,
+      tooLarge: diagnostics.some((diagnostic) => diagnostic.code === 'network-too-large'),
+    };
   } catch (error) {
     // compile() promises never to throw; if it does, the text still saves, counted as one error.
     console.error('cell check failed:', error);
-    return { errors: 1, warnings: 0 };
+    return { counts: { errors: 1, warnings: 0 }, traces: null, tooLarge: false };
   }
 }
 
-/**
- * The labels of the traces a circuit cell's text shows (as its plots name them), or null when
- * the text has errors and so shows none.
- */
-export function shownTraces(text: string): string[] | null {
-  try {
-    return compile(text, { maxPoints }).circuit?.traces.map((trace) => trace.label) ?? null;
-  } catch (error) {
-    console.error('cell check failed:', error);
-    return null;
-  }
-}
-
-/** Diagnostic counts for a cell of either kind: null for note cells, which are not checked. */
-export function checkCell(kind: 'circuit' | 'note', text: string): DiagnosticCounts | null {
-  return kind === 'circuit' ? checkCircuitText(text) : null;
+/** Error and warning counts of `text` as a circuit cell. */
+export function checkCircuitText(text: string): DiagnosticCounts {
+  return checkCircuit(text).counts;
 }

@@ -3,6 +3,7 @@
  * setup on loopback. The start and test scripts set these for the processes they launch.
  */
 import { randomBytes } from 'node:crypto';
+import { availableParallelism } from 'node:os';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 
@@ -156,5 +157,29 @@ export function mailConfig(env: NodeJS.ProcessEnv = process.env): MailConfig {
     port: Number(env.SMTP_PORT || standinSmtp.port),
     from: env.MAIL_FROM || 'Rolloff <rolloff@localhost>',
     standinUrl: env.MAIL_STANDIN_URL ? env.MAIL_STANDIN_URL.replace(/\/+$/, '') : null,
+  };
+}
+
+/** The server's check of circuit cells on saves (cell-check-pool.ts): its worker threads and its budget per request. */
+export interface CellCheckConfig {
+  /** Most parts a cell may have once its blocks are expanded (`CELL_CHECK_MAX_PARTS`); a designer's browser allows the solver's own, far higher, cap. */
+  maxParts: number;
+  /** Longest the checks of one request may run on their thread, in ms (`CELL_CHECK_TIME_MS`). */
+  timeMs: number;
+  /** Worker threads (`CELL_CHECK_THREADS`, default the number of cores). */
+  threads: number;
+}
+
+/** A positive whole number from the environment, else `fallback`. */
+function positiveInt(value: string | undefined, fallback: number): number {
+  const n = Number(value);
+  return Number.isInteger(n) && n > 0 ? n : fallback;
+}
+
+export function cellCheckConfig(env: NodeJS.ProcessEnv = process.env): CellCheckConfig {
+  return {
+    maxParts: positiveInt(env.CELL_CHECK_MAX_PARTS, 20_000),
+    timeMs: positiveInt(env.CELL_CHECK_TIME_MS, 2_000),
+    threads: positiveInt(env.CELL_CHECK_THREADS, availableParallelism()),
   };
 }

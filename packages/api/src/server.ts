@@ -3,6 +3,7 @@
  * cleanly on SIGINT/SIGTERM, giving e-mail still in flight a moment to go out.
  */
 import { createApp } from './app.js';
+import { closeCellChecks } from './cell-check-pool.js';
 import { config, mailConfig } from './config.js';
 import { connect, disconnect } from './db/connection.js';
 import { createHttpServer } from './http-server.js';
@@ -35,6 +36,7 @@ async function stop(): Promise<void> {
   server.closeAllConnections();
   await Promise.race([notifier.idle(), new Promise((resolve) => setTimeout(resolve, mailGraceMs))]);
   notifier.close();
+  await closeCellChecks();
   await disconnect().catch(() => undefined);
   process.exit(0);
 }

@@ -5,8 +5,8 @@
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { createApp } from '../src/app.js';
-import { oauthConfig } from '../src/config.js';
-import type { AuthConfig } from '../src/config.js';
+import { cellCheckConfig, oauthConfig } from '../src/config.js';
+import type { AuthConfig, CellCheckConfig } from '../src/config.js';
 import { connect } from '../src/db/connection.js';
 import { createNotifier } from '../src/mail/notifier.js';
 import type { Notifier } from '../src/mail/notifier.js';
@@ -38,6 +38,8 @@ export interface TestServerOptions {
   retryDelays?: number[];
   /** Show the stand-in's mailbox at /dev/mail, as the server does with MAIL_STANDIN_URL. */
   devMail?: boolean;
+  /** Changes to the budget of the server's cell checks. */
+  cellCheck?: Partial<CellCheckConfig>;
 }
 
 /** The demo admin is an admin in tests too, as `npm start` makes them by default. */
@@ -59,7 +61,13 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     retryDelays: options.retryDelays ?? [10, 10],
   });
   const mailboxUrl = `http://127.0.0.1:${smtp.httpPort}`;
-  const app = createApp({ webDist: options.webDist ?? null, auth, notifier, mailStandinUrl: options.devMail ? mailboxUrl : null });
+  const app = createApp({
+    webDist: options.webDist ?? null,
+    auth,
+    notifier,
+    mailStandinUrl: options.devMail ? mailboxUrl : null,
+    cellCheck: { ...cellCheckConfig(), ...options.cellCheck },
+  });
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });

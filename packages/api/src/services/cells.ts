@@ -18,7 +18,7 @@ import type { Actor } from '../policy.js';
 import { presentCell, presentCurrentRevision, presentRevision, presentRevisionSummary } from '../presenters/cell.js';
 import { accessOf } from '../presenters/notebook.js';
 import { presentDiagnostics } from '../presenters/common.js';
-import { checkCell } from '../cell-check.js';
+import { checkCell } from '../cell-check-pool.js';
 import { inTransaction, managerOf, toInt } from './db.js';
 import type { Database } from './db.js';
 import { loadNotebookFor } from './access.js';
@@ -161,7 +161,7 @@ export async function createCell(
   notebookId: string,
   input: { kind: 'circuit' | 'note'; position?: number; text: string },
 ): Promise<CellSaved> {
-  const diagnostics = checkCell(input.kind, input.text);
+  const diagnostics = await checkCell(input.kind, input.text);
   return inTransaction(db, async (manager) => {
     await loadNotebookFor(manager, actor, notebookId, 'edit', { lock: true });
     const count = await liveCount(manager, notebookId);
@@ -196,7 +196,7 @@ export async function saveCell(
 ): Promise<SaveOutcome> {
   const kindRows: { kind: 'circuit' | 'note' }[] = await db.query('SELECT kind FROM cells WHERE id = ? AND notebookId = ?', [cellId, notebookId]);
   // The kind never changes, so the solver can run before the transaction holds any lock.
-  const diagnostics = kindRows[0] ? checkCell(kindRows[0].kind, input.text) : null;
+  const diagnostics = kindRows[0] ? await checkCell(kindRows[0].kind, input.text) : null;
   return inTransaction(db, async (manager) => {
     await loadNotebookFor(manager, actor, notebookId, 'edit', { lock: true });
     const locked: Pick<Cell, 'id' | 'revision' | 'deletedAt'>[] = await manager.query(

@@ -13,7 +13,7 @@ import type { Actor } from '../policy.js';
 import { presentCell } from '../presenters/cell.js';
 import { accessOf, presentNotebook, presentNotebookSummary } from '../presenters/notebook.js';
 import { presentVersionRef } from '../presenters/version.js';
-import { checkCell } from '../cell-check.js';
+import { checkCells } from '../cell-check-pool.js';
 import { cellsOf, insertCell } from './cells.js';
 import { loadNotebookFor, notebookRow, notebookSelect } from './access.js';
 import { encodeCursor, listOrder } from './notebook-order.js';
@@ -186,7 +186,7 @@ export async function insertNotebook(
 
 /** `POST /api/notebooks`: a new private notebook owned by the caller. */
 export async function createNotebook(db: Database, actor: Actor, seed: NotebookSeed): Promise<NotebookBody> {
-  const diagnostics = seed.cells.map((cell) => checkCell(cell.kind, cell.text));
+  const diagnostics = await checkCells(seed.cells);
   return inTransaction(db, async (manager) => {
     const id = await insertNotebook(manager, actor, { ...seed, diagnostics });
     const row = await notebookRow(manager, id, actor.id);

@@ -4,7 +4,7 @@
  * the notebook reads its pins; pinning, replying, resolving and reopening need `review`.
  */
 import type { EntityManager } from 'typeorm';
-import { shownTraces } from '../cell-check.js';
+import { shownTraces } from '../cell-check-pool.js';
 import { cellName } from '../contract/cells.js';
 import type { Pin, PinComment, PinList } from '../contract/pins.js';
 import { Pin as PinEntity, PinComment as PinCommentEntity } from '../db/entities/pin.js';
@@ -114,7 +114,7 @@ export async function createPin(
       input.cellId,
       revisionNumber,
     ]);
-    const traces = shownTraces(revisions[0]?.text ?? '');
+    const traces = await shownTraces(revisions[0]?.text ?? '');
     if (!traces) throw fieldError('revisionNumber', `Revision ${revisionNumber} of ${name} has errors, so it shows no trace to pin on.`);
     if (!traces.includes(input.trace)) {
       const shown = traces.length > 0 ? `it shows ${traces.map((t) => `“${t}”`).join(', ')}` : 'it shows no trace';
