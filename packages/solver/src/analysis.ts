@@ -20,7 +20,8 @@ const TWO_PI = 2 * Math.PI;
 
 /** How one trace is read from the solutions. */
 type Reader =
-  | { kind: 'voltage'; rhs: number; p: number; n: number }
+  /** Σ factor·x[unknown]: a node voltage, a difference, a sum of traces. */
+  | { kind: 'voltage'; rhs: number; unknowns: number[]; factors: number[] }
   | { kind: 'ratio'; rhs: number; num: number; den: number }
   | { kind: 'current'; rhs: number; form: LinearForm };
 
@@ -122,17 +123,13 @@ export class Evaluator {
       let di = 0;
       switch (reader.kind) {
         case 'voltage': {
-          if (reader.p >= 0) {
-            hr += x.re[reader.p];
-            hi += x.im[reader.p];
-            dr += x.dRe[reader.p];
-            di += x.dIm[reader.p];
-          }
-          if (reader.n >= 0) {
-            hr -= x.re[reader.n];
-            hi -= x.im[reader.n];
-            dr -= x.dRe[reader.n];
-            di -= x.dIm[reader.n];
+          for (let q = 0; q < reader.unknowns.length; q++) {
+            const j = reader.unknowns[q];
+            const c = reader.factors[q];
+            hr += c * x.re[j];
+            hi += c * x.im[j];
+            dr += c * x.dRe[j];
+            di += c * x.dIm[j];
           }
           break;
         }
@@ -325,7 +322,16 @@ function makeReader(probe: Probe, sys: MnaSystem, rhs: SparseVector[], impedance
     case 'voltage':
       if (!nodeOk(probe.p) || !nodeOk(probe.n)) return 'the trace names a node that does not exist';
       if (drive < 0) return 'this trace needs a drive: add a `drive` line';
-      return { kind: 'voltage', rhs: drive, p: sys.nodeUnknown[probe.p], n: sys.nodeUnknown[probe.n] };
+      return voltageReader(sys, drive, [probe.p, probe.n], [1, -1]);
+    case 'sum':
+      if (!probe.terms.every((t) => nodeOk(t.node))) return 'the trace names a node that does not exist';
+      if (drive < 0) return 'this trace needs a drive: add a `drive` line';
+      return voltageReader(
+        sys,
+        drive,
+        probe.terms.map((t) => t.node),
+        probe.terms.map((t) => t.factor),
+      );
     case 'ratio':
       if (!nodeOk(probe.num) || !nodeOk(probe.den)) return 'the trace names a node that does not exist';
       if (probe.den === 0) return 'a ratio cannot divide by the ground voltage, which is 0';
@@ -347,9 +353,22 @@ function makeReader(probe: Probe, sys: MnaSystem, rhs: SparseVector[], impedance
         rhs.push(currentInjection(sys.nodeUnknown, probe.p, probe.n));
         impedanceRhs.set(key, index);
       }
-      return { kind: 'voltage', rhs: index, p: sys.nodeUnknown[probe.p], n: sys.nodeUnknown[probe.n] };
+      return voltageReader(sys, index, [probe.p, probe.n], [1, -1]);
     }
   }
+}
+
+/** Σ factor·V(node) read from right-hand side `rhs`; ground's terms are 0 and left out. */
+function voltageReader(sys: MnaSystem, rhs: number, nodes: number[], factors: number[]): Reader {
+  const unknowns: number[] = [];
+  const kept: number[] = [];
+  nodes.forEach((node, q) => {
+    const j = sys.nodeUnknown[node];
+    if (j < 0) return;
+    unknowns.push(j);
+    kept.push(factors[q]);
+  });
+  return { kind: 'voltage', rhs, unknowns, factors: kept };
 }
 
 function scanValues(t: number): PointValues {

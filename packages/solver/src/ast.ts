@@ -132,7 +132,16 @@ export type TraceExpr =
   | { kind: 'difference'; p: Ident; n: Ident }
   | { kind: 'ratio'; num: Ident; den: Ident }
   | { kind: 'current'; element: Ident }
-  | { kind: 'impedance'; p: Ident; n: Ident | null; bracketed: boolean };
+  | { kind: 'impedance'; p: Ident; n: Ident | null; bracketed: boolean }
+  /** Node voltages times constant factors, added: `out + a`, `2 * out`, `out - 0.5 * a`. */
+  | { kind: 'sum'; terms: SumTerm[]; text: string };
+
+/** One term of a sum of traces: ± [FACTOR *] NODE. */
+export interface SumTerm {
+  sign: 1 | -1;
+  factor: Value | null;
+  node: Ident;
+}
 
 export type ShowMode = 'plain' | 'loop' | 'step' | 'noise';
 

@@ -146,7 +146,9 @@ export type Probe =
   /** Current through a two-terminal part, first node → second. */
   | { kind: 'current'; element: string }
   /** Driving-point impedance between p and n with the drive zeroed. */
-  | { kind: 'impedance'; p: NodeIndex; n: NodeIndex };
+  | { kind: 'impedance'; p: NodeIndex; n: NodeIndex }
+  /** Σ factor·V(node): a sum of node voltages with constant factors. */
+  | { kind: 'sum'; terms: { node: NodeIndex; factor: number }[] };
 
 export type TraceKind = 'ratio' | 'transimpedance' | 'current' | 'impedance' | 'loop' | 'noise' | 'step';
 

@@ -61,6 +61,8 @@ function renderProbe(p: Probe, node: (i: number) => string): string {
       return `I(${p.element})`;
     case 'impedance':
       return `Z(${node(p.p)}, ${node(p.n)})`;
+    case 'sum':
+      return p.terms.map((t) => `${num(t.factor)}·V(${node(t.node)})`).join(' + ');
   }
 }
 

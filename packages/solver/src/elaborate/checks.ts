@@ -137,6 +137,8 @@ function nodesOf(st: ShowStatement): string[] {
       return [e.num.name, e.den.name];
     case 'impedance':
       return e.n === null ? [e.p.name] : [e.p.name, e.n.name];
+    case 'sum':
+      return e.terms.map((t) => t.node.name);
     case 'current':
       return [];
   }

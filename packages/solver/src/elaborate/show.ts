@@ -1,8 +1,9 @@
 /** `show` lines: what each trace reads, and its label. */
 import type { Probe, TraceKind, TraceSpec } from '../circuit.js';
-import type { ShowStatement } from '../ast.js';
+import type { ShowStatement, SumTerm } from '../ast.js';
 import type { Elaboration } from './context.js';
 import { checkTwoTerminal } from './parts.js';
+import { read } from './values.js';
 
 /** The trace a `show` line reads, or null (with the reason reported). */
 export function showStatement(cx: Elaboration, st: ShowStatement): TraceSpec | null {
@@ -64,6 +65,10 @@ export function showStatement(cx: Elaboration, st: ShowStatement): TraceSpec | n
       probe = { kind: 'impedance', p, n };
       break;
     }
+    case 'sum':
+      probe = sumProbe(cx, st, e.terms);
+      if (probe === null) return null;
+      break;
   }
   const current = cx.drive?.kind === 'current';
   let kind: TraceKind;
@@ -105,6 +110,32 @@ export function showStatement(cx: Elaboration, st: ShowStatement): TraceSpec | n
   }
   const label = st.label?.text ?? (st.mode === 'plain' ? st.exprText : `${st.mode} ${st.exprText}`);
   return { label, expr: st.exprText, kind, probe, unit, range: st.range };
+}
+
+/**
+ * A sum of node voltages with constant factors: the factors read as plain numbers,
+ * terms on one node merged, terms on gnd dropped. A sum that is 0 by definition is an error.
+ */
+function sumProbe(cx: Elaboration, st: ShowStatement, terms: SumTerm[]): Probe | null {
+  const factors = new Map<number, number>();
+  let ok = true;
+  for (const term of terms) {
+    const node = cx.existingNode(term.node);
+    const factor =
+      term.factor === null ? 1 : read(cx, cx.top, term.factor, st.range.line, { says: 'a factor of a sum is a plain number', units: [], example: '0.5' });
+    if (node === null || factor === null) {
+      ok = false;
+      continue;
+    }
+    if (node !== 0) factors.set(node, (factors.get(node) ?? 0) + term.sign * factor);
+  }
+  if (!ok) return null;
+  const kept = [...factors].filter(([, factor]) => factor !== 0).map(([node, factor]) => ({ node, factor }));
+  if (kept.length === 0) {
+    cx.error(st.exprRange, 'bad-trace', `${st.exprText} is 0 by definition`, 'its terms cancel or stand on gnd: show a sum whose factors do not cancel');
+    return null;
+  }
+  return { kind: 'sum', terms: kept };
 }
 
 /** Two traces with the same label. */

@@ -23,6 +23,7 @@ import { StatementError, merge } from './cursor.js';
 import { replaceWith } from '../diagnostic.js';
 import type { Cursor } from './cursor.js';
 import { ident, nodeList, nodeName, value } from './values.js';
+import { canonicalWords, isSum, sumExpr } from './sums.js';
 
 const MEASURE_LIST = MEASURE_WORDS.join(', ');
 const TEMPERATURE_HINT = `write temperature 25°C or temperature 290 K; without this line it is ${DEFAULT_TEMPERATURE} K`;
@@ -111,6 +112,8 @@ function traceText(e: TraceExpr): string {
       return `current ${e.element.name}`;
     case 'impedance':
       return e.n === null ? `impedance ${e.p.name}` : `impedance [${e.p.name} ${e.n.name}]`;
+    case 'sum':
+      return e.text;
   }
 }
 
@@ -121,7 +124,7 @@ function traceExpr(cur: Cursor, mode: ShowMode): { expr: TraceExpr; range: Sourc
       cur.here(),
       'missing-trace',
       'what to show is missing',
-      'write show NODE, show NODE - NODE, show NODE / NODE, show current R1 or show impedance NODE',
+      'write show NODE, show NODE - NODE, show NODE / NODE, show 2 * NODE + NODE, show current R1 or show impedance NODE',
     );
   }
   let expr: TraceExpr;
@@ -144,6 +147,8 @@ function traceExpr(cur: Cursor, mode: ShowMode): { expr: TraceExpr; range: Sourc
     } else {
       expr = { kind: 'impedance', p: nodeName(cur, 'the node after impedance'), n: null, bracketed: false };
     }
+  } else if (isSum(cur)) {
+    expr = sumExpr(cur);
   } else {
     const a = nodeName(cur, 'the node to show');
     if (cur.isPunct('-') || cur.isPunct('/')) {
@@ -156,16 +161,16 @@ function traceExpr(cur: Cursor, mode: ShowMode): { expr: TraceExpr; range: Sourc
   }
   const range = merge(start.range, cur.tokens[cur.pos - 1].range);
   const allowed: Record<ShowMode, TraceExpr['kind'][]> = {
-    plain: ['node', 'difference', 'ratio', 'current', 'impedance'],
-    loop: ['node', 'difference', 'ratio'],
-    step: ['node', 'difference', 'ratio', 'current'],
+    plain: ['node', 'difference', 'ratio', 'current', 'impedance', 'sum'],
+    loop: ['node', 'difference', 'ratio', 'sum'],
+    step: ['node', 'difference', 'ratio', 'current', 'sum'],
     noise: ['node'],
   };
   if (!allowed[mode].includes(expr.kind)) {
     const hint = {
       plain: '',
-      loop: 'a loop gain is a node, a difference or a ratio of node voltages: show loop out / in',
-      step: 'a step response is of a node, a difference, a ratio or a current: show step out',
+      loop: 'a loop gain is a node, a difference, a sum or a ratio of node voltages: show loop out / in',
+      step: 'a step response is of a node, a difference, a sum, a ratio or a current: show step out',
       noise: 'output noise is shown at one node: show noise out',
     }[mode];
     cur.error(range, 'bad-trace', `show ${mode} cannot show ${traceText(expr)}`, hint);
@@ -188,7 +193,7 @@ export function showStatement(cur: Cursor): ShowStatement {
   takeLabel();
   let mode: ShowMode = 'plain';
   for (const m of ['loop', 'step', 'noise'] as const) {
-    if (cur.isWord(m) && cur.peek(1) !== undefined && !cur.isPunct('-', 1) && !cur.isPunct('/', 1)) {
+    if (cur.isWord(m) && cur.peek(1) !== undefined && !(['-', '/', '+', '*'] as const).some((p) => cur.isPunct(p, 1))) {
       cur.next();
       mode = m;
       break;
@@ -196,7 +201,7 @@ export function showStatement(cur: Cursor): ShowStatement {
   }
   takeLabel();
   const { expr, range } = traceExpr(cur, mode);
-  cur.finish(`the trace`, 'a show line shows one thing: write a second show line for another trace');
+  cur.finish(`the trace`, 'a show line shows one trace: a sum is written out + a, and another trace goes on a show line of its own');
   return { kind: 'show', label, mode, expr, exprText: traceText(expr), exprRange: range, range: merge(keyword.range, cur.whole()) };
 }
 
@@ -448,12 +453,5 @@ export function requireStatement(cur: Cursor): RequireStatement {
 function requireTarget(tokens: Token[]): RequireTarget {
   const range = merge(tokens[0].range, tokens[tokens.length - 1].range);
   if (tokens.length === 1 && tokens[0].kind === 'string') return { text: tokens[0].text.trim(), quoted: true, range };
-  const words = tokens.map((t) => {
-    if (t.kind === 'punct' && (t.punct === '-' || t.punct === '/')) return ` ${t.punct} `;
-    if (t.kind === 'punct' && t.punct === '[') return ' [';
-    if (t.kind === 'punct' && t.punct === ']') return ']';
-    return ` ${t.text}`;
-  });
-  const text = words.join('').replace(/\s+/g, ' ').replace(/\[ /g, '[').trim();
-  return { text, quoted: false, range };
+  return { text: canonicalWords(tokens), quoted: false, range };
 }
