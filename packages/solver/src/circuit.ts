@@ -66,7 +66,8 @@ export interface Coupling {
 
 /**
  * Op-amp. With neither `gain` nor `gbw`: ideal (nullor). `gain` alone: flat gain.
- * `gain` and `gbw`: one pole, A(s) = G / (1 + s·G/(2π·gbw)). `zout` is a series output
+ * `gain` and `gbw`: one pole, A(s) = G / (1 + s·G/(2π·gbw)); `pole2` multiplies that by
+ * 1/(1 + s/(2π·pole2)) (it needs `gbw`). `zout` is a series output
  * resistance (0 when absent). `en` (V/√Hz) and `inoise` (A/√Hz) are noise densities.
  */
 export interface OpAmp extends ElementBase {
@@ -78,6 +79,8 @@ export interface OpAmp extends ElementBase {
   gain?: number;
   /** Hz */
   gbw?: number;
+  /** Hz: a second pole, A(s) / (1 + s/(2π·pole2)); only with `gbw`. */
+  pole2?: number;
   zout: number;
   en?: number;
   inoise?: number;

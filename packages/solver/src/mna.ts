@@ -127,6 +127,10 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
           fail(el.range, `${el.name}: gbw must be above 0 Hz`);
           break;
         }
+        if (el.pole2 !== undefined && !(positive(el.pole2) && el.gbw !== undefined)) {
+          fail(el.range, `${el.name}: pole2 must be above 0 Hz, and comes with gbw`);
+          break;
+        }
         if (!nonNegative(el.zout)) {
           fail(el.range, `${el.name}: zout cannot be negative`);
           break;
@@ -279,14 +283,16 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
       }
       case 'opamp': {
         const br = branch[index];
-        // (1/A(s))·(Vo + zout·Io) − (Vp − Vn) = 0 with 1/A = 1/G + s/(2π·gbw): finite for
-        // the ideal op-amp too, where it reduces to the nullor Vp = Vn.
-        const a0 = el.gain !== undefined ? 1 / el.gain : 0;
-        const a1 = el.gbw !== undefined ? 1 / (2 * Math.PI * el.gbw) : 0;
+        // (1/A(s))·(Vo + zout·Io) − (Vp − Vn) = 0 with 1/A = (1/G + s/(2π·gbw))·(1 + s/(2π·pole2)):
+        // finite for the ideal op-amp too, where it reduces to the nullor Vp = Vn.
+        const g0 = el.gain !== undefined ? 1 / el.gain : 0;
+        const g1 = el.gbw !== undefined ? 1 / (2 * Math.PI * el.gbw) : 0;
+        const b = el.pole2 !== undefined ? 1 / (2 * Math.PI * el.pole2) : 0;
+        const [a0, a1, a2] = [g0, g1 + g0 * b, g1 * b];
         const z = el.zout ?? 0;
         add(u(el.o), br, -1);
-        add(br, u(el.o), a0, a1);
-        add(br, br, z * a0, z * a1);
+        add(br, u(el.o), a0, a1, a2);
+        add(br, br, z * a0, z * a1, z * a2);
         add(br, u(el.p), -1);
         add(br, u(el.n), 1);
         break;

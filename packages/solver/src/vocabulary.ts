@@ -116,7 +116,7 @@ export const NOISE_OFF = 'off';
 
 /** The op-amp's word and its options, each with its unit. */
 export const OPAMP_WORD = 'opamp';
-export const OPAMP_OPTIONS = { gain: 'V/V or dB', gbw: 'Hz', zout: 'Ω', vnoise: 'V/√Hz', inoise: 'A/√Hz' } as const;
+export const OPAMP_OPTIONS = { gain: 'V/V or dB', gbw: 'Hz', pole2: 'Hz', zout: 'Ω', vnoise: 'V/√Hz', inoise: 'A/√Hz' } as const;
 export type OpAmpOptionName = keyof typeof OPAMP_OPTIONS;
 export const OPAMP_OPTION_WORDS = Object.keys(OPAMP_OPTIONS) as OpAmpOptionName[];
 

@@ -81,6 +81,7 @@ function renderElement(e: Element, nodes: (...xs: number[]) => string): string {
       const opts = [
         e.gain !== undefined ? `gain ${num(e.gain)}` : '',
         e.gbw !== undefined ? `gbw ${num(e.gbw)}` : '',
+        e.pole2 !== undefined ? `pole2 ${num(e.pole2)}` : '',
         e.zout !== 0 ? `zout ${num(e.zout)}` : '',
         e.en !== undefined ? `en ${num(e.en)}` : '',
         e.inoise !== undefined ? `in ${num(e.inoise)}` : '',

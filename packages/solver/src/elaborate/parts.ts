@@ -249,6 +249,7 @@ function opamp(cx: Elaboration, scope: Scope, st: OpAmpStatement): void {
   const slots: Record<string, Slot & { min: 'positive' | 'nonnegative' }> = {
     gain: { says: 'an op-amp’s gain is in V/V or dB', units: ['dB'], convert: fromDb, min: 'positive', example: '100dB' },
     gbw: { says: 'gbw is a frequency, in Hz', units: ['Hz'], min: 'positive', example: '1M' },
+    pole2: { says: 'pole2 is a frequency, in Hz', units: ['Hz'], min: 'positive', example: '10M' },
     zout: { says: 'zout is in Ω', units: ['Ω'], min: 'nonnegative', example: '50' },
     vnoise: { says: 'vnoise is a noise density in V/√Hz', units: ['V'], min: 'nonnegative', example: '10n' },
     inoise: { says: 'inoise is a noise density in A/√Hz', units: ['A'], min: 'nonnegative', example: '1p' },
@@ -277,9 +278,20 @@ function opamp(cx: Elaboration, scope: Scope, st: OpAmpStatement): void {
     values[opt.name] = x;
   }
   if (!ok) return;
+  if (values.pole2 !== undefined && values.gbw === undefined) {
+    const at = st.options.find((o) => o.name === 'pole2') as OpAmpStatement['options'][number];
+    cx.error(
+      at.range,
+      'missing-gbw',
+      `pole2 is ${st.designator.name}’s second pole, so it needs the first: give gbw too${where}`,
+      `write gain 100dB gbw 1M pole2 10M`,
+    );
+    return;
+  }
   const element: Element = { kind: 'opamp', name, range: st.range, p, n, o, zout: values.zout ?? 0 };
   if (values.gain !== undefined) element.gain = values.gain;
   if (values.gbw !== undefined) element.gbw = values.gbw;
+  if (values.pole2 !== undefined) element.pole2 = values.pole2;
   if (values.vnoise !== undefined) element.en = values.vnoise;
   if (values.inoise !== undefined) element.inoise = values.inoise;
   add(cx, element, st.designator);

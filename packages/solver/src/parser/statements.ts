@@ -193,7 +193,9 @@ export function showStatement(cur: Cursor): ShowStatement {
   takeLabel();
   let mode: ShowMode = 'plain';
   for (const m of ['loop', 'step', 'noise'] as const) {
-    if (cur.isWord(m) && cur.peek(1) !== undefined && !(['-', '/', '+', '*'] as const).some((p) => cur.isPunct(p, 1))) {
+    // `loop - x` is the node loop minus x; `loop -1 * x` is a loop trace of a sum.
+    const operand = cur.isPunct('-', 1) && cur.peek(2)?.kind === 'name';
+    if (cur.isWord(m) && cur.peek(1) !== undefined && !operand && !(['/', '+', '*'] as const).some((p) => cur.isPunct(p, 1))) {
       cur.next();
       mode = m;
       break;
