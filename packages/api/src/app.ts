@@ -10,7 +10,7 @@ import type { Express } from 'express';
 import { csrfCheck, csrfCookie } from './auth/csrf.js';
 import { createAuth } from './auth/setup.js';
 import { setCellCheckBudget } from './cell-check-pool.js';
-import { authConfig, mailConfig } from './config.js';
+import { authConfig, mailConfig, secureCookies } from './config.js';
 import type { AuthConfig, CellCheckConfig } from './config.js';
 import { connect } from './db/connection.js';
 import { errorMiddleware, unknownRoute } from './errors.js';
@@ -43,17 +43,17 @@ export function createApp({ webDist, auth: settings = authConfig(), notifier, ma
   if (cellCheck) setCellCheckBudget(cellCheck);
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', settings.trustProxy);
   app.use(securityHeaders());
   const mail: AppMail = { notifier: notifier ?? createNotifier({ smtp: mailConfig(), database: connect }), publicUrl: settings.publicUrl };
   app.locals.mail = mail;
-  app.use(csrfCookie);
+  app.use(csrfCookie({ secret: settings.sessionSecret, secure: secureCookies(settings) }));
 
   // Health answers without a session, so it works while MariaDB is down.
   app.use('/api/health', healthRouter);
 
   const auth = createAuth(settings, connect);
-  const checkCsrf = csrfCheck(settings.publicUrl);
+  const checkCsrf = csrfCheck(settings.publicUrl, settings.sessionSecret);
   app.use(['/api', '/auth', '/dev/mail'], auth.session, auth.passport.initialize(), auth.passport.session());
   app.use('/auth/logout', checkCsrf);
   app.use('/auth', authRouter(auth));

@@ -114,6 +114,24 @@ export interface AuthConfig {
   sessionSecret: string;
   /** Logins made site admins when they sign in. */
   adminLogins: string[];
+  /**
+   * Whose X-Forwarded-* headers to believe (`TRUST_PROXY`, as Express's `trust proxy` reads it:
+   * `loopback` by default, `false`, a number of hops, or addresses and subnets separated by commas).
+   */
+  trustProxy: boolean | number | string;
+}
+
+/** TRUST_PROXY as Express's `trust proxy` setting. */
+function trustProxySetting(value: string | undefined): boolean | number | string {
+  const setting = value?.trim();
+  if (!setting) return 'loopback';
+  if (setting === 'true' || setting === 'false') return setting === 'true';
+  return /^\d+$/.test(setting) ? Number(setting) : setting;
+}
+
+/** Cookies are marked Secure exactly when the product's address is https, whatever a request says. */
+export function secureCookies(settings: Pick<AuthConfig, 'publicUrl'>): boolean {
+  return settings.publicUrl?.startsWith('https://') ?? false;
 }
 
 let warnedAboutSecret = false;
@@ -136,6 +154,7 @@ export function authConfig(env: NodeJS.ProcessEnv = process.env): AuthConfig {
       .split(',')
       .map((login) => login.trim())
       .filter(Boolean),
+    trustProxy: trustProxySetting(env.TRUST_PROXY),
   };
 }
 

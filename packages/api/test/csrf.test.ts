@@ -89,6 +89,41 @@ describe('cross-site request forgery', () => {
     expect(other.status).toBe(403);
   });
 
+  it('binds the token to the session once signed in: another session’s token is refused', async () => {
+    const anonymous = new Client(server.url);
+    await anonymous.fetch('/api/health');
+    const beforeSignIn = anonymous.jar.get(CSRF_COOKIE)!;
+    const alice = await signedIn(server.url, (await buildUser()).login);
+    const bob = await signedIn(server.url, (await buildUser()).login);
+    const aliceToken = alice.jar.get(CSRF_COOKIE)!;
+    const bobToken = bob.jar.get(CSRF_COOKIE)!;
+    expect(aliceToken).toMatch(/^[A-Za-z0-9_-]{43}$/);
+    expect(aliceToken).not.toBe(bobToken);
+
+    // Bob's token, sent as cookie and header alike (a double submit that would pass unbound).
+    for (const token of [bobToken, beforeSignIn]) {
+      alice.jar.set(CSRF_COOKIE, token);
+      const reply = await alice.post('/api/notebooks', { title: 'forged' });
+      expect(reply.status).toBe(403);
+      expect((reply.body as { message: string }).message).toMatch(/belongs to another session/);
+    }
+    // Any answer puts the session's own token back, and it works.
+    await alice.get('/api/me');
+    expect(alice.jar.get(CSRF_COOKIE)).toBe(aliceToken);
+    expect((await alice.post('/api/notebooks', { title: 'mine' })).status).toBe(201);
+  });
+
+  it('gives a new session a new token: the one from before signing in again is refused', async () => {
+    const login = (await buildUser()).login;
+    const client = await signedIn(server.url, login);
+    const first = client.jar.get(CSRF_COOKIE)!;
+    await client.signIn(login);
+    const second = client.jar.get(CSRF_COOKIE)!;
+    expect(second).not.toBe(first);
+    client.jar.set(CSRF_COOKIE, first);
+    expect((await client.post('/api/notebooks', { title: 'stale' })).status).toBe(403);
+  });
+
   it('does not check reads', async () => {
     const client = await signedIn(server.url, (await buildUser()).login);
     expect((await client.get('/api/notebooks', { headers: { origin: 'https://evil.example.net' } })).status).toBe(200);

@@ -53,6 +53,7 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     publicUrl: null,
     sessionSecret: 'test-session-secret',
     adminLogins: testAdminLogins,
+    trustProxy: 'loopback',
     ...options.auth,
   };
   const notifier = createNotifier({

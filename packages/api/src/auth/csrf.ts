@@ -1,12 +1,22 @@
 /**
  * Cross-site request forgery protection by double-submit cookie (see the contract module's
- * doc comment): a readable random token in a cookie, which every state-changing request must
- * echo in a header, plus a refusal of requests whose Origin names another site.
+ * doc comment): a readable token in a cookie, which every state-changing request must echo in
+ * a header, plus a refusal of requests whose Origin names another site. Once signed in, the
+ * token is an HMAC of the session id, so a token from another session (stolen, or left from
+ * before sign-in) is refused; before sign-in it is random.
  */
-import { randomBytes, timingSafeEqual } from 'node:crypto';
+import { createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
 import type { Request, RequestHandler } from 'express';
+import onHeaders from 'on-headers';
 import { CSRF_COOKIE, CSRF_HEADER } from '../contract/common.js';
 import { forbidden } from '../errors.js';
+
+export interface CsrfSettings {
+  /** The server's session secret, which keys the HMAC. */
+  secret: string;
+  /** Whether the cookie is marked Secure (PUBLIC_URL is https). */
+  secure: boolean;
+}
 
 const tokenPattern = /^[A-Za-z0-9_-]{32,128}$/;
 const unsafeMethods = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
@@ -27,20 +37,31 @@ export function readCookie(req: Request, name: string): string | undefined {
   return undefined;
 }
 
-/** Sets the CSRF cookie on any response to a request that came without a valid one. */
-export const csrfCookie: RequestHandler = (req, res, next) => {
-  const token = readCookie(req, CSRF_COOKIE);
-  if (!token || !tokenPattern.test(token)) {
-    res.cookie(CSRF_COOKIE, randomBytes(24).toString('base64url'), {
-      httpOnly: false,
-      sameSite: 'lax',
-      secure: req.secure,
-      path: '/',
-      maxAge: 365 * 24 * 3_600_000,
+/** The token of the session `sessionId`. */
+export function sessionToken(secret: string, sessionId: string): string {
+  return createHmac('sha256', secret).update(`csrf:${sessionId}`).digest('base64url');
+}
+
+/** The id of the request's session when someone is signed in on it, else null. */
+function signedInSession(req: Request): string | null {
+  return req.user && req.sessionID ? req.sessionID : null;
+}
+
+/**
+ * Sets the CSRF cookie as an answer goes out (after sign-in has given the session its new
+ * id): the session's token when signed in, else the random token the browser has, or a new one.
+ */
+export function csrfCookie({ secret, secure }: CsrfSettings): RequestHandler {
+  return (req, res, next) => {
+    onHeaders(res, () => {
+      const current = readCookie(req, CSRF_COOKIE);
+      const sessionId = signedInSession(req);
+      const token = sessionId ? sessionToken(secret, sessionId) : current && tokenPattern.test(current) ? current : randomBytes(24).toString('base64url');
+      if (token !== current) res.cookie(CSRF_COOKIE, token, { httpOnly: false, sameSite: 'lax', secure, path: '/', maxAge: 365 * 24 * 3_600_000 });
     });
-  }
-  next();
-};
+    next();
+  };
+}
 
 function sameToken(a: string, b: string): boolean {
   const left = Buffer.from(a);
@@ -50,10 +71,10 @@ function sameToken(a: string, b: string): boolean {
 
 /**
  * Refuses a state-changing request that names a foreign Origin, is marked cross-site by the
- * browser, or lacks the header matching the cookie. `publicUrl` is the product's address
- * (null: the request's own host is the only site).
+ * browser, lacks the header matching the cookie, or (signed in) carries another session's
+ * token. `publicUrl` is the product's address (null: the request's own host is the only site).
  */
-export function csrfCheck(publicUrl: string | null): RequestHandler {
+export function csrfCheck(publicUrl: string | null, secret: string): RequestHandler {
   const publicOrigin = publicUrl ? new URL(publicUrl).origin : null;
   return (req, _res, next) => {
     if (!unsafeMethods.has(req.method)) return next();
@@ -71,6 +92,12 @@ export function csrfCheck(publicUrl: string | null): RequestHandler {
     const header = req.get(CSRF_HEADER);
     if (!cookie || !header || !sameToken(cookie, header)) {
       return next(forbidden(`Missing or wrong CSRF token: send the value of the ${CSRF_COOKIE} cookie in the ${CSRF_HEADER} header.`));
+    }
+    const sessionId = signedInSession(req);
+    if (sessionId && !sameToken(header, sessionToken(secret, sessionId))) {
+      return next(
+        forbidden(`This CSRF token belongs to another session: reload the page, then send the ${CSRF_COOKIE} cookie's new value in the ${CSRF_HEADER} header.`),
+      );
     }
     next();
   };

@@ -34,15 +34,16 @@ function pendingOf(req: Request): Pending | null {
 }
 
 /**
- * A passport-oauth2 state store on that cookie. The sign-in start puts the (validated) path to
- * return to in `res.locals.returnTo`; after a verified callback it is there again.
+ * A passport-oauth2 state store on that cookie, marked Secure when `secure` (PUBLIC_URL is
+ * https). The sign-in start puts the (validated) path to return to in `res.locals.returnTo`;
+ * after a verified callback it is there again.
  */
-export const cookieStateStore = {
+export const cookieStateStore = (secure: boolean) => ({
   store(req: Request, _meta: unknown, callback: Stored): void {
     const state = randomBytes(24).toString('base64url');
     const res = responseOf(req);
     const pending: Pending = { state, returnTo: res.locals.returnTo as string | undefined };
-    res.cookie(COOKIE, Buffer.from(JSON.stringify(pending)).toString('base64url'), { ...cookieOptions, secure: req.secure });
+    res.cookie(COOKIE, Buffer.from(JSON.stringify(pending)).toString('base64url'), { ...cookieOptions, secure });
     callback(null, state);
   },
 
@@ -59,4 +60,4 @@ export const cookieStateStore = {
     res.locals.returnTo = pending.returnTo;
     callback(null, true);
   },
-};
+});

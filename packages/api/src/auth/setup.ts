@@ -10,7 +10,7 @@ import type { PassportStatic } from 'passport';
 import { Strategy as GitHubStrategy } from 'passport-github2';
 import type { StrategyOptions } from 'passport-github2';
 import type { DataSource } from 'typeorm';
-import { OAUTH_CALLBACK_PATH } from '../config.js';
+import { OAUTH_CALLBACK_PATH, secureCookies } from '../config.js';
 import type { AuthConfig } from '../config.js';
 import { SESSION_COOKIE } from '../contract/common.js';
 import { activeUser, recordSignIn } from '../services/users.js';
@@ -65,7 +65,7 @@ export function createAuth(config: AuthConfig, database: () => Promise<DataSourc
       userEmailURL: config.oauth.userEmailURL,
       scope: ['user:email'],
       userAgent: 'rolloff',
-      store: cookieStateStore,
+      store: cookieStateStore(secureCookies(config)),
     } as unknown as StrategyOptions;
     const strategy = new GitHubStrategy(
       options,
@@ -96,7 +96,9 @@ export function createAuth(config: AuthConfig, database: () => Promise<DataSourc
     store: new DatabaseSessionStore(database, sessionTtlMs),
     resave: false,
     saveUninitialized: false,
-    cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: sessionTtlMs, path: '/' },
+    // Secure follows PUBLIC_URL, not the request; express-session sets a Secure cookie only on a
+    // request it sees as https, which behind a proxy needs TRUST_PROXY to name that proxy.
+    cookie: { httpOnly: true, sameSite: 'lax', secure: secureCookies(config), maxAge: sessionTtlMs, path: '/' },
   });
 
   return { session: sessionMiddleware, passport: authenticator, signInAvailable: config.oauth !== null };
