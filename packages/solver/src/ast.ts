@@ -81,6 +81,15 @@ export interface ControlledStatement {
   range: SourceRange;
 }
 
+/** `T1 [p+ p- s+ s-] turns N`: an ideal transformer. */
+export interface TransformerStatement {
+  kind: 'transformer';
+  designator: Ident;
+  nodes: NodeList;
+  turns: Value | null;
+  range: SourceRange;
+}
+
 export interface CoupleStatement {
   kind: 'couple';
   l1: Ident;
@@ -214,6 +223,7 @@ export type Statement =
   | PassiveStatement
   | OpAmpStatement
   | ControlledStatement
+  | TransformerStatement
   | CoupleStatement
   | BlockStatement
   | UseStatement

@@ -125,7 +125,21 @@ export interface Ccvs extends ElementBase {
   rm: number;
 }
 
-export type Element = Resistor | Capacitor | Inductor | Coupling | OpAmp | Vcvs | Vccs | Cccs | Ccvs;
+/**
+ * Ideal transformer, p1 and s1 the dotted ends: V(s1, s2) = turns·V(p1, p2), and the current
+ * into p1 is turns × the current out of s1, so a load R on the secondary looks like R/turns².
+ */
+export interface Transformer extends ElementBase {
+  kind: 'transformer';
+  p1: NodeIndex;
+  p2: NodeIndex;
+  s1: NodeIndex;
+  s2: NodeIndex;
+  /** Secondary turns per primary turn, > 0. */
+  turns: number;
+}
+
+export type Element = Resistor | Capacitor | Inductor | Coupling | OpAmp | Vcvs | Vccs | Cccs | Ccvs | Transformer;
 
 /**
  * The stimulus. A voltage drive is an AC source V(p) − V(n) = amplitude∠phase; a current

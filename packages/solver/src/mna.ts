@@ -165,6 +165,18 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
         }
         break;
       }
+      case 'transformer': {
+        if (![el.p1, el.p2, el.s1, el.s2].every(nodeOk)) {
+          fail(el.range, `${el.name} names a node that does not exist`);
+          break;
+        }
+        if (!positive(el.turns)) {
+          fail(el.range, `${el.name}: the turns ratio must be above 0`);
+          break;
+        }
+        branch[index] = unknowns++;
+        break;
+      }
       case 'coupling':
         coupled = true;
         break;
@@ -304,6 +316,20 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
         add(br, u(el.on), -1);
         add(br, u(el.cp), -el.gain);
         add(br, u(el.cn), el.gain);
+        break;
+      }
+      case 'transformer': {
+        // The primary current I enters at p1; I/turns leaves the secondary at s1, so the
+        // power in equals the power out. Branch row: V(s1, s2) − turns·V(p1, p2) = 0.
+        const br = branch[index];
+        const t = el.turns;
+        kcl(u(el.p1), u(el.p2), br);
+        add(u(el.s1), br, -1 / t);
+        add(u(el.s2), br, 1 / t);
+        add(br, u(el.s1), 1);
+        add(br, u(el.s2), -1);
+        add(br, u(el.p1), -t);
+        add(br, u(el.p2), t);
         break;
       }
       case 'vccs': {

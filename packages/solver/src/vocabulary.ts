@@ -77,7 +77,7 @@ export const TOP_LEVEL_ONLY: ReadonlySet<string> = new Set<StatementWord>(['driv
 
 export type PassiveKind = 'resistor' | 'capacitor' | 'inductor';
 
-export type PartClassLetter = 'R' | 'C' | 'L' | 'U' | 'A';
+export type PartClassLetter = 'R' | 'C' | 'L' | 'U' | 'A' | 'T';
 
 /** A part class: the designator's letter, what it is, and how its line is written. */
 export interface PartClass {
@@ -93,6 +93,7 @@ export const PART_CLASSES: Readonly<Record<PartClassLetter, PartClass>> = {
   L: { kind: 'inductor', article: 'an inductor', template: '[a b] 1m' },
   U: { kind: 'op-amp', article: 'an op-amp', template: '[p n out] opamp' },
   A: { kind: 'controlled source', article: 'a controlled source', template: '[o+ o- c+ c-] vgain 10' },
+  T: { kind: 'transformer', article: 'a transformer', template: '[p+ p- s+ s-] turns 2' },
 };
 
 export const PART_LETTERS = Object.keys(PART_CLASSES) as PartClassLetter[];
@@ -119,6 +120,9 @@ export const OPAMP_WORD = 'opamp';
 export const OPAMP_OPTIONS = { gain: 'V/V or dB', gbw: 'Hz', pole2: 'Hz', zout: 'Ω', vnoise: 'V/√Hz', inoise: 'A/√Hz' } as const;
 export type OpAmpOptionName = keyof typeof OPAMP_OPTIONS;
 export const OPAMP_OPTION_WORDS = Object.keys(OPAMP_OPTIONS) as OpAmpOptionName[];
+
+/** An ideal transformer's word: `T1 [p+ p- s+ s-] turns N`, N secondary turns per primary turn. */
+export const TURNS_WORD = 'turns';
 
 /** What an A part is, by the word after its nodes. */
 export const CONTROLLED_MODES = {

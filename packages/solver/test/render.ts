@@ -69,6 +69,8 @@ function renderProbe(p: Probe, node: (i: number) => string): string {
 function renderElement(e: Element, nodes: (...xs: number[]) => string): string {
   const tol = 'tolerance' in e && e.tolerance !== undefined ? ` tol ${num(e.tolerance * 100)}%` : '';
   switch (e.kind) {
+    case 'transformer':
+      return `${e.name} transformer ${nodes(e.p1, e.p2, e.s1, e.s2)} turns ${num(e.turns)}`;
     case 'resistor':
       return `${e.name} resistor ${nodes(e.a, e.b)} ${num(e.value)}${tol}${e.noiseless ? ' noise off' : ''}`;
     case 'capacitor':

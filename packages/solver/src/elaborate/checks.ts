@@ -12,7 +12,9 @@ const MAX_DANGLING = 100;
 /** Checks that need the whole cell read: a drive for the traces that need one, something shown, and (when nothing else is wrong) connectivity. */
 export function wholeCellChecks(cx: Elaboration, shows: ShowStatement[], traces: (TraceSpec | null)[], drives: DriveStatement[]): void {
   if (cx.program.incomplete) return;
-  const parts = cx.program.statements.filter((s) => s.kind === 'passive' || s.kind === 'opamp' || s.kind === 'controlled' || s.kind === 'use');
+  const parts = cx.program.statements.filter(
+    (s) => s.kind === 'passive' || s.kind === 'opamp' || s.kind === 'controlled' || s.kind === 'transformer' || s.kind === 'use',
+  );
   const needsDrive = shows.filter((s, i) => traces[i]?.kind !== 'impedance' && s.expr.kind !== 'impedance');
   if (drives.length === 0 && needsDrive.length > 0) {
     const st = needsDrive[0];
@@ -58,6 +60,11 @@ function connectivity(cx: Elaboration, shows: ShowStatement[]): void {
       case 'vcvs':
       case 'ccvs':
         join(e.op, e.on);
+        break;
+      case 'transformer':
+        // Each winding's voltage is set through the other, as a source's is; its common mode is not.
+        join(e.p1, e.p2);
+        join(e.s1, e.s2);
         break;
       default:
         break;

@@ -196,6 +196,8 @@ export function designatorOf(st: Statement): { ident: Ident; kind: string } | nu
       return { ident: st.designator, kind: 'opamp' };
     case 'controlled':
       return { ident: st.designator, kind: 'controlled' };
+    case 'transformer':
+      return { ident: st.designator, kind: 'transformer' };
     case 'use':
       return { ident: st.instance, kind: 'use' };
     default:

@@ -9,6 +9,7 @@ import type {
   PassiveKind,
   PassiveStatement,
   Statement,
+  TransformerStatement,
   UseStatement,
   Value,
 } from '../ast.js';
@@ -82,7 +83,7 @@ export function warnUnusedBlocks(cx: Elaboration): void {
 function countParts(cx: Elaboration, body: Statement[], stack: string[]): number {
   let count = 0;
   for (const st of body) {
-    if (st.kind === 'passive' || st.kind === 'opamp' || st.kind === 'controlled' || st.kind === 'couple') count++;
+    if (st.kind === 'passive' || st.kind === 'opamp' || st.kind === 'controlled' || st.kind === 'transformer' || st.kind === 'couple') count++;
     if (st.kind === 'use') {
       const block = cx.blocks.get(st.block.name);
       if (block === undefined || stack.includes(block.name.name)) continue;
@@ -102,6 +103,8 @@ export function partStatement(cx: Elaboration, scope: Scope, st: Statement): voi
       return opamp(cx, scope, st);
     case 'controlled':
       return controlled(cx, scope, st);
+    case 'transformer':
+      return transformer(cx, scope, st);
     case 'couple':
       return couple(cx, scope, st);
     case 'use':
@@ -332,6 +335,25 @@ function controlled(cx: Elaboration, scope: Scope, st: ControlledStatement): voi
   cx.pending.push(() => checkTwoTerminal(cx, scope, control, controlName, `${st.mode} of`));
 }
 
+/** An ideal transformer: four nodes, and a turns ratio above 0. */
+function transformer(cx: Elaboration, scope: Scope, st: TransformerStatement): void {
+  const name = scope.prefix + st.designator.name;
+  if (st.nodes.nodes.length !== 4 || st.turns === null) return;
+  const [p1, p2, s1, s2] = st.nodes.nodes.map((id) => cx.node(scope, id, name, scope.prefix === ''));
+  const where = whereIn(cx, scope);
+  const turns = read(cx, scope, st.turns, st.range.line, { says: 'a turns ratio is a plain number', units: [], example: '2' }, where);
+  if (turns === null) return;
+  const hint = 'turns is the secondary’s turns per primary turn, like 10 for a 1:10 step-up or 0.1 for 10:1; to reverse a winding, swap its two nodes';
+  if (!bound(cx, st.turns, turns > 0, `a turns ratio must be more than 0; it is ${formatSi(turns)}${where}`, hint)) return;
+  const [a, , c] = st.nodes.nodes;
+  if (p1 === p2 || s1 === s2) {
+    const x = p1 === p2 ? a : c;
+    cx.error(st.nodes.range, 'shorted-part', `${st.designator.name} has both ends of a winding on node ${x.name}`, 'a winding joins two different nodes');
+    return;
+  }
+  add(cx, { kind: 'transformer', name, range: st.range, p1, p2, s1, s2, turns }, st.designator);
+}
+
 /** A part named by `of Rx`, `couple` or `show current` must be a resistor, capacitor or inductor. */
 export function checkTwoTerminal(cx: Elaboration, scope: Scope, id: Ident, full: string, what: string, only?: 'inductor'): boolean {
   const e = cx.elementNames.get(full);
@@ -522,6 +544,7 @@ function articleOf(kind: Element['kind'] | 'instance'): string {
     vccs: 'a controlled source',
     cccs: 'a controlled source',
     ccvs: 'a controlled source',
+    transformer: 'a transformer',
   };
   return names[kind];
 }

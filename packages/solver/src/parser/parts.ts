@@ -12,6 +12,7 @@ import type {
   PassiveKind,
   PassiveStatement,
   Statement,
+  TransformerStatement,
   UseStatement,
   Value,
 } from '../ast.js';
@@ -28,6 +29,7 @@ import {
   PASSIVES,
   PASSIVE_OPTIONS,
   RETIRED,
+  TURNS_WORD,
   isDesignator,
 } from '../vocabulary.js';
 import type { ControlledMode, OpAmpOptionName, PartClassLetter } from '../vocabulary.js';
@@ -52,6 +54,8 @@ export function partStatement(cur: Cursor, letter: PartClassLetter): Statement |
       return opamp(cur, designator, nodes);
     case 'A':
       return controlled(cur, designator, nodes);
+    case 'T':
+      return transformer(cur, designator, nodes);
   }
 }
 
@@ -282,6 +286,21 @@ function controlled(cur: Cursor, designator: Ident, nodes: NodeList): Controlled
   }
   cur.finish(`${designator.name}`, hint);
   return { kind: 'controlled', designator, nodes, mode, value: v, control, range: cur.whole() };
+}
+
+/** `T1 [p+ p- s+ s-] turns N`. */
+function transformer(cur: Cursor, designator: Ident, nodes: NodeList): TransformerStatement {
+  const hint = `write ${designator.name} [p+ p- s+ s-] ${TURNS_WORD} 2: N secondary turns per primary turn, the dotted ends first`;
+  checkCount(cur, nodes, 4, 'a transformer', `${designator.name} [p+ p- s+ s-] ${TURNS_WORD} 2 (primary, then secondary)`);
+  const word = cur.peek();
+  if (word === undefined || word.kind !== 'name' || word.text !== TURNS_WORD) {
+    const near = word !== undefined && word.kind === 'name' ? didYouMean(word.text, [TURNS_WORD]) : undefined;
+    cur.error(word?.range ?? nodes.range, 'missing-turns', `${designator.name} needs its turns ratio after its nodes`, hint, near?.fix);
+  }
+  cur.next();
+  const turns = value(cur, 'the turns ratio after turns', [], hint);
+  cur.finish(`the turns ratio`, hint);
+  return { kind: 'transformer', designator, nodes, turns, range: cur.whole() };
 }
 
 export function coupleStatement(cur: Cursor): CoupleStatement {
