@@ -83,16 +83,40 @@ export function extremeOver(view: TraceView, measure: PointMeasure, from: number
   const samples = sampleRange(view, measure, from, to);
   const missing = samples.find((s) => Number.isNaN(s.m));
   if (missing) return { value: NaN, at: missing.f };
-  const better = (a: number, b: number): boolean => (want === 'max' ? a > b : a < b);
   let best: Extreme = { value: samples[0].m, at: samples[0].f };
-  for (const s of samples) if (better(s.m, best.value)) best = { value: s.m, at: s.f };
+  for (const s of samples) if (better(want, s.m, best.value)) best = { value: s.m, at: s.f };
+  for (const e of refinedExtrema(view, measure, samples, want)) if (better(want, e.value, best.value)) best = e;
+  return best;
+}
 
+/**
+ * The highest peak (`max`) or deepest dip (`min`) of the measure strictly inside (from, to):
+ * a true local extremum, refined between grid points, never an end of the range. NaN as
+ * value (with its frequency) when the trace has no value somewhere in the range; null when
+ * the range holds no such extremum.
+ */
+export function innerExtreme(view: TraceView, measure: PointMeasure, from: number, to: number, want: 'max' | 'min'): Extreme | null {
+  if (!(from < to)) return null;
+  const samples = sampleRange(view, measure, from, to);
+  const missing = samples.find((s) => Number.isNaN(s.m));
+  if (missing) return { value: NaN, at: missing.f };
+  let best: Extreme | null = null;
+  for (const e of refinedExtrema(view, measure, samples, want)) {
+    if (e.at > from && e.at < to && (best === null || better(want, e.value, best.value))) best = e;
+  }
+  return best;
+}
+
+const better = (want: 'max' | 'min', a: number, b: number): boolean => (want === 'max' ? a > b : a < b);
+
+/** Every local extremum of the wanted kind between the samples, refined on exact solves (the most promising first). */
+function refinedExtrema(view: TraceView, measure: PointMeasure, samples: Sample[], want: 'max' | 'min'): Extreme[] {
   const candidates: { lo: number; hi: number; promise: number }[] = [];
   const sign = want === 'max' ? 1 : -1;
   if (measure === 'delay') {
     for (let q = 1; q + 1 < samples.length; q++) {
       const m = samples[q].m;
-      if (!better(samples[q - 1].m, m) && !better(samples[q + 1].m, m)) candidates.push({ lo: q - 1, hi: q + 1, promise: sign * m });
+      if (!better(want, samples[q - 1].m, m) && !better(want, samples[q + 1].m, m)) candidates.push({ lo: q - 1, hi: q + 1, promise: sign * m });
     }
   } else {
     for (let q = 0; q + 1 < samples.length; q++) {
@@ -103,15 +127,16 @@ export function extremeOver(view: TraceView, measure: PointMeasure, from: number
     }
   }
   candidates.sort((a, b) => b.promise - a.promise);
+  const out: Extreme[] = [];
   for (const c of candidates.slice(0, MAX_REFINED)) {
     const a = samples[c.lo];
     const b = samples[c.hi];
     const f = measure === 'delay' ? refineByValue(view, a.f, b.f, want) : refineBySlope(view, measure, a, b);
     if (!Number.isFinite(f)) continue;
     const m = measureAt(view, measure, f);
-    if (better(m, best.value)) best = { value: m, at: f };
+    if (!Number.isNaN(m)) out.push({ value: m, at: f });
   }
-  return best;
+  return out;
 }
 
 /** The range's ends (exact) and the grid points strictly inside it. */

@@ -49,6 +49,8 @@ export type Shape = 'low-pass' | 'high-pass' | 'band-pass' | 'band-stop' | 'flat
 export interface TraceReadouts {
   trace: TraceData;
   shape: Shape;
+  /** The passband level in dB that `peak` is measured above (NaN where there is none: a band-pass, loop or impedance trace). */
+  level: number;
   readouts: Readout[];
 }
 
@@ -87,7 +89,7 @@ export function computeReadouts(analysis: AcAnalysis, trace: TraceData): TraceRe
   const kind = trace.result.kind;
   const out: Readout[] = [];
   const idx = finiteIndices(view.db);
-  if (idx.length < 2) return { trace, shape: 'unknown', readouts: out };
+  if (idx.length < 2) return { trace, shape: 'unknown', level: NaN, readouts: out };
   const info = analyseShape(view, idx);
 
   if (kind === 'loop') {
@@ -108,7 +110,8 @@ export function computeReadouts(analysis: AcAnalysis, trace: TraceData): TraceRe
     const r = asymptoticSlope(view, idx);
     if (Number.isFinite(r)) out.push(readout(label, 'rolloff', r, 'dB/decade'));
   }
-  return { trace, shape: info.shape, readouts: out.filter((r) => Number.isFinite(r.value) || r.name === 'gain-margin') };
+  const level = kind === 'loop' || kind === 'impedance' ? NaN : passbandLevel(info);
+  return { trace, shape: info.shape, level, readouts: out.filter((r) => Number.isFinite(r.value) || r.name === 'gain-margin') };
 }
 
 interface ShapeInfo {
@@ -260,12 +263,17 @@ function shapeReadouts(view: TraceView, idx: number[], info: ShapeInfo, label: s
   if (info.shape === 'band-pass') {
     if (interiorMax) out.push(readout(label, 'peak', peakDb, 'dB', peakF));
   } else if (info.shape !== 'unknown') {
-    const level = info.shape === 'high-pass' ? info.highDb : info.lowDb;
-    const above = peakDb - level;
+    const above = peakDb - passbandLevel(info);
     out.push(above > 0 ? readout(label, 'peak', above, 'dB', interiorMax ? peakF : null) : readout(label, 'peak', 0, 'dB'));
   }
   if (interiorMax) out.push(readout(label, 'peak-frequency', peakF, 'Hz'));
   return out;
+}
+
+/** The level a response's passband sits at: the high level of a high-pass one, the low level of a low-pass, band-stop or flat one; NaN for others. */
+function passbandLevel(info: ShapeInfo): number {
+  if (info.shape === 'band-pass' || info.shape === 'unknown') return NaN;
+  return info.shape === 'high-pass' ? info.highDb : info.lowDb;
 }
 
 /**

@@ -1,8 +1,9 @@
 /**
  * Checking `require` lines. Pointwise measures (gain, phase, delay, magnitude) are checked
  * at the true worst value over the range (`extremeOver`: the ends and every extremum,
- * between grid points too, from exact solves), or at the one `at` frequency; single-number
- * measures compare the trace's readout. A value that does not exist (a trace that is zero
+ * between grid points too, from exact solves), or at the one `at` frequency; the measures of
+ * a band or a feature (ripple, notch, anti-resonance, …) are read by `bandMeasure`; the
+ * other single-number measures compare the trace's readout. A value that does not exist (a trace that is zero
  * everywhere, a singular point, a readout the trace does not have) is never a pass: the
  * requirement is not applicable, and says why.
  */
@@ -17,6 +18,8 @@ import { TraceView } from './trace-view.js';
 import { extremeOver, measureAt } from './extremes.js';
 import type { Extreme } from './extremes.js';
 import { formatSi } from './units.js';
+import { bandMeasure } from './band-measures.js';
+import type { BandMeasure, Measured } from './band-measures.js';
 
 /** `=` without a written tolerance: equal within this relative amount. */
 const DEFAULT_RELATIVE_TOLERANCE = 1e-6;
@@ -71,13 +74,12 @@ function infiniteReason(q: RequirementResult): string {
   if (q.measure === 'gain-margin') return `the gain margin of ${q.trace} is ${value}: its phase never reaches −180° in the sweep`;
   const where = q.worstAt !== null ? ` at ${formatSi(q.worstAt, 'Hz')}` : '';
   if (q.measured < 0 && q.measure === 'gain') return `the worst gain is −∞ dB${where}: ${q.trace} is exactly 0 there (an exact null)`;
+  if (q.measure === 'notch-depth' || q.measure === 'ripple')
+    return `the ${q.measure} is +∞ dB: ${q.trace} is exactly 0 at a point${where ? '' : ' of the band'}${where} (an exact null)`;
   return `the measured ${q.measure} is ${value}${where}`;
 }
 
 type Outcome = { result: RequirementResult; warning?: string };
-
-/** What was measured: the worst value (and where), or why nothing could be. */
-type Measured = { value: number; worstAt: number | null } | { notApplicable: string };
 
 function checkOne(circuit: Circuit, req: RequirementSpec, analysis: AcAnalysis | null, readouts: TraceReadouts[]): Outcome {
   const base = structure(circuit, req, analysis);
@@ -97,7 +99,8 @@ function structure(circuit: Circuit, req: RequirementSpec, analysis: AcAnalysis 
   const trace = circuit.traces[req.trace];
   const grid = analysis?.frequencies;
   const sweepEnd = (k: number): number => (grid && grid.length > 0 ? grid[k < 0 ? grid.length - 1 : k] : NaN);
-  const pointwise = MEASURE_WHERE[req.measure] === 'point' && req.at === undefined;
+  const where = MEASURE_WHERE[req.measure];
+  const ranged = (where === 'point' || where === 'band' || where === 'within') && req.at === undefined;
   return {
     line: req.range.line,
     text: req.text,
@@ -107,7 +110,7 @@ function structure(circuit: Circuit, req: RequirementSpec, analysis: AcAnalysis 
     limit: req.value,
     tolerance: req.tolerance ? (req.tolerance.relative ? { relative: req.tolerance.amount } : { absolute: req.tolerance.amount }) : null,
     band: bandOf(req),
-    over: pointwise ? { from: req.over?.from ?? sweepEnd(0), to: req.over?.to ?? sweepEnd(-1) } : null,
+    over: ranged ? { from: req.over?.from ?? sweepEnd(0), to: req.over?.to ?? sweepEnd(-1) } : null,
     at: req.at ?? null,
     unit: MEASURES[req.measure] ?? trace?.unit ?? '',
   };
@@ -142,10 +145,18 @@ function measure(circuit: Circuit, req: RequirementSpec, band: RequirementResult
   if (!spec) return notApplicable('this requirement names a trace that does not exist');
   const trace = analysis?.traces.find((t) => t.plan.specIndex === req.trace);
   if (!analysis || !trace) return notApplicable(`the trace ${spec.label} has no AC result`);
-  if (MEASURE_WHERE[req.measure] === 'point') return pointwise(req, band, analysis, trace);
+  const where = MEASURE_WHERE[req.measure];
+  if (where === 'point') return pointwise(req, band, analysis, trace);
+  const own = readouts.find((r) => r.trace === trace);
+  if (where !== 'trace') {
+    if (zeroEverywhere(trace)) return notApplicable(`${spec.label} is zero at every frequency of the sweep, so it has no ${req.measure}`);
+    const grid = analysis.frequencies;
+    const from = req.at ?? req.over?.from ?? grid[0];
+    const to = req.at ?? req.over?.to ?? grid[grid.length - 1];
+    return bandMeasure(req.measure as BandMeasure, new TraceView(analysis, trace), from, to, own?.level ?? NaN, own?.shape ?? 'unknown');
+  }
 
   const name = READOUT_OF[req.measure]!;
-  const own = readouts.find((r) => r.trace === trace);
   let found: Readout | undefined = own?.readouts.find((r) => r.name === name);
   if (!found && STABILITY.has(name)) found = stabilityReadouts(analysis, trace).find((r) => r.name === name);
   if (!found) return notApplicable(missingReason(name, spec.label, trace, own?.shape));

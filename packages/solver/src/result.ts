@@ -133,20 +133,25 @@ export interface RequirementResult {
    */
   band: { low: number | null; high: number | null };
   /**
-   * The frequencies (Hz) a pointwise measure is checked over, open ends resolved to the
-   * sweep's; null for single-number measures and for `at`.
+   * The frequencies (Hz) a pointwise measure, or one of a band (`ripple`, `notch-depth`, …),
+   * is checked over, open ends resolved to the sweep's (the whole sweep when none is
+   * written); null for the other single-number measures and for `at`.
    */
   over: { from: number; to: number } | null;
   /** The one frequency (Hz) of `require … at F`, else null. */
   at: number | null;
-  /** Unit of `limit`, `band` and `measured`: "dB", "deg", "s", "Hz", "%", or the trace's unit for `magnitude`. */
+  /** Unit of `limit`, `band` and `measured`: "dB", "deg", "s", "Hz", "%", "Ω", "dB/decade", "" (Q), or the trace's unit for `magnitude`. */
   unit: string;
   /**
    * The worst measured value (or the value of a single-number measure); NaN when not
    * applicable; ±∞ when that is the value (JSON: "Infinity", "-Infinity"; a note says why).
    */
   measured: number;
-  /** Hz where the worst value was found; null for single-number measures. */
+  /**
+   * Hz where the worst value was found, or where a single number was (a notch's depth at the
+   * notch, a peak impedance at its peak, the least attenuation where the gain is highest, an
+   * insertion loss at its `at`); null for a value that is itself a frequency or has no one place.
+   */
   worstAt: number | null;
   /** Why it could not be checked (status `not-applicable`), in plain words; null otherwise. */
   reason: string | null;

@@ -175,14 +175,24 @@ export const MEASURES = {
   'gain-margin': 'dB',
   settling: 's',
   overshoot: '%',
+  ripple: 'dB',
+  'min-attenuation': 'dB',
+  'insertion-loss': 'dB',
+  'notch-depth': 'dB',
+  'notch-frequency': 'Hz',
+  'max-impedance': 'Ω',
+  'anti-resonance': 'Hz',
+  'delay-variation': 's',
 } as const;
 export type Measure = keyof typeof MEASURES;
 
 /**
  * Where a measure is read: `point`, at each point (`over` a range or `at` one frequency,
- * else over the whole sweep); `trace`, one number for the whole trace, with no range.
+ * else over the whole sweep); `band`, one number over the band it needs (`over`); `at`, at
+ * the one frequency it needs; `within`, one feature (a notch, an anti-resonance) of the
+ * sweep or of the band an optional `over` gives; `trace`, one number for the whole trace.
  */
-export type MeasureWhere = 'point' | 'trace';
+export type MeasureWhere = 'point' | 'band' | 'at' | 'within' | 'trace';
 export const MEASURE_WHERE: Readonly<Record<Measure, MeasureWhere>> = {
   gain: 'point',
   phase: 'point',
@@ -205,6 +215,14 @@ export const MEASURE_WHERE: Readonly<Record<Measure, MeasureWhere>> = {
   'gain-margin': 'trace',
   settling: 'trace',
   overshoot: 'trace',
+  ripple: 'band',
+  'min-attenuation': 'band',
+  'insertion-loss': 'at',
+  'notch-depth': 'within',
+  'notch-frequency': 'within',
+  'max-impedance': 'within',
+  'anti-resonance': 'within',
+  'delay-variation': 'band',
 };
 
 /** Measures that only one kind of trace has. */
@@ -216,6 +234,8 @@ export const MEASURE_TRACE: Readonly<Partial<Record<Measure, 'loop' | 'step' | '
   settling: 'step',
   overshoot: 'step',
   'min-impedance': 'impedance',
+  'max-impedance': 'impedance',
+  'anti-resonance': 'impedance',
 };
 export const MEASURE_WORDS = Object.keys(MEASURES) as Measure[];
 

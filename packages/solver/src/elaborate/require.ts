@@ -4,7 +4,7 @@ import type { RequireStatement, ShowStatement, Value } from '../ast.js';
 import { suggestionHint } from '../suggest.js';
 import { formatSi } from '../units.js';
 import { MEASURES, MEASURE_TRACE, MEASURE_WHERE } from '../vocabulary.js';
-import type { Unit } from '../vocabulary.js';
+import type { MeasureWhere, Unit } from '../vocabulary.js';
 import type { Elaboration } from './context.js';
 import { bound, evaluate, read, sourceText } from './values.js';
 import type { Slot } from './values.js';
@@ -36,16 +36,7 @@ export function requireStatement(cx: Elaboration, st: RequireStatement, shows: S
     cx.error(st.measure.range, 'wrong-measure', `${measure} is not measured on a noise trace`, 'a noise trace takes gain and magnitude');
     return null;
   }
-  if (where !== 'point' && (st.over !== null || st.at !== null)) {
-    const range = st.over?.range ?? (st.at as Value).range;
-    cx.error(
-      range,
-      'not-pointwise',
-      `${measure} is one number for the whole trace, so it takes no range`,
-      `write require ${st.target.text} ${measure} ${st.op.op} VALUE`,
-    );
-    return null;
-  }
+  if (!placeFits(cx, st, measure, where)) return null;
   const slot = measureSlot(measure, trace);
   const line = st.range.line;
   const value = read(cx, cx.top, st.value, line, slot);
@@ -159,6 +150,26 @@ function findTrace(cx: Elaboration, st: RequireStatement, shows: ShowStatement[]
     st.target.quoted ? undefined : near.fix,
   );
   return null;
+}
+
+/** Whether the requirement's `over` or `at` fits where its measure is read; reports it when not. */
+function placeFits(cx: Elaboration, st: RequireStatement, measure: Measure, where: MeasureWhere): boolean {
+  const write = (rest: string) => `write require ${st.target.text} ${measure} ${st.op.op} VALUE${rest}`;
+  if (where === 'band' && st.over === null) {
+    cx.error(st.at?.range ?? st.range, 'missing-range', `${measure} is measured over a band, so it needs one`, write(' over F1 .. F2'));
+    return false;
+  }
+  if (where === 'at' && st.at === null) {
+    cx.error(st.over?.range ?? st.range, 'missing-frequency', `${measure} is read at one frequency, so it needs one`, write(' at F'));
+    return false;
+  }
+  if ((where === 'trace' && (st.over !== null || st.at !== null)) || (where === 'within' && st.at !== null)) {
+    const range = st.over?.range ?? (st.at as Value).range;
+    const what = where === 'trace' ? 'one number for the whole trace, so it takes no range' : 'found within a range, not at one frequency';
+    cx.error(range, 'not-pointwise', `${measure} is ${what}`, write(where === 'within' ? ' [over F1 .. F2]' : ''));
+    return false;
+  }
+  return true;
 }
 
 /** The trace a measure of one kind of trace needs, as messages say it. */
