@@ -6,27 +6,20 @@
  * the editor accepts a keystroke within 100 ms of being shown. Prints a table for
  * BENCHMARKS.md; exits 1 when a budget is missed. BENCH_RUNS sets the number of runs (3),
  * BENCH_VERBOSE=1 lists every long script of each open.
- *
- * The server: BENCH_BASE_URL, else `npm start`'s on 127.0.0.1:4410. The root `npm run bench`
- * starts a private one (scripts/bench.mjs) and sets BENCH_BASE_URL. Sign-in goes through the
- * local stand-in as a demo user, so a server signing in with real GitHub cannot be used.
+ * The server and sign-in: bench-server.ts.
  */
-import os from 'node:os';
 import { FIRST_EXAMPLE } from '@rolloff/solver';
 import type { CDPSession, Page } from 'playwright-core';
 import { openBrowser } from '../e2e/browser';
-import { fetchFromPage } from '../e2e/helpers';
+import { baseUrl, createNotebook, deleteNotebook, machineLine, median, ms, requireServer, signIn } from './bench-server';
 import { installProbe } from './page-probe';
 import type { FrameScript, PageTimings, Point } from './page-probe';
 
-const baseUrl = process.env.BENCH_BASE_URL ?? 'http://127.0.0.1:4410';
 const runs = Number(process.env.BENCH_RUNS ?? 3);
 const verbose = process.env.BENCH_VERBOSE === '1';
 // The budgets hold at ×4; BENCH_CPU_SLOWDOWN=1 shows the same page on the machine's own speed.
 const cpuSlowdown = Number(process.env.BENCH_CPU_SLOWDOWN ?? 4);
 const budget = { longestTaskMs: 200, keystrokeMs: 100 };
-// A demo user (packages/api/src/seed/demo-users.ts).
-const login = 'tobias.okafor';
 /** The notebook counts as open once the Bode plot is drawn and the page has been quiet this long. */
 const quietMs = 1500;
 const openTimeoutMs = 90_000;
@@ -40,27 +33,6 @@ interface Open {
   /** From the editor appearing to the browser taking the click: how soon the benchmark reacted. */
   reactionMs: number;
   culprit: FrameScript | null;
-}
-
-async function requireServer(): Promise<void> {
-  const hint = 'Run `npm start` in another terminal, set BENCH_BASE_URL, or run `npm run bench` at the project root (it starts its own server).';
-  try {
-    const response = await fetch(`${baseUrl}/api/health`);
-    if (!response.ok) throw new Error(`status ${response.status}`);
-  } catch (error) {
-    throw new Error(`No Rolloff server answers at ${baseUrl} (${(error as Error).message}). ${hint}`);
-  }
-}
-
-async function signIn(page: Page): Promise<void> {
-  await page.goto(`${baseUrl}/auth/github?login=${encodeURIComponent(login)}`);
-  await page.waitForURL(/\/notebooks/, { timeout: 30_000 });
-}
-
-async function createNotebook(page: Page, title: string): Promise<string> {
-  const { status, body } = await fetchFromPage(page, '/api/notebooks', { method: 'POST', body: { title, cells: [{ kind: 'circuit', text: FIRST_EXAMPLE }] } });
-  if (status !== 201 && status !== 200) throw new Error(`Creating the benchmark notebook answered ${status}: ${JSON.stringify(body)}`);
-  return (body as { id: string }).id;
 }
 
 /** Milliseconds a fixed loop takes in the page: compared before and after, it shows the slowdown holds. */
@@ -110,13 +82,6 @@ async function openOnce(page: Page, cdp: CDPSession, notebookId: string): Promis
   };
 }
 
-const ms = (value: number | null) => (value === null ? '–' : `${Math.round(value)} ms`);
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  const middle = Math.floor(sorted.length / 2);
-  return sorted.length % 2 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
-}
-
 /** One line per open, with what ran in its longest task; BENCH_VERBOSE=1 adds every long script. */
 function describe(name: string, run: Open): string {
   const t = run.timings;
@@ -158,7 +123,7 @@ async function main(): Promise<void> {
         const { product } = await cdp.send('Browser.getVersion');
         calibration = `${product}, CPU ×${cpuSlowdown} (a fixed loop took ${Math.round(plain)} ms plain, ${Math.round(slowed)} ms slowed: ×${(slowed / plain).toFixed(1)})`;
       }
-      const id = await createNotebook(page, `Load benchmark ${new Date().toISOString()} #${i}`);
+      const id = await createNotebook(page, `Load benchmark ${new Date().toISOString()} #${i}`, FIRST_EXAMPLE);
       try {
         const cold = await openOnce(page, cdp, id);
         console.log(describe(`run ${i}, first visit`, cold));
@@ -166,7 +131,7 @@ async function main(): Promise<void> {
         console.log(describe(`run ${i}, again`, warm));
         opens.push({ cold, warm });
       } finally {
-        await fetchFromPage(page, `/api/notebooks/${id}`, { method: 'DELETE' });
+        await deleteNotebook(page, id);
       }
     } finally {
       await session.close();
@@ -189,12 +154,7 @@ async function main(): Promise<void> {
   const cell = (values: number[]) => `${ms(median(values))} / ${ms(Math.max(...values))}`;
   console.log('');
   console.log(calibration);
-  console.log(
-    `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'unknown CPU'}, Node.js ${process.versions.node}, load average ${os
-      .loadavg()
-      .map((l) => l.toFixed(1))
-      .join(' ')}, ${new Date().toISOString()}`,
-  );
+  console.log(machineLine());
   console.log(`${runs} runs, each a new browser: the notebook opened on a first visit (nothing cached), then again (cached)`);
   console.log('');
   console.log('| measure | first visit: median / worst | again: median / worst | budget |');

@@ -51,6 +51,29 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
   const cautions = useMemo(() => cautionsOf((result && !hasErrors(result) ? result : (shown ?? result))?.diagnostics ?? []), [result, shown]);
   const diagnostics = useMemo(() => (outcome?.ok ? { text: outcome.text, items: outcome.result.diagnostics } : null), [outcome]);
   const [editing, setEditing] = useState(false);
+  // A keystroke re-renders this cell; the plots and the tables under them change only with a
+  // new result, so they are kept as they were until one arrives.
+  const plotsView = useMemo(
+    () =>
+      shown ? (
+        <>
+          <p className="sr-only">{plotSummary(shown.traces, shown.readouts)}</p>
+          <LazyCircuitPlots series={series} filename={filename} pins={pins} />
+        </>
+      ) : null,
+    [shown, series, filename, pins],
+  );
+  const resultView = useMemo(
+    () =>
+      shown ? (
+        <>
+          <ReadoutsPanel readouts={shown.readouts} stale={stale} />
+          <RequirementBadges requirements={shown.requirements} stale={stale} />
+          <TraceData result={shown} />
+        </>
+      ) : null,
+    [shown, stale],
+  );
 
   return (
     // Wide screens: the editor beside its plots. Narrow ones (a phone, 200 % zoom): the plots
@@ -90,21 +113,10 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
           className={`max-lg:sticky max-lg:top-0 max-lg:z-10 max-lg:order-2 max-lg:max-h-[45vh] max-lg:overflow-y-auto max-lg:bg-paper ${stale ? 'opacity-60' : ''}`}
           data-testid="workbench-plots"
         >
-          {shown ? <p className="sr-only">{plotSummary(shown.traces, shown.readouts)}</p> : null}
-          {shown ? (
-            <LazyCircuitPlots series={series} filename={filename} pins={pins} />
-          ) : (
-            <PlotPlaceholder text={outcome ? 'Nothing to plot: fix the errors or add a show line.' : 'Solving…'} />
-          )}
+          {plotsView ?? <PlotPlaceholder text={outcome ? 'Nothing to plot: fix the errors or add a show line.' : 'Solving…'} />}
         </div>
         <div className="space-y-3 max-lg:order-4">
-          {shown ? (
-            <>
-              <ReadoutsPanel readouts={shown.readouts} stale={stale} />
-              <RequirementBadges requirements={shown.requirements} stale={stale} />
-              <TraceData result={shown} />
-            </>
-          ) : null}
+          {resultView}
           <SmallSignalNote />
         </div>
       </div>

@@ -4,6 +4,7 @@
  * brings Plotly.
  */
 import { useMemo, useRef } from 'react';
+import { TIMING, timed } from '../../../lib/timing';
 import { figureCsv } from './figure-csv';
 import { readPlotPick } from './plot-pins';
 import type { PlotPick, PlotPin } from './plot-pins';
@@ -68,7 +69,7 @@ export default function CircuitPlots({ series, filename, compact = false, pins =
   // Every empty list of pins is the same one: the notebook's "no pins on this revision" and its
   // "no pins while the text is unsaved" must not redraw the plots at the first keystroke.
   const shownPins = pins.length === 0 ? NO_PINS : pins;
-  const figures = useMemo(() => figuresFor(series, theme, shownPins), [series, theme, shownPins]);
+  const figures = useMemo(() => timed(TIMING.figures, () => figuresFor(series, theme, shownPins)), [series, theme, shownPins]);
   if (figures.length === 0) {
     return <p className="rounded-lg border border-dashed border-rule px-4 py-8 text-center text-sm text-ink-faint">Nothing to plot yet: add a show line.</p>;
   }

@@ -8,6 +8,7 @@
 import Plotly from 'plotly.js-basic-dist-min';
 import { useEffect, useImperativeHandle, useRef } from 'react';
 import type { Ref } from 'react';
+import { TIMING } from '../../../lib/timing';
 import type { ClickedPoint } from './plot-pins';
 import type { Figure } from './result-figures';
 
@@ -53,7 +54,9 @@ export function PlotlyChart({ figure, label, className, onPointClick, ref }: Plo
     const current = ++generation.current;
     let plot: Plotly.PlotlyHTMLElement;
     if (drawn.current) {
+      const start = performance.now();
       plot = await Plotly.react(target, figure.data, layout, chartConfig);
+      performance.measure(TIMING.plotDraw, { start, end: performance.now() });
     } else {
       // The first draw is the heaviest: the axes and curves, then in a task of their own the
       // shapes and annotations, so neither half holds the main thread as long as the whole.

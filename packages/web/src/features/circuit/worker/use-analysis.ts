@@ -4,6 +4,7 @@
  * it belongs to, so an editor can tell whether its diagnostics still fit the document.
  */
 import { useEffect, useId, useMemo, useState } from 'react';
+import { TIMING, recordElapsed } from '../../../lib/timing';
 import { AnalysisScheduler } from './analysis-scheduler';
 import type { AnalysisOutcome, WorkerLike } from './analysis-scheduler';
 
@@ -33,7 +34,15 @@ export function useAnalysis(text: string, options: { key?: string; maxPoints?: n
   useEffect(() => {
     const frame = requestAnimationFrame(() => {
       setAskedFor(text);
-      scheduler().submit(key, text, setOutcome, options.maxPoints);
+      scheduler().submit(
+        key,
+        text,
+        (next) => {
+          if (next.ok) recordElapsed(TIMING.solve, next.elapsedMs);
+          setOutcome(next);
+        },
+        options.maxPoints,
+      );
     });
     return () => cancelAnimationFrame(frame);
   }, [key, text, options.maxPoints]);
