@@ -22,7 +22,8 @@ const TWO_PI = 2 * Math.PI;
 type Reader =
   /** Σ factor·x[unknown]: a node voltage, a difference, a sum of traces. */
   | { kind: 'voltage'; rhs: number; unknowns: number[]; factors: number[] }
-  | { kind: 'ratio'; rhs: number; num: number; den: number }
+  /** sign·V(num)/V(den); −1 for a loop read at a loop break. */
+  | { kind: 'ratio'; rhs: number; num: number; den: number; sign: 1 | -1 }
   | { kind: 'current'; rhs: number; form: LinearForm };
 
 /** A trace that the AC analysis computes. */
@@ -150,6 +151,7 @@ export class Evaluator {
           const ni = adi - (hr * bdi + hi * bdr);
           dr = (nr * br + ni * bi) / d;
           di = (ni * br - nr * bi) / d;
+          if (reader.sign < 0) [hr, hi, dr, di] = [-hr, -hi, -dr, -di];
           break;
         }
         case 'current': {
@@ -222,16 +224,17 @@ export function solveCircuit(circuit: Circuit, options: SolveOptions = {}): { an
   if (!system) return { analysis: null, diagnostics };
 
   const rhs: SparseVector[] = [];
-  const impedanceRhs = new Map<string, number>();
+  // The right-hand sides of test sources (an impedance's current, a loop break's voltage), by what they test.
+  const testRhs = new Map<string, number>();
   // The drive, when any trace needs it, is right-hand side 0.
-  const needsDrive = circuit.traces.some((t) => isAc(t) && t.probe.kind !== 'impedance');
+  const needsDrive = circuit.traces.some((t) => isAc(t) && t.probe.kind !== 'impedance' && t.probe.kind !== 'loop-break');
   if (needsDrive && system.driveRhs) rhs.push(system.driveRhs);
   const drive = rhs.length > 0 ? 0 : -1;
   const plans: TracePlan[] = [];
   // Step and noise traces are not computed; the elaborator has said so on their lines.
   circuit.traces.forEach((spec, specIndex) => {
     if (!isAc(spec)) return;
-    const reader = makeReader(spec.probe, system, rhs, impedanceRhs, drive, circuit);
+    const reader = makeReader(spec.probe, system, rhs, testRhs, drive, circuit);
     if (typeof reader === 'string') {
       // The elaborator checked the trace's nodes, parts and drive: this is a broken invariant.
       diagnostics.push(internalError(reader, spec.range));
@@ -316,7 +319,7 @@ function isAc(spec: TraceSpec): boolean {
   return spec.kind !== 'noise' && spec.kind !== 'step';
 }
 
-function makeReader(probe: Probe, sys: MnaSystem, rhs: SparseVector[], impedanceRhs: Map<string, number>, drive: number, circuit: Circuit): Reader | string {
+function makeReader(probe: Probe, sys: MnaSystem, rhs: SparseVector[], testRhs: Map<string, number>, drive: number, circuit: Circuit): Reader | string {
   const nodeOk = (k: number): boolean => Number.isInteger(k) && k >= 0 && k < circuit.nodeNames.length;
   switch (probe.kind) {
     case 'voltage':
@@ -336,7 +339,20 @@ function makeReader(probe: Probe, sys: MnaSystem, rhs: SparseVector[], impedance
       if (!nodeOk(probe.num) || !nodeOk(probe.den)) return 'the trace names a node that does not exist';
       if (probe.den === 0) return 'a ratio cannot divide by the ground voltage, which is 0';
       if (drive < 0) return 'this trace needs a drive: add a `drive` line';
-      return { kind: 'ratio', rhs: drive, num: sys.nodeUnknown[probe.num], den: sys.nodeUnknown[probe.den] };
+      return { kind: 'ratio', rhs: drive, num: sys.nodeUnknown[probe.num], den: sys.nodeUnknown[probe.den], sign: 1 };
+    case 'loop-break': {
+      const row = sys.breakRows.get(probe.element);
+      const el = circuit.elements.find((e) => e.name === probe.element);
+      if (row === undefined || el?.kind !== 'loop-break') return `${probe.element} is not a loop break of this network`;
+      const key = `break ${probe.element}`;
+      let index = testRhs.get(key);
+      if (index === undefined) {
+        index = rhs.length;
+        rhs.push({ index: Int32Array.of(row), value: Float64Array.of(1) });
+        testRhs.set(key, index);
+      }
+      return { kind: 'ratio', rhs: index, num: sys.nodeUnknown[el.from], den: sys.nodeUnknown[el.to], sign: -1 };
+    }
     case 'current': {
       const form = sys.currentForm(probe.element);
       if (!form) return `${probe.element} is not a resistor, capacitor or inductor of this network`;
@@ -347,11 +363,11 @@ function makeReader(probe: Probe, sys: MnaSystem, rhs: SparseVector[], impedance
       if (!nodeOk(probe.p) || !nodeOk(probe.n)) return 'the trace names a node that does not exist';
       if (probe.p === probe.n) return 'an impedance needs two different nodes';
       const key = `${probe.p},${probe.n}`;
-      let index = impedanceRhs.get(key);
+      let index = testRhs.get(key);
       if (index === undefined) {
         index = rhs.length;
         rhs.push(currentInjection(sys.nodeUnknown, probe.p, probe.n));
-        impedanceRhs.set(key, index);
+        testRhs.set(key, index);
       }
       return voltageReader(sys, index, [probe.p, probe.n], [1, -1]);
     }

@@ -90,6 +90,14 @@ export interface TransformerStatement {
   range: SourceRange;
 }
 
+/** `J1 [from to] break`: a link in a loop, where `show loop at J1` opens it. */
+export interface BreakStatement {
+  kind: 'break';
+  designator: Ident;
+  nodes: NodeList;
+  range: SourceRange;
+}
+
 export interface CoupleStatement {
   kind: 'couple';
   l1: Ident;
@@ -142,6 +150,8 @@ export type TraceExpr =
   | { kind: 'ratio'; num: Ident; den: Ident }
   | { kind: 'current'; element: Ident }
   | { kind: 'impedance'; p: Ident; n: Ident | null; bracketed: boolean }
+  /** `show loop at J1`: the loop opened at a loop break. */
+  | { kind: 'break'; element: Ident }
   /** Node voltages times constant factors, added: `out + a`, `2 * out`, `out - 0.5 * a`. */
   | { kind: 'sum'; terms: SumTerm[]; text: string };
 
@@ -224,6 +234,7 @@ export type Statement =
   | OpAmpStatement
   | ControlledStatement
   | TransformerStatement
+  | BreakStatement
   | CoupleStatement
   | BlockStatement
   | UseStatement

@@ -139,7 +139,18 @@ export interface Transformer extends ElementBase {
   turns: number;
 }
 
-export type Element = Resistor | Capacitor | Inductor | Coupling | OpAmp | Vcvs | Vccs | Cccs | Ccvs | Transformer;
+/**
+ * A link from `from` to `to` in a loop: V(to) = V(from), its current unknown. For its loop
+ * trace a test voltage stands in series, V(to) − V(from) = 1 V with the drive zeroed, and
+ * the loop gain is T = −V(from)/V(to), the returned voltage over the injected one.
+ */
+export interface LoopBreak extends ElementBase {
+  kind: 'loop-break';
+  from: NodeIndex;
+  to: NodeIndex;
+}
+
+export type Element = Resistor | Capacitor | Inductor | Coupling | OpAmp | Vcvs | Vccs | Cccs | Ccvs | Transformer | LoopBreak;
 
 /**
  * The stimulus. A voltage drive is an AC source V(p) − V(n) = amplitude∠phase; a current
@@ -164,6 +175,8 @@ export type Probe =
   | { kind: 'current'; element: string }
   /** Driving-point impedance between p and n with the drive zeroed. */
   | { kind: 'impedance'; p: NodeIndex; n: NodeIndex }
+  /** The loop gain at a loop break, −V(from)/V(to) with its test voltage as the only source. */
+  | { kind: 'loop-break'; element: string }
   /** Σ factor·V(node): a sum of node voltages with constant factors. */
   | { kind: 'sum'; terms: { node: NodeIndex; factor: number }[] };
 

@@ -36,6 +36,8 @@ export interface MnaSystem {
   readonly nodeUnknown: Int32Array;
   /** The right-hand side of a unit drive; null without a drive. */
   readonly driveRhs: SparseVector | null;
+  /** The row of each loop break's link, by designator: a 1 there is its test voltage. */
+  readonly breakRows: ReadonlyMap<string, number>;
   /**
    * The current through a resistor, capacitor or inductor (first node → second), by
    * designator; undefined for any other name. Made on demand: most parts are never asked.
@@ -67,6 +69,7 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
   // First pass: check values and nodes, and give branch currents where a part needs one.
   const elements = circuit.elements;
   const branch = new Int32Array(elements.length).fill(-1);
+  const breakRows = new Map<string, number>();
   let coupled = false;
   for (let index = 0; index < elements.length; index++) {
     const el = elements[index];
@@ -163,6 +166,15 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
           fail(el.range, `${el.name}: the gain must be a finite number`);
           break;
         }
+        break;
+      }
+      case 'loop-break': {
+        if (!nodeOk(el.from) || !nodeOk(el.to) || el.from === el.to) {
+          fail(el.range, `${el.name} needs two different nodes that exist`);
+          break;
+        }
+        branch[index] = unknowns++;
+        breakRows.set(el.name, branch[index]);
         break;
       }
       case 'transformer': {
@@ -318,6 +330,14 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
         add(br, u(el.cn), el.gain);
         break;
       }
+      case 'loop-break': {
+        // A link carrying current from → to; its row V(to) − V(from) = 0 takes the test voltage.
+        const br = branch[index];
+        kcl(u(el.from), u(el.to), br);
+        add(br, u(el.to), 1);
+        add(br, u(el.from), -1);
+        break;
+      }
       case 'transformer': {
         // The primary current I enters at p1; I/turns leaves the secondary at s1, so the
         // power in equals the power out. Branch row: V(s1, s2) − turns·V(p1, p2) = 0.
@@ -384,7 +404,7 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
   if (diagnostics.length > 0) return { system: null, diagnostics };
   const s = stamps.finish();
   return {
-    system: { n, rows: s.rows, cols: s.cols, c0: s.c0, c1: s.c1, c2: s.c2, nodeUnknown, driveRhs, currentForm },
+    system: { n, rows: s.rows, cols: s.cols, c0: s.c0, c1: s.c1, c2: s.c2, nodeUnknown, driveRhs, breakRows, currentForm },
     diagnostics,
   };
 }

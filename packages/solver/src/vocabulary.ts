@@ -77,7 +77,7 @@ export const TOP_LEVEL_ONLY: ReadonlySet<string> = new Set<StatementWord>(['driv
 
 export type PassiveKind = 'resistor' | 'capacitor' | 'inductor';
 
-export type PartClassLetter = 'R' | 'C' | 'L' | 'U' | 'A' | 'T';
+export type PartClassLetter = 'R' | 'C' | 'L' | 'U' | 'A' | 'T' | 'J';
 
 /** A part class: the designator's letter, what it is, and how its line is written. */
 export interface PartClass {
@@ -94,6 +94,7 @@ export const PART_CLASSES: Readonly<Record<PartClassLetter, PartClass>> = {
   U: { kind: 'op-amp', article: 'an op-amp', template: '[p n out] opamp' },
   A: { kind: 'controlled source', article: 'a controlled source', template: '[o+ o- c+ c-] vgain 10' },
   T: { kind: 'transformer', article: 'a transformer', template: '[p+ p- s+ s-] turns 2' },
+  J: { kind: 'loop break', article: 'a loop break', template: '[from to] break' },
 };
 
 export const PART_LETTERS = Object.keys(PART_CLASSES) as PartClassLetter[];
@@ -123,6 +124,9 @@ export const OPAMP_OPTION_WORDS = Object.keys(OPAMP_OPTIONS) as OpAmpOptionName[
 
 /** An ideal transformer's word: `T1 [p+ p- s+ s-] turns N`, N secondary turns per primary turn. */
 export const TURNS_WORD = 'turns';
+
+/** A loop break's word: `J1 [from to] break`, a link that `show loop at J1` opens. */
+export const BREAK_WORD = 'break';
 
 /** What an A part is, by the word after its nodes. */
 export const CONTROLLED_MODES = {

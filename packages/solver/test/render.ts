@@ -61,6 +61,8 @@ function renderProbe(p: Probe, node: (i: number) => string): string {
       return `I(${p.element})`;
     case 'impedance':
       return `Z(${node(p.p)}, ${node(p.n)})`;
+    case 'loop-break':
+      return `T(${p.element})`;
     case 'sum':
       return p.terms.map((t) => `${num(t.factor)}·V(${node(t.node)})`).join(' + ');
   }
@@ -69,6 +71,8 @@ function renderProbe(p: Probe, node: (i: number) => string): string {
 function renderElement(e: Element, nodes: (...xs: number[]) => string): string {
   const tol = 'tolerance' in e && e.tolerance !== undefined ? ` tol ${num(e.tolerance * 100)}%` : '';
   switch (e.kind) {
+    case 'loop-break':
+      return `${e.name} loop-break ${nodes(e.from, e.to)}`;
     case 'transformer':
       return `${e.name} transformer ${nodes(e.p1, e.p2, e.s1, e.s2)} turns ${num(e.turns)}`;
     case 'resistor':

@@ -13,9 +13,10 @@ const MAX_DANGLING = 100;
 export function wholeCellChecks(cx: Elaboration, shows: ShowStatement[], traces: (TraceSpec | null)[], drives: DriveStatement[]): void {
   if (cx.program.incomplete) return;
   const parts = cx.program.statements.filter(
-    (s) => s.kind === 'passive' || s.kind === 'opamp' || s.kind === 'controlled' || s.kind === 'transformer' || s.kind === 'use',
+    (s) => s.kind === 'passive' || s.kind === 'opamp' || s.kind === 'controlled' || s.kind === 'transformer' || s.kind === 'break' || s.kind === 'use',
   );
-  const needsDrive = shows.filter((s, i) => traces[i]?.kind !== 'impedance' && s.expr.kind !== 'impedance');
+  // An impedance and a loop opened at a loop break bring their own test source.
+  const needsDrive = shows.filter((s, i) => traces[i]?.kind !== 'impedance' && s.expr.kind !== 'impedance' && s.expr.kind !== 'break');
   if (drives.length === 0 && needsDrive.length > 0) {
     const st = needsDrive[0];
     cx.error(
@@ -60,6 +61,9 @@ function connectivity(cx: Elaboration, shows: ShowStatement[]): void {
       case 'vcvs':
       case 'ccvs':
         join(e.op, e.on);
+        break;
+      case 'loop-break':
+        join(e.from, e.to);
         break;
       case 'transformer':
         // Each winding's voltage is set through the other, as a source's is; its common mode is not.
@@ -147,6 +151,7 @@ function nodesOf(st: ShowStatement): string[] {
     case 'sum':
       return e.terms.map((t) => t.node.name);
     case 'current':
+    case 'break':
       return [];
   }
 }

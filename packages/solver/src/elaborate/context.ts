@@ -198,6 +198,8 @@ export function designatorOf(st: Statement): { ident: Ident; kind: string } | nu
       return { ident: st.designator, kind: 'controlled' };
     case 'transformer':
       return { ident: st.designator, kind: 'transformer' };
+    case 'break':
+      return { ident: st.designator, kind: 'break' };
     case 'use':
       return { ident: st.instance, kind: 'use' };
     default:

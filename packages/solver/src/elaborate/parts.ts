@@ -9,6 +9,7 @@ import type {
   PassiveKind,
   PassiveStatement,
   Statement,
+  BreakStatement,
   TransformerStatement,
   UseStatement,
   Value,
@@ -83,7 +84,8 @@ export function warnUnusedBlocks(cx: Elaboration): void {
 function countParts(cx: Elaboration, body: Statement[], stack: string[]): number {
   let count = 0;
   for (const st of body) {
-    if (st.kind === 'passive' || st.kind === 'opamp' || st.kind === 'controlled' || st.kind === 'transformer' || st.kind === 'couple') count++;
+    if (st.kind === 'passive' || st.kind === 'opamp' || st.kind === 'controlled' || st.kind === 'transformer' || st.kind === 'break' || st.kind === 'couple')
+      count++;
     if (st.kind === 'use') {
       const block = cx.blocks.get(st.block.name);
       if (block === undefined || stack.includes(block.name.name)) continue;
@@ -105,6 +107,8 @@ export function partStatement(cx: Elaboration, scope: Scope, st: Statement): voi
       return controlled(cx, scope, st);
     case 'transformer':
       return transformer(cx, scope, st);
+    case 'break':
+      return loopBreak(cx, scope, st);
     case 'couple':
       return couple(cx, scope, st);
     case 'use':
@@ -354,6 +358,28 @@ function transformer(cx: Elaboration, scope: Scope, st: TransformerStatement): v
   add(cx, { kind: 'transformer', name, range: st.range, p1, p2, s1, s2, turns }, st.designator);
 }
 
+/** A loop break: two different nodes, neither of them gnd (the loop's voltages are read on both sides). */
+function loopBreak(cx: Elaboration, scope: Scope, st: BreakStatement): void {
+  const name = scope.prefix + st.designator.name;
+  if (st.nodes.nodes.length !== 2) return;
+  const [from, to] = st.nodes.nodes.map((id) => cx.node(scope, id, name, scope.prefix === ''));
+  const onGround = st.nodes.nodes.find((id) => id.name === GROUND);
+  if (onGround !== undefined) {
+    cx.error(
+      onGround.range,
+      'bad-break',
+      `a loop break cannot have an end on gnd: the loop is read as voltages on both its sides`,
+      'put it in the wire the loop’s signal runs along, like [out n]',
+    );
+    return;
+  }
+  if (from === to) {
+    cx.error(st.nodes.range, 'shorted-part', `${st.designator.name} has both ends on node ${st.nodes.nodes[0].name}`, 'a loop break joins two different nodes');
+    return;
+  }
+  add(cx, { kind: 'loop-break', name, range: st.range, from, to }, st.designator);
+}
+
 /** A part named by `of Rx`, `couple` or `show current` must be a resistor, capacitor or inductor. */
 export function checkTwoTerminal(cx: Elaboration, scope: Scope, id: Ident, full: string, what: string, only?: 'inductor'): boolean {
   const e = cx.elementNames.get(full);
@@ -545,6 +571,7 @@ function articleOf(kind: Element['kind'] | 'instance'): string {
     cccs: 'a controlled source',
     ccvs: 'a controlled source',
     transformer: 'a transformer',
+    'loop-break': 'a loop break',
   };
   return names[kind];
 }

@@ -4,6 +4,7 @@ import type { ShowStatement, SumTerm } from '../ast.js';
 import type { Elaboration } from './context.js';
 import { checkTwoTerminal } from './parts.js';
 import { read } from './values.js';
+import { suggestionHint } from '../suggest.js';
 
 /** The trace a `show` line reads, or null (with the reason reported). */
 export function showStatement(cx: Elaboration, st: ShowStatement): TraceSpec | null {
@@ -69,6 +70,33 @@ export function showStatement(cx: Elaboration, st: ShowStatement): TraceSpec | n
       probe = sumProbe(cx, st, e.terms);
       if (probe === null) return null;
       break;
+    case 'break': {
+      const part = cx.elementNames.get(e.element.name);
+      if (part === undefined) {
+        if (cx.top.designators.has(e.element.name) || cx.program.brokenWords.has(e.element.name)) return null; // its own line had an error
+        const names = [...cx.elementNames].filter(([, x]) => x.kind === 'loop-break').map(([n]) => n);
+        const near = cx.near(e.element.name, names);
+        cx.error(
+          e.element.range,
+          'unknown-part',
+          `there is no part named ${e.element.name}`,
+          suggestionHint(near, undefined, 'add a loop break in the loop, like J1 [out n] break'),
+          near.fix,
+        );
+        return null;
+      }
+      if (part.kind !== 'loop-break') {
+        cx.error(
+          e.element.range,
+          'wrong-part-kind',
+          `${e.element.name} is not a loop break; show loop at names a J part`,
+          'add a loop break in the loop, like J1 [out n] break',
+        );
+        return null;
+      }
+      probe = { kind: 'loop-break', element: e.element.name };
+      break;
+    }
   }
   const current = cx.drive?.kind === 'current';
   let kind: TraceKind;

@@ -12,6 +12,7 @@ import type {
   PassiveKind,
   PassiveStatement,
   Statement,
+  BreakStatement,
   TransformerStatement,
   UseStatement,
   Value,
@@ -30,6 +31,7 @@ import {
   PASSIVE_OPTIONS,
   RETIRED,
   TURNS_WORD,
+  BREAK_WORD,
   isDesignator,
 } from '../vocabulary.js';
 import type { ControlledMode, OpAmpOptionName, PartClassLetter } from '../vocabulary.js';
@@ -56,6 +58,8 @@ export function partStatement(cur: Cursor, letter: PartClassLetter): Statement |
       return controlled(cur, designator, nodes);
     case 'T':
       return transformer(cur, designator, nodes);
+    case 'J':
+      return loopBreak(cur, designator, nodes);
   }
 }
 
@@ -301,6 +305,20 @@ function transformer(cur: Cursor, designator: Ident, nodes: NodeList): Transform
   const turns = value(cur, 'the turns ratio after turns', [], hint);
   cur.finish(`the turns ratio`, hint);
   return { kind: 'transformer', designator, nodes, turns, range: cur.whole() };
+}
+
+/** `J1 [from to] break`. */
+function loopBreak(cur: Cursor, designator: Ident, nodes: NodeList): BreakStatement {
+  const hint = `write ${designator.name} [from to] ${BREAK_WORD}, in the wire that carries the loop’s signal from one node to the next`;
+  checkCount(cur, nodes, 2, 'a loop break', `${designator.name} [out n] ${BREAK_WORD}`);
+  const word = cur.peek();
+  if (word === undefined || word.kind !== 'name' || word.text !== BREAK_WORD) {
+    const near = word !== undefined && word.kind === 'name' ? didYouMean(word.text, [BREAK_WORD]) : undefined;
+    cur.error(word?.range ?? nodes.range, 'missing-break', `${designator.name} needs the word ${BREAK_WORD} after its nodes`, hint, near?.fix);
+  }
+  cur.next();
+  cur.finish(BREAK_WORD, hint);
+  return { kind: 'break', designator, nodes, range: cur.whole() };
 }
 
 export function coupleStatement(cur: Cursor): CoupleStatement {

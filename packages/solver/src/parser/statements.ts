@@ -114,6 +114,8 @@ function traceText(e: TraceExpr): string {
       return e.n === null ? `impedance ${e.p.name}` : `impedance [${e.p.name} ${e.n.name}]`;
     case 'sum':
       return e.text;
+    case 'break':
+      return `at ${e.element.name}`;
   }
 }
 
@@ -147,6 +149,13 @@ function traceExpr(cur: Cursor, mode: ShowMode): { expr: TraceExpr; range: Sourc
     } else {
       expr = { kind: 'impedance', p: nodeName(cur, 'the node after impedance'), n: null, bracketed: false };
     }
+  } else if (cur.isWord('at') && cur.peek(1)?.kind === 'name' && cur.peek(2) === undefined) {
+    const at = cur.next() as Token;
+    if (mode !== 'loop') {
+      const name = (cur.peek() as Token).text;
+      cur.error(merge(at.range, cur.here()), 'bad-trace', `at ${name} opens a loop, so it is shown as one`, `write show loop at ${name}`);
+    }
+    expr = { kind: 'break', element: ident(cur, 'the loop break after at', 'show loop at J1') };
   } else if (isSum(cur)) {
     expr = sumExpr(cur);
   } else {
@@ -162,7 +171,7 @@ function traceExpr(cur: Cursor, mode: ShowMode): { expr: TraceExpr; range: Sourc
   const range = merge(start.range, cur.tokens[cur.pos - 1].range);
   const allowed: Record<ShowMode, TraceExpr['kind'][]> = {
     plain: ['node', 'difference', 'ratio', 'current', 'impedance', 'sum'],
-    loop: ['node', 'difference', 'ratio', 'sum'],
+    loop: ['node', 'difference', 'ratio', 'sum', 'break'],
     step: ['node', 'difference', 'ratio', 'current', 'sum'],
     noise: ['node'],
   };
