@@ -5,7 +5,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ACQUIRE_TIMEOUT } from './db/request-timeouts.js';
 
-export type ErrorId = 'not_found' | 'validation' | 'conflict' | 'unauthenticated' | 'forbidden' | 'too_large' | 'unavailable' | 'internal';
+export type ErrorId = 'not_found' | 'validation' | 'conflict' | 'unauthenticated' | 'forbidden' | 'too_large' | 'key_reused' | 'unavailable' | 'internal';
 
 const statusOf: Record<ErrorId, number> = {
   not_found: 404,
@@ -14,6 +14,7 @@ const statusOf: Record<ErrorId, number> = {
   unauthenticated: 401,
   forbidden: 403,
   too_large: 413,
+  key_reused: 422,
   unavailable: 503,
   internal: 500,
 };
@@ -39,6 +40,11 @@ export const unauthenticated = () => new ApiError('unauthenticated', 'Sign in fi
 export const forbidden = (message = 'You may not do that.') => new ApiError('forbidden', message);
 export const tooLarge = (message: string) => new ApiError('too_large', message);
 export const unavailable = (message: string) => new ApiError('unavailable', message);
+
+/** The body an error is answered with. */
+export function errorBody(error: ApiError): { error: ErrorId; message: string; details?: unknown } {
+  return { error: error.id, message: error.message, ...(error.details === undefined ? {} : { details: error.details }) };
+}
 
 /** Answers 404 for any /api route that nothing handled. */
 export const unknownRoute: RequestHandler = (req, _res, next) => {
@@ -91,5 +97,5 @@ export const errorMiddleware: ErrorRequestHandler = (error: unknown, _req, res, 
     res.status(500).json({ error: 'internal', message: 'Something went wrong on our side.' });
     return;
   }
-  res.status(known.status).json({ error: known.id, message: known.message, ...(known.details === undefined ? {} : { details: known.details }) });
+  res.status(known.status).json(errorBody(known));
 };

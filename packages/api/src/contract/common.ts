@@ -6,6 +6,13 @@ export const CSRF_COOKIE = 'rolloff_csrf';
 export const CSRF_HEADER = 'x-csrf-token';
 /** Name of the HttpOnly session cookie. */
 export const SESSION_COOKIE = 'rolloff_session';
+/**
+ * Header that makes a creating write safe to retry: the same key (per user, for a day) again
+ * answers the first outcome; the same key on a different request is 422 `key_reused`.
+ */
+export const IDEMPOTENCY_HEADER = 'idempotency-key';
+/** Header on an answer repeated for an Idempotency-Key seen before. */
+export const IDEMPOTENT_REPLAY_HEADER = 'idempotent-replayed';
 
 /** Limits the API enforces; the web checks the same numbers before it sends. */
 export const LIMITS = {
@@ -34,7 +41,17 @@ export const LIMITS = {
   reviewersPerRequest: 20,
 } as const;
 
-export const ErrorIdSchema = z.enum(['not_found', 'validation', 'conflict', 'unauthenticated', 'forbidden', 'too_large', 'unavailable', 'internal']);
+export const ErrorIdSchema = z.enum([
+  'not_found',
+  'validation',
+  'conflict',
+  'unauthenticated',
+  'forbidden',
+  'too_large',
+  'key_reused',
+  'unavailable',
+  'internal',
+]);
 export type ErrorId = z.infer<typeof ErrorIdSchema>;
 
 /** One zod issue of a refused request: `path` names the field (`cells.3.text`, `title`). */

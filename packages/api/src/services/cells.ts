@@ -22,6 +22,7 @@ import { checkCell } from '../cell-check-pool.js';
 import { inTransaction, managerOf, toInt } from './db.js';
 import type { Database } from './db.js';
 import { loadNotebookFor } from './access.js';
+import type { Once } from './idempotency.js';
 import type { NotebookRow } from './access.js';
 
 /** A cell joined with its current revision and that revision's author. */
@@ -154,12 +155,16 @@ async function cellWithHistory(manager: EntityManager, actor: Actor, notebook: N
   return cell;
 }
 
-/** `POST …/cells`: a new cell at `position` (default: the end), shifting the cells after it. */
+/**
+ * `POST …/cells`: a new cell at `position` (default: the end), shifting the cells after it.
+ * `once` records the answer in the same transaction (an Idempotency-Key).
+ */
 export async function createCell(
   db: Database,
   actor: Actor,
   notebookId: string,
   input: { kind: 'circuit' | 'note'; position?: number; text: string },
+  once: Once | null = null,
 ): Promise<CellSaved> {
   const diagnostics = await checkCell(input.kind, input.text);
   return inTransaction(db, async (manager) => {
@@ -171,7 +176,9 @@ export async function createCell(
     const now = new Date();
     const cellId = await insertCell(manager, { notebookId, kind: input.kind, position, text: input.text, authorId: actor.id, diagnostics, now });
     await touchNotebook(manager, notebookId, now);
-    return saved(await mustFindCell(manager, notebookId, cellId), diagnostics);
+    const body = saved(await mustFindCell(manager, notebookId, cellId), diagnostics);
+    await once?.record(manager, 201, body);
+    return body;
   });
 }
 
@@ -184,7 +191,8 @@ export interface SaveOutcome {
 /**
  * `PUT …/cells/:cellId`: stores `text` as a new revision if `baseRevision` is still current;
  * otherwise 409 with the current revision and the refused text, so nothing typed is lost.
- * `message` says why a revision nobody typed was made (a restore).
+ * `message` says why a revision nobody typed was made (a restore); `once` records the answer
+ * in the same transaction (an Idempotency-Key).
  */
 export async function saveCell(
   db: Database,
@@ -193,6 +201,7 @@ export async function saveCell(
   cellId: number,
   input: { text: string; baseRevision: number },
   message: string | null = null,
+  once: Once | null = null,
 ): Promise<SaveOutcome> {
   const kindRows: { kind: 'circuit' | 'note' }[] = await db.query('SELECT kind FROM cells WHERE id = ? AND notebookId = ?', [cellId, notebookId]);
   // The kind never changes, so the solver can run before the transaction holds any lock.
@@ -226,7 +235,9 @@ export async function saveCell(
       });
     }
     if (current.text === input.text) {
-      return { created: false, body: saved(current, diagnostics) };
+      const body = saved(current, diagnostics);
+      await once?.record(manager, 200, body);
+      return { created: false, body };
     }
     const now = new Date();
     const number = current.revision + 1;
@@ -242,7 +253,9 @@ export async function saveCell(
     });
     await manager.update(Cell, { id: cellId }, { revision: number, updatedAt: now });
     await touchNotebook(manager, notebookId, now);
-    return { created: true, body: saved(await mustFindCell(manager, notebookId, cellId), diagnostics) };
+    const body = saved(await mustFindCell(manager, notebookId, cellId), diagnostics);
+    await once?.record(manager, 201, body);
+    return { created: true, body };
   });
 }
 
@@ -373,6 +386,7 @@ export async function restoreRevision(
   cellId: number,
   number: number,
   input: { baseRevision: number },
+  once: Once | null = null,
 ): Promise<SaveOutcome> {
   const manager = managerOf(db);
   await loadNotebookFor(manager, actor, notebookId, 'edit');
@@ -386,5 +400,5 @@ export async function restoreRevision(
   }
   const modern = old[0].kind === 'circuit' ? modernizeCellText(old[0].text) : { text: old[0].text, changed: false };
   const message = `restored from revision ${number}${modern.changed ? ', with the language update' : ''}`;
-  return saveCell(db, actor, notebookId, cellId, { text: modern.text, baseRevision: input.baseRevision }, message);
+  return saveCell(db, actor, notebookId, cellId, { text: modern.text, baseRevision: input.baseRevision }, message, once);
 }

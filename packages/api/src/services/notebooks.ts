@@ -22,6 +22,7 @@ import { inTransaction, likeContains, managerOf } from './db.js';
 import type { Database } from './db.js';
 import { newNotebookId } from './ids.js';
 import type { NotebookRow } from './access.js';
+import type { Once } from './idempotency.js';
 
 export interface NotebookListOptions {
   scope: NotebookScope;
@@ -184,13 +185,15 @@ export async function insertNotebook(
   return id;
 }
 
-/** `POST /api/notebooks`: a new private notebook owned by the caller. */
-export async function createNotebook(db: Database, actor: Actor, seed: NotebookSeed): Promise<NotebookBody> {
+/** `POST /api/notebooks`: a new private notebook owned by the caller; `once` records the answer in the same transaction. */
+export async function createNotebook(db: Database, actor: Actor, seed: NotebookSeed, once: Once | null = null): Promise<NotebookBody> {
   const diagnostics = await checkCells(seed.cells);
   return inTransaction(db, async (manager) => {
     const id = await insertNotebook(manager, actor, { ...seed, diagnostics });
     const row = await notebookRow(manager, id, actor.id);
-    return presentNotebookFor(manager, actor, row!);
+    const body = await presentNotebookFor(manager, actor, row!);
+    await once?.record(manager, 201, body);
+    return body;
   });
 }
 

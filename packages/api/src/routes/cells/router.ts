@@ -6,6 +6,7 @@ import { PageQuerySchema } from '../../contract/common.js';
 import { connect } from '../../db/connection.js';
 import { createCell, deleteCell, getRevision, listRevisions, moveCell, restoreCell, restoreRevision, saveCell, setCellTitle } from '../../services/cells.js';
 import { validate } from '../../validate.js';
+import { answerOnce } from '../idempotency.js';
 import { CellParamsSchema, NotebookParamsSchema, RevisionParamsSchema } from '../params.js';
 
 export const cellsRouter = Router({ mergeParams: true });
@@ -13,14 +14,16 @@ export const cellsRouter = Router({ mergeParams: true });
 const create = validate({ params: NotebookParamsSchema, body: CellCreateSchema });
 cellsRouter.post('/', create, async (req, res) => {
   const { params, body } = create.input(req);
-  res.status(201).json(await createCell(await connect(), actorOf(req), params.id, body));
+  await answerOnce(req, res, async (once) => ({ status: 201, body: await createCell(await connect(), actorOf(req), params.id, body, once) }));
 });
 
 const save = validate({ params: CellParamsSchema, body: CellSaveSchema });
 cellsRouter.put('/:cellId', save, async (req, res) => {
   const { params, body } = save.input(req);
-  const outcome = await saveCell(await connect(), actorOf(req), params.id, params.cellId, body);
-  res.status(outcome.created ? 201 : 200).json(outcome.body);
+  await answerOnce(req, res, async (once) => {
+    const outcome = await saveCell(await connect(), actorOf(req), params.id, params.cellId, body, null, once);
+    return { status: outcome.created ? 201 : 200, body: outcome.body };
+  });
 });
 
 const title = validate({ params: CellParamsSchema, body: CellTitleUpdateSchema });
@@ -61,6 +64,8 @@ cellsRouter.get('/:cellId/revisions/:number', revision, async (req, res) => {
 const restoreOne = validate({ params: RevisionParamsSchema, body: RevisionRestoreSchema });
 cellsRouter.post('/:cellId/revisions/:number/restore', restoreOne, async (req, res) => {
   const { params, body } = restoreOne.input(req);
-  const outcome = await restoreRevision(await connect(), actorOf(req), params.id, params.cellId, params.number, body);
-  res.status(outcome.created ? 201 : 200).json(outcome.body);
+  await answerOnce(req, res, async (once) => {
+    const outcome = await restoreRevision(await connect(), actorOf(req), params.id, params.cellId, params.number, body, once);
+    return { status: outcome.created ? 201 : 200, body: outcome.body };
+  });
 });

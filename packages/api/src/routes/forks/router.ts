@@ -5,6 +5,7 @@ import { ForkCreateSchema } from '../../contract/forks.js';
 import { connect } from '../../db/connection.js';
 import { forkNotebook, listForks } from '../../services/forks.js';
 import { validate } from '../../validate.js';
+import { answerOnce } from '../idempotency.js';
 import { NotebookParamsSchema } from '../params.js';
 
 export const forksRouter = Router({ mergeParams: true });
@@ -12,7 +13,7 @@ export const forksRouter = Router({ mergeParams: true });
 const create = validate({ params: NotebookParamsSchema, body: ForkCreateSchema });
 forksRouter.post('/', create, async (req, res) => {
   const { params, body } = create.input(req);
-  res.status(201).json(await forkNotebook(await connect(), actorOf(req), params.id, body));
+  await answerOnce(req, res, async () => ({ status: 201, body: await forkNotebook(await connect(), actorOf(req), params.id, body) }));
 });
 
 const list = validate({ params: NotebookParamsSchema });

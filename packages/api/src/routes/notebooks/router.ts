@@ -9,6 +9,7 @@ import { activityRouter } from '../activity/router.js';
 import { cellsRouter } from '../cells/router.js';
 import { forksRouter } from '../forks/router.js';
 import { membersRouter } from '../members/router.js';
+import { answerOnce } from '../idempotency.js';
 import { NotebookParamsSchema } from '../params.js';
 import { pinsRouter } from '../pins/router.js';
 import { reviewsRouter } from '../reviews/router.js';
@@ -24,7 +25,7 @@ notebooksRouter.get('/', list, async (req, res) => {
 
 const create = validate({ body: NotebookCreateSchema });
 notebooksRouter.post('/', create, async (req, res) => {
-  res.status(201).json(await createNotebook(await connect(), actorOf(req), create.input(req).body));
+  await answerOnce(req, res, async (once) => ({ status: 201, body: await createNotebook(await connect(), actorOf(req), create.input(req).body, once) }));
 });
 
 const one = validate({ params: NotebookParamsSchema });

@@ -5,6 +5,7 @@ import { VersionCreateSchema } from '../../contract/versions.js';
 import { connect } from '../../db/connection.js';
 import { createVersion, getVersion, listVersions } from '../../services/versions.js';
 import { validate } from '../../validate.js';
+import { answerOnce } from '../idempotency.js';
 import { NotebookParamsSchema, VersionParamsSchema } from '../params.js';
 
 export const versionsRouter = Router({ mergeParams: true });
@@ -12,7 +13,7 @@ export const versionsRouter = Router({ mergeParams: true });
 const create = validate({ params: NotebookParamsSchema, body: VersionCreateSchema });
 versionsRouter.post('/', create, async (req, res) => {
   const { params, body } = create.input(req);
-  res.status(201).json(await createVersion(await connect(), actorOf(req), params.id, body.label));
+  await answerOnce(req, res, async () => ({ status: 201, body: await createVersion(await connect(), actorOf(req), params.id, body.label) }));
 });
 
 const list = validate({ params: NotebookParamsSchema });
