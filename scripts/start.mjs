@@ -57,16 +57,9 @@ await runMain(async () => {
         }
       });
     }
+    // Kept running by startMail; while it is away the server keeps mail in its outbox.
     const mail = await startMail(smtpPort, mailboxPort);
-    if (mail.service) {
-      services.push(mail.service);
-      mail.service.exited.then(({ code }) => {
-        if (!stopping) {
-          warn(`The mail stand-in stopped unexpectedly (exit ${code}).`);
-          void stopAndExit(1);
-        }
-      });
-    }
+    if (mail.service) services.push(mail.service);
     Object.assign(env, signIn.env, mail.env, {
       PUBLIC_URL: publicUrl,
       SESSION_SECRET: sessionSecret(),

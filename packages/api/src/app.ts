@@ -14,8 +14,8 @@ import { authConfig, mailConfig, secureCookies } from './config.js';
 import type { AuthConfig, CellCheckConfig } from './config.js';
 import { connect } from './db/connection.js';
 import { errorMiddleware, unknownRoute } from './errors.js';
-import { createNotifier } from './mail/notifier.js';
-import type { AppMail, Notifier } from './mail/notifier.js';
+import type { AppMail } from './mail/notifier.js';
+import type { Outbox } from './mail/outbox.js';
 import { adminRouter } from './routes/admin/router.js';
 import { authRouter } from './routes/auth/router.js';
 import { devMailRouter } from './routes/dev-mail/router.js';
@@ -31,21 +31,21 @@ export interface AppOptions {
   webDist: string | null;
   /** Sign-in settings; by default read from the environment (see config.ts). */
   auth?: AuthConfig;
-  /** Sends the e-mails; by default one on the SMTP server of the environment (see config.ts). */
-  notifier?: Notifier;
+  /** The mail outbox whose sender this process runs (mail/outbox.ts); routes wake it after queueing mail. */
+  outbox: Outbox;
   /** The SMTP stand-in's HTTP mailbox to show at /dev/mail; by default MAIL_STANDIN_URL; null: none. */
   mailStandinUrl?: string | null;
   /** The budget of the server's cell checks; by default read from the environment (see config.ts). */
   cellCheck?: CellCheckConfig;
 }
 
-export function createApp({ webDist, auth: settings = authConfig(), notifier, mailStandinUrl = mailConfig().standinUrl, cellCheck }: AppOptions): Express {
+export function createApp({ webDist, auth: settings = authConfig(), outbox, mailStandinUrl = mailConfig().standinUrl, cellCheck }: AppOptions): Express {
   if (cellCheck) setCellCheckBudget(cellCheck);
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', settings.trustProxy);
   app.use(securityHeaders());
-  const mail: AppMail = { notifier: notifier ?? createNotifier({ smtp: mailConfig(), database: connect }), publicUrl: settings.publicUrl };
+  const mail: AppMail = { outbox, publicUrl: settings.publicUrl };
   app.locals.mail = mail;
   app.use(csrfCookie({ secret: settings.sessionSecret, secure: secureCookies(settings) }));
 

@@ -165,6 +165,23 @@ export interface MailConfig {
   from: string;
   /** The stand-in's HTTP mailbox (`MAIL_STANDIN_URL`); when set, the server shows it at /dev/mail. */
   standinUrl: string | null;
+  outbox: OutboxTiming;
+}
+
+/** The pace of the mail outbox's sender loop (mail/outbox.ts), in ms. */
+export interface OutboxTiming {
+  /** How often each server process looks for mail to send (`MAIL_POLL_MS`); an action wakes its own process at once. */
+  pollMs: number;
+  /** The wait after a first temporary failure (`MAIL_RETRY_FIRST_MS`), doubling after each further one… */
+  firstRetryMs: number;
+  /** …up to this (`MAIL_RETRY_MAX_MS`). */
+  maxRetryMs: number;
+  /** A message still failing temporarily this long after it was queued is given up on (`MAIL_GIVE_UP_HOURS`). */
+  giveUpAfterMs: number;
+  /** After the relay could not be reached, how often it is asked whether it is back. */
+  probeMs: number;
+  /** How long a claimed message is one sender's; one that died meanwhile leaves it to another after this. */
+  leaseMs: number;
 }
 
 /** The SMTP stand-in that `npm start` runs, unless SMTP_HOST/SMTP_PORT name another server. */
@@ -176,6 +193,14 @@ export function mailConfig(env: NodeJS.ProcessEnv = process.env): MailConfig {
     port: Number(env.SMTP_PORT || standinSmtp.port),
     from: env.MAIL_FROM || 'Rolloff <rolloff@localhost>',
     standinUrl: env.MAIL_STANDIN_URL ? env.MAIL_STANDIN_URL.replace(/\/+$/, '') : null,
+    outbox: {
+      pollMs: positiveInt(env.MAIL_POLL_MS, 5_000),
+      firstRetryMs: positiveInt(env.MAIL_RETRY_FIRST_MS, 30_000),
+      maxRetryMs: positiveInt(env.MAIL_RETRY_MAX_MS, 30 * 60_000),
+      giveUpAfterMs: positiveInt(env.MAIL_GIVE_UP_HOURS, 72) * 60 * 60_000,
+      probeMs: 15_000,
+      leaseMs: 5 * 60_000,
+    },
   };
 }
 

@@ -32,8 +32,8 @@ export interface NotebookAccess {
  * - delete: delete the notebook, and restore it
  */
 export type NotebookAction = keyof NotebookPermissions;
-/** Site actions: managing people, and reading the development mailbox (everyone's mail). */
-export type SiteAction = 'manage-users' | 'read-dev-mail';
+/** Site actions: managing people, reading the development mailbox (everyone's mail), the state of outgoing mail. */
+export type SiteAction = 'manage-users' | 'read-dev-mail' | 'read-mail-status';
 
 /** A column of the role table. A link-shared notebook puts every signed-in user in `viewer`. */
 type Column = NotebookRole | 'site-admin';
@@ -66,7 +66,7 @@ export function can(actor: Actor | null | undefined, action: SiteAction): boolea
 export function can(actor: Actor | null | undefined, action: NotebookAction, notebook: NotebookAccess): boolean;
 export function can(actor: Actor | null | undefined, action: NotebookAction | SiteAction, notebook?: NotebookAccess): boolean {
   if (!actor || actor.disabled) return false;
-  if (action === 'manage-users' || action === 'read-dev-mail') return actor.siteRole === 'admin';
+  if (action === 'manage-users' || action === 'read-dev-mail' || action === 'read-mail-status') return actor.siteRole === 'admin';
   if (!notebook) return false;
   const columns = columnsOf(actor, notebook);
   if (notebook.deletedAt) return columns.includes('owner') && onDeleted.includes(action);
@@ -106,6 +106,7 @@ export function authorizeSite(actor: Actor | null | undefined, action: SiteActio
 const describeSite: Record<SiteAction, string> = {
   'manage-users': 'manage users',
   'read-dev-mail': 'read the development mailbox',
+  'read-mail-status': 'see the state of outgoing mail',
 };
 
 const describe: Record<NotebookAction, string> = {

@@ -1,17 +1,20 @@
 /**
  * The API process: listens, connects to MariaDB (retrying until it answers), and stops
- * cleanly on SIGINT/SIGTERM, giving e-mail still in flight a moment to go out.
+ * cleanly on SIGINT/SIGTERM. It runs its share of the mail outbox's sender loop; mail it
+ * leaves behind waits in the outbox for the next process.
  */
 import { createApp } from './app.js';
 import { closeCellChecks } from './cell-check-pool.js';
 import { config, mailConfig } from './config.js';
 import { connect, disconnect } from './db/connection.js';
 import { createHttpServer } from './http-server.js';
-import { createNotifier } from './mail/notifier.js';
+import { createRelay } from './mail/mailer.js';
+import { createOutbox } from './mail/outbox.js';
 
 const mail = mailConfig();
-const notifier = createNotifier({ smtp: mail, database: connect });
-const app = createApp({ webDist: config.production ? config.webDist : null, notifier, mailStandinUrl: mail.standinUrl });
+const relay = createRelay(mail);
+const outbox = createOutbox({ database: connect, relay, timing: mail.outbox });
+const app = createApp({ webDist: config.production ? config.webDist : null, outbox, mailStandinUrl: mail.standinUrl });
 
 const server = createHttpServer(app).listen(config.port, config.host, () => {
   console.log(`api listening on http://${config.host}:${config.port}`);
@@ -24,8 +27,9 @@ server.on('error', (error: NodeJS.ErrnoException) => {
 connect().catch((error: Error) => {
   console.error(`MariaDB is not answering yet (${error.message}); /api/health reports it until it does.`);
 });
+outbox.start();
 
-/** How long a stop waits for mail in flight; what is still retrying stays `queued` in mail_log. */
+/** How long a stop waits for the message being sent; one cut off is sent again once its claim lapses. */
 const mailGraceMs = 3000;
 
 let stopping = false;
@@ -34,8 +38,8 @@ async function stop(): Promise<void> {
   stopping = true;
   server.close();
   server.closeAllConnections();
-  await Promise.race([notifier.idle(), new Promise((resolve) => setTimeout(resolve, mailGraceMs))]);
-  notifier.close();
+  await Promise.race([outbox.stop(), new Promise((resolve) => setTimeout(resolve, mailGraceMs))]);
+  relay.close();
   await closeCellChecks();
   await disconnect().catch(() => undefined);
   process.exit(0);

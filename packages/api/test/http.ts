@@ -6,22 +6,27 @@ import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { createApp } from '../src/app.js';
 import { cellCheckConfig, oauthConfig } from '../src/config.js';
-import type { AuthConfig, CellCheckConfig } from '../src/config.js';
+import type { AuthConfig, CellCheckConfig, OutboxTiming } from '../src/config.js';
 import { connect } from '../src/db/connection.js';
-import { createNotifier } from '../src/mail/notifier.js';
-import type { Notifier } from '../src/mail/notifier.js';
+import { createRelay } from '../src/mail/mailer.js';
+import { createOutbox } from '../src/mail/outbox.js';
+import type { Outbox } from '../src/mail/outbox.js';
 import { createOAuthStandin } from '../src/standins/oauth/standin.js';
 import type { OAuthStandin } from '../src/standins/oauth/standin.js';
 import { createSmtpStandin } from '../src/standins/smtp/mailbox.js';
-import type { SmtpStandin, StoredMessage } from '../src/standins/smtp/mailbox.js';
+import type { Refusal, SmtpStandin, StoredMessage } from '../src/standins/smtp/mailbox.js';
 
 export interface TestServer {
   url: string;
   standin: OAuthStandin;
   smtp: SmtpStandin;
-  notifier: Notifier;
   /**
-   * Waits until every e-mail the app started is delivered (or given up on) and logged, then
+   * The app's mail outbox. Its sender runs when an action wakes it and when a test drains it
+   * or calls `sendDue()`, not on a timer: two test servers in one file never send each other's mail.
+   */
+  outbox: Outbox;
+  /**
+   * Waits until the outbox is empty (every message sent or given up on, and logged), then
    * reads the SMTP stand-in's mailbox over HTTP, newest first.
    */
   mailbox(): Promise<StoredMessage[]>;
@@ -34,20 +39,25 @@ export interface TestServerOptions {
   auth?: Partial<AuthConfig>;
   /** Mail goes to this SMTP port instead of the test's stand-in (a dead port, to see failures). */
   smtpPort?: number;
-  /** Waits between delivery attempts, in ms (short by default, so failures finish quickly). */
-  retryDelays?: number[];
+  /** Changes to the outbox's pace (short waits by default, so retries finish quickly). */
+  outbox?: Partial<OutboxTiming>;
+  /** Recipients the test's stand-in refuses. */
+  refuse?: (address: string) => Refusal | null;
   /** Show the stand-in's mailbox at /dev/mail, as the server does with MAIL_STANDIN_URL. */
   devMail?: boolean;
   /** Changes to the budget of the server's cell checks. */
   cellCheck?: Partial<CellCheckConfig>;
 }
 
+/** The outbox's pace in tests: retries within milliseconds, the claim of a message long enough for any test. */
+export const testOutboxTiming: OutboxTiming = { pollMs: 200, firstRetryMs: 20, maxRetryMs: 200, giveUpAfterMs: 60_000, probeMs: 20, leaseMs: 60_000 };
+
 /** The demo admin is an admin in tests too, as `npm start` makes them by default. */
 export const testAdminLogins = ['mara.lindqvist'];
 
 export async function startTestServer(options: TestServerOptions = {}): Promise<TestServer> {
   const standin = await createOAuthStandin();
-  const smtp = await createSmtpStandin();
+  const smtp = await createSmtpStandin({ refuse: options.refuse });
   const auth: AuthConfig = {
     oauth: oauthConfig({ OAUTH_BASE_URL: standin.url }),
     publicUrl: null,
@@ -56,16 +66,13 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     trustProxy: 'loopback',
     ...options.auth,
   };
-  const notifier = createNotifier({
-    smtp: { host: '127.0.0.1', port: options.smtpPort ?? smtp.smtpPort, from: 'Rolloff <rolloff@example.com>' },
-    database: connect,
-    retryDelays: options.retryDelays ?? [10, 10],
-  });
+  const relay = createRelay({ host: '127.0.0.1', port: options.smtpPort ?? smtp.smtpPort, from: 'Rolloff <rolloff@example.com>' });
+  const outbox = createOutbox({ database: connect, relay, timing: { ...testOutboxTiming, ...options.outbox } });
   const mailboxUrl = `http://127.0.0.1:${smtp.httpPort}`;
   const app = createApp({
     webDist: options.webDist ?? null,
     auth,
-    notifier,
+    outbox,
     mailStandinUrl: options.devMail ? mailboxUrl : null,
     cellCheck: { ...cellCheckConfig(), ...options.cellCheck },
   });
@@ -77,9 +84,9 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     url: `http://127.0.0.1:${port}`,
     standin,
     smtp,
-    notifier,
+    outbox,
     mailbox: async () => {
-      await notifier.idle();
+      await outbox.drain();
       const reply = await fetch(`${mailboxUrl}/messages`);
       return ((await reply.json()) as { messages: StoredMessage[] }).messages;
     },
@@ -88,8 +95,8 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
         server.closeAllConnections();
         server.close(() => resolve());
       });
-      await notifier.idle();
-      notifier.close();
+      await outbox.stop();
+      relay.close();
       await standin.close();
       await smtp.close();
     },

@@ -35,7 +35,7 @@ describe('the migrations', () => {
         'pin_comments',
         'user_mail_settings',
         'mail_log',
-        'idempotency_keys',
+        'mail_outbox',
       ]),
     );
   });
@@ -54,7 +54,6 @@ describe('the migrations', () => {
       [
         'cell_revisions.authorId -> users.id SET NULL',
         'cell_revisions.cellId -> cells.id CASCADE',
-        'idempotency_keys.userId -> users.id CASCADE',
         'cells.notebookId -> notebooks.id CASCADE',
         'notebook_members.notebookId -> notebooks.id CASCADE',
         'notebook_members.userId -> users.id CASCADE',
@@ -85,6 +84,7 @@ describe('the migrations', () => {
         'user_mail_settings.userId -> users.id CASCADE',
         'mail_log.userId -> users.id SET NULL',
         'mail_log.notebookId -> notebooks.id SET NULL',
+        'mail_outbox.mailLogId -> mail_log.id CASCADE',
       ].sort(),
     );
   });
@@ -115,9 +115,6 @@ describe('the migrations', () => {
     expect(Number(index('users', 'login')?.nonUnique)).toBe(0);
     expect(index('sessions', 'userId')).toBeDefined();
     expect(index('sessions', 'expiresAt')).toBeDefined();
-    // a user's Idempotency-Key; keys past their day
-    expect(index('idempotency_keys', 'userId,idempotencyKey')).toMatchObject({ indexName: 'PRIMARY' });
-    expect(index('idempotency_keys', 'createdAt')).toBeDefined();
     // a notebook's review rounds by number (unique), newest first in the timeline; a round's people and history
     expect(Number(index('reviews', 'notebookId,round')?.nonUnique)).toBe(0);
     expect(index('reviews', 'notebookId,createdAt')).toBeDefined();
@@ -131,6 +128,9 @@ describe('the migrations', () => {
     expect(index('user_mail_settings', 'userId')).toMatchObject({ indexName: 'PRIMARY' });
     expect(index('mail_log', 'createdAt')).toBeDefined();
     expect(index('mail_log', 'status,createdAt')).toBeDefined();
+    // the outbox's due messages in order; what was sent or failed in the last day
+    expect(index('mail_outbox', 'nextAttemptAt')).toBeDefined();
+    expect(index('mail_log', 'status,finishedAt')).toBeDefined();
   });
 
   it('refuse what the API never writes: a pin at 0 Hz, on a revision its cell does not have, an unknown review state', async () => {

@@ -38,8 +38,8 @@ export function useTestServer(options: TestServerOptions = {}): RunningServer {
     get smtp() {
       return running().smtp;
     },
-    get notifier() {
-      return running().notifier;
+    get outbox() {
+      return running().outbox;
     },
     mailbox: () => running().mailbox(),
   };

@@ -17,7 +17,7 @@
  * - `POST|GET /api/notebooks/:id/forks`.
  * - `GET /api/notebooks/:id/members`, `PUT|DELETE /api/notebooks/:id/members/:userId`.
  * - `GET /api/users?q=` (people to share with); admins: `GET /api/admin/users`,
- *   `PATCH /api/admin/users/:userId`.
+ *   `PATCH /api/admin/users/:userId`, `GET /api/admin/mail` (the relay and the outbox).
  * - `POST|GET /api/notebooks/:id/reviews`, `GET …/reviews/:reviewId`,
  *   `POST …/reviews/:reviewId/decision`.
  * - `GET|POST /api/notebooks/:id/pins`, `POST …/pins/:pinId/comments`,
@@ -25,7 +25,8 @@
  * - `GET /api/notebooks/:id/activity` (the timeline, paged).
  * - `GET|PATCH /api/me/settings` (which e-mails the caller wants).
  *
- * E-mail goes out after the change is stored and never holds up or fails the request: to
+ * E-mail is queued in the transaction that stores the change and sent after it by the outbox
+ * (kept while the relay is away, sent once it is back); it never holds up or fails the request: to
  * reviewers when a review is asked for, to the requester and the notebook's editors and owner
  * when a reviewer decides, to the earlier people of a pin thread on a reply, and to a person
  * given a role in a notebook; never to someone who turned that kind off in their settings.
@@ -53,3 +54,4 @@ export * from './reviews.js';
 export * from './pins.js';
 export * from './activity.js';
 export * from './settings.js';
+export * from './mail-status.js';

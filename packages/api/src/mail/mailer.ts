@@ -1,77 +1,101 @@
 /**
- * Outgoing e-mail through nodemailer. Sending never blocks or fails the request that caused
- * it: `deliver` returns at once and retries a few times in the background, logging failures.
+ * The mail relay through nodemailer: one attempt per call, and what a failure means. A 5xx
+ * reply to a message is permanent (the relay will never take it); anything else — a 4xx, a
+ * refused or dropped connection, a timeout — is temporary and worth trying again later.
  * In development and tests SMTP_HOST/SMTP_PORT point at the local stand-in.
  */
 import nodemailer from 'nodemailer';
 import type { Transporter } from 'nodemailer';
 
 export interface OutgoingMail {
-  to: string[];
+  to: string;
   subject: string;
   text: string;
-  html?: string;
 }
 
-export interface MailerOptions {
-  host: string;
-  port: number;
-  from: string;
-  /** Waits before each retry, in ms; the first attempt is immediate. */
-  retryDelays?: number[];
-  /** Told of every final outcome; the server records it in the mail log. */
-  onOutcome?: (mail: OutgoingMail, outcome: { ok: boolean; attempts: number; error?: string }) => void;
-}
+/** A failure is `permanent` (never retry) or not; `unreachable` when no SMTP reply came at all. */
+export type SendOutcome = { ok: true } | { ok: false; permanent: boolean; unreachable: boolean; error: string };
 
-export interface Mailer {
-  /** Queues a message; resolves when it was delivered or given up on (tests may await it). */
-  deliver(mail: OutgoingMail): Promise<boolean>;
-  /** Resolves when nothing is left in flight. */
-  idle(): Promise<void>;
+/** Whether the relay answers: it greets us (and takes our credentials, if any). */
+export type RelayState = { state: 'up' } | { state: 'down'; error: string };
+
+export interface Relay {
+  /** `host:port`, for messages and the admin page. */
+  address: string;
+  /** One attempt; the connection stays open for the next message until `release()`. */
+  send(mail: OutgoingMail): Promise<SendOutcome>;
+  /** Closes the connection `send` opened (a relay should not be held idle). */
+  release(): void;
+  check(): Promise<RelayState>;
   close(): void;
 }
 
-const wait = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+export interface RelayOptions {
+  host: string;
+  port: number;
+  from: string;
+}
 
-export function createMailer({ host, port, from, retryDelays = [1000, 5000, 15000], onOutcome }: MailerOptions): Mailer {
-  const transport: Transporter = nodemailer.createTransport({
+interface SmtpError {
+  message?: string;
+  code?: string;
+  responseCode?: number;
+}
+
+/**
+ * A failure as the outbox needs it. A relay refusing our own credentials (EAUTH) answers 5xx
+ * too, but that is the operator's to fix, so the mail waits instead of being dropped.
+ */
+export function classifyFailure(error: unknown): { permanent: boolean; unreachable: boolean; error: string } {
+  const e = (error ?? {}) as SmtpError;
+  const message = (e.message ?? String(error)).slice(0, 900);
+  const replied = typeof e.responseCode === 'number';
+  const permanent = replied && e.responseCode! >= 500 && e.responseCode! < 600 && e.code !== 'EAUTH';
+  return { permanent, unreachable: !replied, error: e.code && !message.includes(e.code) ? `${e.code}: ${message}` : message };
+}
+
+const checkBudgetMs = 2000;
+
+export function createRelay({ host, port, from }: RelayOptions): Relay {
+  const options = (timeoutMs: number) => ({
     host,
     port,
     secure: false,
     ignoreTLS: host === '127.0.0.1' || host === 'localhost',
-    connectionTimeout: 5000,
+    connectionTimeout: timeoutMs,
+    greetingTimeout: timeoutMs,
+    socketTimeout: 30_000,
   });
-  const inFlight = new Set<Promise<boolean>>();
-
-  async function attempt(mail: OutgoingMail): Promise<boolean> {
-    let lastError = '';
-    for (let i = 0; i <= retryDelays.length; i++) {
-      if (i > 0) await wait(retryDelays[i - 1]);
-      try {
-        await transport.sendMail({ from, to: mail.to, subject: mail.subject, text: mail.text, html: mail.html });
-        onOutcome?.(mail, { ok: true, attempts: i + 1 });
-        return true;
-      } catch (error) {
-        lastError = (error as Error).message;
-        console.warn(`mail to ${mail.to.join(', ')} failed (attempt ${i + 1}): ${lastError}`);
-      }
-    }
-    onOutcome?.(mail, { ok: false, attempts: retryDelays.length + 1, error: lastError });
-    return false;
-  }
-
+  // Pooled, one connection: many messages in a row are sent without greeting the relay for each.
+  let pooled: Transporter | null = null;
+  const probe: Transporter = nodemailer.createTransport(options(checkBudgetMs));
+  const release = () => {
+    pooled?.close();
+    pooled = null;
+  };
   return {
-    deliver(mail) {
-      if (mail.to.length === 0) return Promise.resolve(true);
-      const job = attempt(mail).finally(() => inFlight.delete(job));
-      inFlight.add(job);
-      return job;
+    address: `${host}:${port}`,
+    async send(mail) {
+      pooled ??= nodemailer.createTransport({ ...options(5000), pool: true, maxConnections: 1 });
+      try {
+        await pooled.sendMail({ from, to: [mail.to], subject: mail.subject, text: mail.text });
+        return { ok: true };
+      } catch (error) {
+        return { ok: false, ...classifyFailure(error) };
+      }
     },
-    async idle() {
-      await Promise.all([...inFlight]);
+    async check() {
+      try {
+        await probe.verify();
+        return { state: 'up' };
+      } catch (error) {
+        return { state: 'down', error: classifyFailure(error).error };
+      }
     },
+    release,
     close() {
-      transport.close();
+      release();
+      probe.close();
     },
   };
 }

@@ -33,6 +33,7 @@ export const apiPaths = {
   users: (q: string) => `/api/users${query({ q })}`,
   adminUsers: () => '/api/admin/users',
   adminUser: (userId: number) => `/api/admin/users/${userId}`,
+  adminMail: () => '/api/admin/mail',
   reviews: (id: string) => `/api/notebooks/${enc(id)}/reviews`,
   review: (id: string, reviewId: number) => `/api/notebooks/${enc(id)}/reviews/${reviewId}`,
   reviewDecision: (id: string, reviewId: number) => `/api/notebooks/${enc(id)}/reviews/${reviewId}/decision`,

@@ -1,6 +1,7 @@
 import { Cell } from './cell.js';
 import { CellRevision } from './cell-revision.js';
 import { MailLogEntry } from './mail-log-entry.js';
+import { MailOutboxEntry } from './mail-outbox-entry.js';
 import { Notebook } from './notebook.js';
 import { NotebookMember } from './notebook-member.js';
 import { NotebookVersion, NotebookVersionCell } from './notebook-version.js';
@@ -27,12 +28,14 @@ export const entities = [
   PinComment,
   UserMailSettings,
   MailLogEntry,
+  MailOutboxEntry,
 ];
 
 export {
   Cell,
   CellRevision,
   MailLogEntry,
+  MailOutboxEntry,
   Notebook,
   NotebookMember,
   NotebookVersion,

@@ -13,7 +13,7 @@ import { RenameChangesAsked1764633600011 } from './1764633600011-rename-changes-
 import { AddRevisionMessage1764633600012 } from './1764633600012-add-revision-message.js';
 import { LanguageUpdate1764633600013 } from './1764633600013-language-update.js';
 import { AddCellTitle1764633600014 } from './1764633600014-add-cell-title.js';
-import { CreateIdempotencyKeys1764633600040 } from './1764633600040-create-idempotency-keys.js';
+import { CreateMailOutbox1764633600030 } from './1764633600030-create-mail-outbox.js';
 
 /**
  * Every migration, oldest first. Listed by class rather than found by a file glob, so the
@@ -35,5 +35,5 @@ export const migrations = [
   AddRevisionMessage1764633600012,
   LanguageUpdate1764633600013,
   AddCellTitle1764633600014,
-  CreateIdempotencyKeys1764633600040,
+  CreateMailOutbox1764633600030,
 ];

@@ -3,7 +3,7 @@ import { Router } from 'express';
 import { actorOf } from '../../auth/require-user.js';
 import { MemberPutSchema } from '../../contract/members.js';
 import { connect } from '../../db/connection.js';
-import { mailFor } from '../../mail/notifier.js';
+import { withMail } from '../../mail/notifier.js';
 import { listMembers, putMember, removeMember } from '../../services/members.js';
 import { validate } from '../../validate.js';
 import { MemberParamsSchema, NotebookParamsSchema } from '../params.js';
@@ -19,12 +19,12 @@ const put = validate({ params: MemberParamsSchema, body: MemberPutSchema });
 membersRouter.put('/:userId', put, async (req, res) => {
   const { params, body } = put.input(req);
   const actor = actorOf(req);
-  const { created, member } = await putMember(await connect(), actor, params.id, params.userId, body.role);
-  // Only a newcomer is told; a changed role shows in the notebook itself.
-  if (created) {
-    const { notifier, baseUrl } = mailFor(req);
-    notifier.memberAdded({ baseUrl, by: actor, notebookId: params.id, userId: params.userId, role: body.role });
-  }
+  const { created, member } = await withMail(req, actor, async (manager, mail) => {
+    const put = await putMember(manager, actor, params.id, params.userId, body.role);
+    // Only a newcomer is told; a changed role shows in the notebook itself.
+    if (put.created) await mail.memberAdded({ notebookId: params.id, userId: params.userId, role: body.role });
+    return put;
+  });
   res.status(created ? 201 : 200).json(member);
 });
 

@@ -3,7 +3,7 @@ import { Router } from 'express';
 import { actorOf } from '../../auth/require-user.js';
 import { PinCommentCreateSchema, PinCreateSchema, PinListQuerySchema } from '../../contract/pins.js';
 import { connect } from '../../db/connection.js';
-import { mailFor } from '../../mail/notifier.js';
+import { withMail } from '../../mail/notifier.js';
 import { addPinComment, createPin, listPins, setPinResolved } from '../../services/pins.js';
 import { validate } from '../../validate.js';
 import { NotebookParamsSchema, PinParamsSchema } from '../params.js';
@@ -26,9 +26,11 @@ const reply = validate({ params: PinParamsSchema, body: PinCommentCreateSchema }
 pinsRouter.post('/:pinId/comments', reply, async (req, res) => {
   const { params, body } = reply.input(req);
   const actor = actorOf(req);
-  const { pin, comment } = await addPinComment(await connect(), actor, params.id, params.pinId, body.body);
-  const { notifier, baseUrl } = mailFor(req);
-  notifier.pinReplied({ baseUrl, by: actor, pin, comment });
+  const { pin } = await withMail(req, actor, async (manager, mail) => {
+    const replied = await addPinComment(manager, actor, params.id, params.pinId, body.body);
+    await mail.pinReplied(replied);
+    return replied;
+  });
   res.status(201).json(pin);
 });
 

@@ -3,7 +3,7 @@ import { Router } from 'express';
 import { actorOf } from '../../auth/require-user.js';
 import { ReviewCreateSchema, ReviewDecisionCreateSchema } from '../../contract/reviews.js';
 import { connect } from '../../db/connection.js';
-import { mailFor } from '../../mail/notifier.js';
+import { withMail } from '../../mail/notifier.js';
 import { decideReview, getReview, listReviews, requestReview } from '../../services/reviews.js';
 import { validate } from '../../validate.js';
 import { NotebookParamsSchema, ReviewParamsSchema } from '../params.js';
@@ -14,9 +14,11 @@ const create = validate({ params: NotebookParamsSchema, body: ReviewCreateSchema
 reviewsRouter.post('/', create, async (req, res) => {
   const { params, body } = create.input(req);
   const actor = actorOf(req);
-  const { created, review, askedIds } = await requestReview(await connect(), actor, params.id, body);
-  const { notifier, baseUrl } = mailFor(req);
-  notifier.reviewRequested({ baseUrl, by: actor, review, askedIds });
+  const { created, review } = await withMail(req, actor, async (manager, mail) => {
+    const requested = await requestReview(manager, actor, params.id, body);
+    await mail.reviewRequested(requested);
+    return requested;
+  });
   res.status(created ? 201 : 200).json(review);
 });
 
@@ -35,8 +37,10 @@ const decide = validate({ params: ReviewParamsSchema, body: ReviewDecisionCreate
 reviewsRouter.post('/:reviewId/decision', decide, async (req, res) => {
   const { params, body } = decide.input(req);
   const actor = actorOf(req);
-  const review = await decideReview(await connect(), actor, params.id, params.reviewId, body);
-  const { notifier, baseUrl } = mailFor(req);
-  notifier.reviewDecided({ baseUrl, by: actor, review, state: body.state, summary: body.summary });
+  const review = await withMail(req, actor, async (manager, mail) => {
+    const decided = await decideReview(manager, actor, params.id, params.reviewId, body);
+    await mail.reviewDecided({ review: decided, state: body.state, summary: body.summary });
+    return decided;
+  });
   res.json(review);
 });

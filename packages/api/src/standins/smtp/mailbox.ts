@@ -30,13 +30,27 @@ export interface SmtpStandin {
 
 const keep = 1000;
 
+/** An SMTP refusal of one recipient: a 4xx code asks the sender to try later, a 5xx never. */
+export interface Refusal {
+  code: number;
+  message: string;
+}
+
+export interface SmtpStandinOptions {
+  /** 0 picks a free port. */
+  smtpPort?: number;
+  httpPort?: number;
+  /** Refuses the recipients it answers for, as a real relay refuses an unknown mailbox (tests see the sender's side). */
+  refuse?: (address: string) => Refusal | null;
+}
+
 function addresses(field: AddressObject | AddressObject[] | undefined): string[] {
   const list = Array.isArray(field) ? field : field ? [field] : [];
   return list.flatMap((group) => group.value.map((entry) => entry.address ?? '')).filter(Boolean);
 }
 
-/** Starts the SMTP server and the HTTP mailbox; port 0 picks a free port. */
-export async function createSmtpStandin({ smtpPort = 0, httpPort = 0 } = {}): Promise<SmtpStandin> {
+/** Starts the SMTP server and the HTTP mailbox. */
+export async function createSmtpStandin({ smtpPort = 0, httpPort = 0, refuse }: SmtpStandinOptions = {}): Promise<SmtpStandin> {
   const stored: StoredMessage[] = [];
   let nextId = 1;
 
@@ -45,6 +59,11 @@ export async function createSmtpStandin({ smtpPort = 0, httpPort = 0 } = {}): Pr
     disabledCommands: ['AUTH', 'STARTTLS'],
     banner: 'Rolloff local mail stand-in',
     size: 5 * 1024 * 1024,
+    onRcptTo(address, _session, callback) {
+      const refusal = refuse?.(address.address);
+      if (!refusal) return callback();
+      callback(Object.assign(new Error(refusal.message), { responseCode: refusal.code }));
+    },
     onData(stream, session, callback) {
       simpleParser(stream)
         .then((mail) => {

@@ -1,5 +1,6 @@
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { data, useLoaderData } from 'react-router-dom';
+import { MailStatusPanel } from '../../features/admin/components/mail-status';
 import { UsersTable } from '../../features/admin/components/users-table';
 import { requireMe } from '../loaders';
 import { useDocumentTitle } from '../../hooks/use-document-title';
@@ -12,7 +13,7 @@ export async function loader({ request }: LoaderFunctionArgs) {
   return { meId: me.id };
 }
 
-/** Site users for admins. */
+/** Site users for admins, and how outgoing mail goes. */
 export function Component() {
   useDocumentTitle('People');
   const { meId } = useLoaderData<typeof loader>();
@@ -23,6 +24,11 @@ export function Component() {
         <p className="text-ink-soft">Who may sign in, and who is an admin.</p>
       </div>
       <UsersTable meId={meId} />
+      <div>
+        <h2 className="text-lg font-semibold tracking-tight">Outgoing mail</h2>
+        <p className="text-ink-soft">Mail is kept until the relay takes it; a permanent refusal is not retried.</p>
+      </div>
+      <MailStatusPanel />
     </section>
   );
 }
