@@ -35,6 +35,7 @@ describe('the migrations', () => {
         'pin_comments',
         'user_mail_settings',
         'mail_log',
+        'idempotency_keys',
         'mail_outbox',
       ]),
     );
@@ -54,6 +55,7 @@ describe('the migrations', () => {
       [
         'cell_revisions.authorId -> users.id SET NULL',
         'cell_revisions.cellId -> cells.id CASCADE',
+        'idempotency_keys.userId -> users.id CASCADE',
         'cells.notebookId -> notebooks.id CASCADE',
         'notebook_members.notebookId -> notebooks.id CASCADE',
         'notebook_members.userId -> users.id CASCADE',
@@ -115,6 +117,9 @@ describe('the migrations', () => {
     expect(Number(index('users', 'login')?.nonUnique)).toBe(0);
     expect(index('sessions', 'userId')).toBeDefined();
     expect(index('sessions', 'expiresAt')).toBeDefined();
+    // a user's Idempotency-Key; keys past their day
+    expect(index('idempotency_keys', 'userId,idempotencyKey')).toMatchObject({ indexName: 'PRIMARY' });
+    expect(index('idempotency_keys', 'createdAt')).toBeDefined();
     // a notebook's review rounds by number (unique), newest first in the timeline; a round's people and history
     expect(Number(index('reviews', 'notebookId,round')?.nonUnique)).toBe(0);
     expect(index('reviews', 'notebookId,createdAt')).toBeDefined();

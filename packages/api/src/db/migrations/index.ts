@@ -14,6 +14,7 @@ import { AddRevisionMessage1764633600012 } from './1764633600012-add-revision-me
 import { LanguageUpdate1764633600013 } from './1764633600013-language-update.js';
 import { AddCellTitle1764633600014 } from './1764633600014-add-cell-title.js';
 import { CreateMailOutbox1764633600030 } from './1764633600030-create-mail-outbox.js';
+import { CreateIdempotencyKeys1764633600040 } from './1764633600040-create-idempotency-keys.js';
 
 /**
  * Every migration, oldest first. Listed by class rather than found by a file glob, so the
@@ -36,4 +37,5 @@ export const migrations = [
   LanguageUpdate1764633600013,
   AddCellTitle1764633600014,
   CreateMailOutbox1764633600030,
+  CreateIdempotencyKeys1764633600040,
 ];
