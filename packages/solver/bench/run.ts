@@ -3,7 +3,7 @@
  *
  * (a) a 12-part active filter cell, compile + analyze at 1 001 points (target < 5 ms);
  * (b) RC ladders of 100 … 100 000 sections at 200 points (target: near-linear growth,
- *     10 000 sections under 2 s);
+ *     10 000 sections under 0.5 s);
  * (c) the same systems, assembled by the same MNA code, solved by building a mathjs complex
  *     matrix and calling mathjs `lusolve` at every point (target: (a) at least 50× faster).
  *     The baseline runs only on the small systems, and on fewer points where it is slow
@@ -125,9 +125,10 @@ row('(b) RC ladder, 200 points', 'analyze', 'per section', 'mathjs');
 let previous = 0;
 for (const n of [100, 1000, 10000, 100000]) {
   const c = ladder(n);
-  const repeats = n <= 1000 ? 5 : 1;
-  const t = median(() => analyzeCircuit(c), repeats, n <= 1000 ? 2 : 0);
-  let base = '—';
+  // 10 000 sections carries issue 13's budget, so it gets a warm-up and a median too.
+  const repeats = n <= 1000 ? 5 : n === 10000 ? 3 : 1;
+  const t = median(() => analyzeCircuit(c), repeats, n <= 1000 ? 2 : n === 10000 ? 1 : 0);
+  let base = n === 10000 ? 'target < 0.5 s' : '—';
   if (n <= 100) {
     const sample = (c.sweep as { frequencies: number[] }).frequencies.filter((_, i) => i % 10 === 0);
     const baseline = mathjsPerPoint(c, sample) * 200;
