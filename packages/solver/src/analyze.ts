@@ -12,6 +12,8 @@ import { computeReadouts } from './readouts.js';
 import { checkRequirements } from './requirements.js';
 import { traceDiagnostics } from './trace-checks.js';
 import { internalError } from './diagnostic.js';
+import { combineVariants, pointShare } from './variants.js';
+import type { CompiledVariant } from './variants.js';
 
 export interface AnalyzeOptions {
   /** The most sweep points a cell may ask for (and the default sweep may use). */
@@ -26,7 +28,7 @@ export function analyze(text: string, options: AnalyzeOptions = {}): Result {
     const compiled = compile(text, { maxPoints: options.maxPoints, maxParts: options.maxParts });
     const diagnostics = [...compiled.diagnostics];
     if (!compiled.circuit || diagnostics.some((d) => d.severity === 'error')) return emptyResult(diagnostics);
-    const solved = analyzeCircuit(compiled.circuit, options);
+    const solved = compiled.variants ? analyzeVariants(compiled.variants, options) : analyzeCircuit(compiled.circuit, options);
     solved.diagnostics = [...diagnostics, ...solved.diagnostics].sort((a, b) => a.line - b.line || a.column - b.column);
     return solved;
   } catch (error) {
@@ -58,6 +60,17 @@ export function analyzeCircuit(circuit: Circuit, options: AnalyzeOptions & Solve
   } catch (error) {
     return emptyResult([internalError(error)]);
   }
+}
+
+/**
+ * Every variant solved on its own, each within an equal share of the point limit (the
+ * `vary` line has checked that a written sweep fits; a default sweep is thinned to fit).
+ */
+function analyzeVariants(variants: CompiledVariant[], options: AnalyzeOptions): Result {
+  const maxPoints = pointShare(options.maxPoints, variants.length);
+  const results = variants.map((v) => analyzeCircuit(v.circuit, { ...options, maxPoints }));
+  const unsolved = results.find((r) => r.frequencies.length === 0 && r.diagnostics.length > 0);
+  return unsolved ?? combineVariants(variants, results);
 }
 
 function emptyResult(diagnostics: Diagnostic[]): Result {

@@ -228,6 +228,14 @@ export interface RequireStatement {
   range: SourceRange;
 }
 
+/**
+ * `vary NAME over V1, V2, …` or `vary NAME over V1 .. V2, N values [linear]`: variants of the
+ * cell, each with the parameter NAME set to one value.
+ */
+export type VaryStatement =
+  | { kind: 'vary'; name: Ident; form: 'list'; values: Value[]; range: SourceRange }
+  | { kind: 'vary'; name: Ident; form: 'range'; from: Value; to: Value; count: Value; linear: boolean; range: SourceRange };
+
 export type Statement =
   | LetStatement
   | PassiveStatement
@@ -244,7 +252,8 @@ export type Statement =
   | TimeStatement
   | TemperatureStatement
   | SpreadStatement
-  | RequireStatement;
+  | RequireStatement
+  | VaryStatement;
 
 export interface Program {
   statements: Statement[];

@@ -103,7 +103,7 @@ function main(argv: string[]): number {
       process.stdout.write(JSON.stringify({ diagnostics: result.diagnostics, requirements: result.requirements }) + '\n');
     } else if (!result.diagnostics.some((d) => d.severity === 'error')) {
       if (result.requirements.length === 0) process.stdout.write('no requirements\n');
-      for (const q of result.requirements) process.stdout.write(requirementText(q) + '\n');
+      for (const q of result.requirements) process.stdout.write(requirementText(q, result.variants) + '\n');
     }
   } else if (args.format === 'json') {
     process.stdout.write(toJson(result, { trace: args.trace }) + '\n');

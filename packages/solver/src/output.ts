@@ -3,7 +3,7 @@
  * ids), CSV (one row per frequency) and a short text report in the screens' words. Pure
  * functions, usable by the command line and by the API's exports alike.
  */
-import type { Readout, RequirementResult, Result } from './result.js';
+import type { Readout, RequirementResult, Result, TraceResult, VariantResult } from './result.js';
 import { READOUT_NAMES, STATUS_WORDS } from './result.js';
 import { formatReading, formatSi } from './units.js';
 
@@ -12,14 +12,15 @@ export interface OutputOptions {
   trace?: string;
 }
 
-/** The result with only the chosen trace, or unchanged without a choice. */
+/** The result with only the chosen trace (in every variant too), or unchanged without a choice. */
 export function selectTrace(result: Result, label: string | undefined): Result {
   if (label === undefined) return result;
-  return {
-    ...result,
-    traces: result.traces.filter((t) => t.label === label),
-    readouts: result.readouts.filter((r) => r.trace === label),
-  };
+  const only = <T extends { traces: TraceResult[]; readouts: Readout[] }>(r: T): T => ({
+    ...r,
+    traces: r.traces.filter((t) => t.label === label),
+    readouts: r.readouts.filter((x) => x.trace === label),
+  });
+  return result.variants === undefined ? only(result) : { ...only(result), variants: result.variants.map(only) };
 }
 
 /**
@@ -48,21 +49,40 @@ export function toJson(result: Result, options: OutputOptions = {}): string {
 export function toCsv(result: Result, options: OutputOptions = {}): string {
   const r = selectTrace(result, options.trace);
   const header = ['frequency (Hz)'];
-  const columns: ArrayLike<number>[] = [r.frequencies];
-  for (const t of r.traces) {
-    const impedance = t.kind === 'impedance';
-    header.push(`${t.label} · ${impedance ? 'magnitude (dBΩ)' : 'gain (dB)'}`, `${t.label} · phase (°)`, `${t.label} · group delay (s)`);
-    columns.push(t.magnitudeDb, t.phaseDeg, t.groupDelay);
-    if (impedance) {
-      header.push(`${t.label} · magnitude (${t.unit})`);
-      columns.push(t.magnitude);
+  const columns: ArrayLike<number>[] = [];
+  let frequencies: ArrayLike<number> = r.frequencies;
+  if (r.variants === undefined) {
+    traceColumns(r.traces, '', header, columns);
+  } else {
+    // With variants, `LABEL · VARIANT · …` columns over every variant's frequencies; a variant is empty where it has no point.
+    frequencies = Float64Array.from(new Set(r.variants.flatMap((v) => Array.from(v.frequencies)))).sort();
+    for (const v of r.variants) {
+      const own: ArrayLike<number>[] = [];
+      traceColumns(v.traces, ` · ${v.label}`, header, own);
+      const at = new Map(Array.from(v.frequencies, (f, k) => [f, k]));
+      columns.push(...own.map((c) => Array.from(frequencies, (f) => c[at.get(f) ?? -1] ?? NaN)));
     }
   }
+  columns.unshift(frequencies);
   const lines = [header.map(csvField).join(',')];
-  for (let k = 0; k < r.frequencies.length; k++) {
+  for (let k = 0; k < frequencies.length; k++) {
     lines.push(columns.map((c) => (Number.isFinite(c[k]) ? String(c[k]) : '')).join(','));
   }
   return lines.join('\n') + '\n';
+}
+
+/** The CSV columns of some traces, each header `LABEL` + `suffix` + ` · quantity (unit)`. */
+function traceColumns(traces: readonly TraceResult[], suffix: string, header: string[], columns: ArrayLike<number>[]): void {
+  for (const t of traces) {
+    const name = `${t.label}${suffix}`;
+    const impedance = t.kind === 'impedance';
+    header.push(`${name} · ${impedance ? 'magnitude (dBΩ)' : 'gain (dB)'}`, `${name} · phase (°)`, `${name} · group delay (s)`);
+    columns.push(t.magnitudeDb, t.phaseDeg, t.groupDelay);
+    if (impedance) {
+      header.push(`${name} · magnitude (${t.unit})`);
+      columns.push(t.magnitude);
+    }
+  }
 }
 
 function csvField(s: string): string {
@@ -74,22 +94,31 @@ function readoutText(r: Readout): string {
   return r.at !== null ? `${value} at ${formatSi(r.at, 'Hz')}` : value;
 }
 
-/** "pass  line 17: require … (measured 1.0002 kHz)", or why it was not checked; the status reads as on every screen. */
-export function requirementText(q: RequirementResult): string {
+/**
+ * "pass  line 17: require … (measured 1.0002 kHz)", or why it was not checked; the status
+ * reads as on every screen. With variants, the variant measured and those that fail are named.
+ */
+export function requirementText(q: RequirementResult, variants?: readonly VariantResult[]): string {
   const status = STATUS_WORDS[q.status].padEnd(4);
-  let measured = q.reason !== null ? `  (not checked: ${q.reason})` : '';
+  const shown = q.variants !== undefined && variants !== undefined ? variants[q.variants.worst] : undefined;
+  const within = shown === undefined ? '' : ` with ${shown.label}`;
+  let measured = q.reason !== null ? `  (not checked${within}: ${q.reason})` : '';
   if (q.status !== 'not-applicable') {
     const v = formatReading(q.measured, q.unit);
-    measured = `  (${q.worstAt !== null ? `worst ${v} at ${formatSi(q.worstAt, 'Hz')}` : `measured ${v}`})`;
+    measured = `  (${q.worstAt !== null ? `worst ${v} at ${formatSi(q.worstAt, 'Hz')}` : `measured ${v}`}${within})`;
   }
-  return `${status}  line ${q.line}: ${q.text}${measured}`;
+  const failing = q.variants?.failed.map((i) => variants?.[i]?.label).filter((l): l is string => l !== undefined) ?? [];
+  const fails = failing.length > 0 ? `; ${STATUS_WORDS.fail} with ${failing.join(', ')}` : '';
+  return `${status}  line ${q.line}: ${q.text}${measured}${fails}`;
 }
 
 /** The text report: readouts per trace by their screen names, then requirement results. */
 export function toText(result: Result, options: OutputOptions & { readouts?: boolean } = {}): string {
   const r = selectTrace(result, options.trace);
   const lines: string[] = [];
-  if (options.readouts !== false) {
+  if (options.readouts !== false && r.variants !== undefined) {
+    lines.push(...variantsText(r.variants));
+  } else if (options.readouts !== false) {
     const f = r.frequencies;
     if (f.length > 0) lines.push(`sweep ${formatSi(f[0], 'Hz')} .. ${formatSi(f[f.length - 1], 'Hz')}, ${f.length} points`);
     for (const t of r.traces) {
@@ -102,7 +131,44 @@ export function toText(result: Result, options: OutputOptions & { readouts?: boo
   }
   if (r.requirements.length > 0) {
     lines.push('requirements');
-    for (const q of r.requirements) lines.push(`  ${requirementText(q)}`);
+    for (const q of r.requirements) lines.push(`  ${requirementText(q, r.variants)}`);
   }
   return lines.join('\n') + '\n';
+}
+
+/** Each variant's sweep, then per trace a table of readouts with one column per variant. */
+function variantsText(variants: readonly VariantResult[]): string[] {
+  const lines: string[] = [];
+  for (const v of variants) {
+    const f = v.frequencies;
+    if (f.length > 0) lines.push(`${v.label}: sweep ${formatSi(f[0], 'Hz')} .. ${formatSi(f[f.length - 1], 'Hz')}, ${f.length} points`);
+  }
+  const first = variants[0];
+  for (const t of first?.traces ?? []) {
+    lines.push(`${t.label}  (${t.kind}, ${t.unit})`);
+    const names = [...new Set(variants.flatMap((v) => v.readouts.filter((x) => x.trace === t.label).map((x) => x.name)))];
+    if (names.length === 0) {
+      lines.push('  no readouts');
+      continue;
+    }
+    const rows = [['', ...variants.map((v) => v.label)]];
+    for (const name of names) {
+      rows.push([
+        READOUT_NAMES[name],
+        ...variants.map((v) => {
+          const x = v.readouts.find((y) => y.trace === t.label && y.name === name);
+          return x === undefined ? '–' : readoutText(x);
+        }),
+      ]);
+    }
+    const widths = rows[0].map((_, c) => Math.max(...rows.map((row) => row[c].length)));
+    for (const row of rows)
+      lines.push(
+        `  ${row
+          .map((cell, c) => cell.padEnd(widths[c]))
+          .join('  ')
+          .trimEnd()}`,
+      );
+  }
+  return lines;
 }

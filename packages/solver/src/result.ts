@@ -155,6 +155,12 @@ export interface RequirementResult {
   worstAt: number | null;
   /** Why it could not be checked (status `not-applicable`), in plain words; null otherwise. */
   reason: string | null;
+  /**
+   * Only in a cell with a `vary` line, where a requirement passes only if every variant
+   * passes: `failed` lists the variants that fail it, `worst` is the variant whose values
+   * (status, measured, worstAt, reason) this result carries (indices into `Result.variants`).
+   */
+  variants?: { worst: number; failed: number[] };
 }
 
 export interface StepResult {
@@ -176,6 +182,28 @@ export interface EnvelopeResult {
   maxPhaseDeg: NumberArray;
 }
 
+/** One variant of a cell with a `vary` line: the cell with its parameter set to `value`. */
+export interface VariantResult {
+  /** The `let` parameter the `vary` line steps. */
+  parameter: string;
+  value: number;
+  /** The parameter's unit as its `let` line writes it; '' without one. */
+  unit: string;
+  /** How the variant is named on every screen: "Rload = 10 Ω". */
+  label: string;
+  /** This variant's own sweep (without a sweep line each variant's default sweep covers its own network). */
+  frequencies: NumberArray;
+  traces: TraceResult[];
+  readouts: Readout[];
+  /** This variant's own result of each requirement, in the order of `Result.requirements`. */
+  requirements: RequirementResult[];
+}
+
+/**
+ * A cell without `vary` fills every field but `variants`. With `vary`, `frequencies`,
+ * `traces` and `readouts` are those of the first variant, each requirement is checked over
+ * every variant (see `RequirementResult.variants`), and `variants` holds each variant.
+ */
 export interface Result {
   diagnostics: Diagnostic[];
   frequencies: NumberArray;
@@ -186,4 +214,6 @@ export interface Result {
   poles: Complex[];
   zeros: Complex[];
   envelope: EnvelopeResult[];
+  /** Present only with a `vary` line: every variant, in the order its values are written. */
+  variants?: VariantResult[];
 }

@@ -62,6 +62,7 @@ export const STATEMENTS = {
   temperature: 'for noise: temperature 25°C or 290 K (default 300 K)',
   spread: 'tolerance spread: spread 200 draws, or spread extremes',
   require: 'a requirement: require out gain >= -3 dB over 10 .. 1k',
+  vary: 'variants: vary R over 1k, 10k, or vary R over 1k .. 100k, 5 values',
   couple: 'magnetic coupling: couple L1 L2 0.98',
 } as const;
 
@@ -73,7 +74,7 @@ export const STATEMENT_WORDS = Object.keys(STATEMENTS) as StatementWord[];
 export const LINE_STARTS = `a line starts with a statement word (${STATEMENT_WORDS.filter((w) => w !== 'end').join(', ')}) or a part designator such as R1`;
 
 /** Statements that belong to the whole cell, never inside a block. */
-export const TOP_LEVEL_ONLY: ReadonlySet<string> = new Set<StatementWord>(['drive', 'show', 'sweep', 'time', 'temperature', 'spread', 'require']);
+export const TOP_LEVEL_ONLY: ReadonlySet<string> = new Set<StatementWord>(['drive', 'show', 'sweep', 'time', 'temperature', 'spread', 'require', 'vary']);
 
 export type PassiveKind = 'resistor' | 'capacitor' | 'inductor';
 
@@ -149,6 +150,7 @@ export const CONNECTIVES = {
   time: ['points'],
   spread: ['draws', 'seed', 'extremes'],
   require: ['over', 'at'],
+  vary: ['over', 'values', 'linear'],
   use: ['as'],
   part: ['of'],
 } as const;

@@ -79,6 +79,8 @@ export class Elaboration {
     readonly maxPoints: number,
     /** Most parts a network may have after blocks are flattened. */
     readonly maxParts: number,
+    /** Values that replace those of top-level `let` lines, by name: one variant of a `vary` line. */
+    readonly overrides: ReadonlyMap<string, number> = new Map(),
   ) {
     this.nodes.push({ name: 'gnd', range: { line: 1, column: 1, endColumn: 1 }, local: 'gnd', block: null, touches: new Set() });
     this.nodeIndex.set('gnd', 0);

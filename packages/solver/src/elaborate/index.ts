@@ -19,20 +19,24 @@ import { checkLabels, showStatement } from './show.js';
 import { spreadStatement, sweepStatement, temperatureStatement, timeStatement } from './settings.js';
 import { requireStatement } from './require.js';
 import { wholeCellChecks } from './checks.js';
+import { varyStatements } from './vary.js';
+import type { VarySpec } from './vary.js';
 
 export interface ElaborateOptions {
   /** Most frequency points a sweep may have (default `DEFAULT_MAX_POINTS`). */
   maxPoints?: number;
   /** Most parts a network may have after blocks are flattened (default 500 000). */
   maxParts?: number;
+  /** Values that replace those of top-level `let` lines (one variant of a `vary` line). */
+  overrides?: ReadonlyMap<string, number>;
 }
 
 export const DEFAULT_MAX_PARTS = 500_000;
 
 /** Turns a parsed cell into a circuit. The circuit is null when any error was found. */
-export function elaborate(program: Program, options: ElaborateOptions = {}): { circuit: Circuit | null; diagnostics: Diagnostic[] } {
+export function elaborate(program: Program, options: ElaborateOptions = {}): { circuit: Circuit | null; diagnostics: Diagnostic[]; vary?: VarySpec } {
   try {
-    const cx = new Elaboration(program, options.maxPoints ?? DEFAULT_MAX_POINTS, options.maxParts ?? DEFAULT_MAX_PARTS);
+    const cx = new Elaboration(program, options.maxPoints ?? DEFAULT_MAX_POINTS, options.maxParts ?? DEFAULT_MAX_PARTS, options.overrides);
     const statements = program.statements;
 
     registerBlocks(cx);
@@ -54,6 +58,7 @@ export function elaborate(program: Program, options: ElaborateOptions = {}): { c
     const { sweep, time, temperature, tolerance, requirements } = settingsAndRequirements(cx, shows, traces);
 
     wholeCellChecks(cx, shows, traces, drives);
+    const vary = varyStatements(cx, sweep);
 
     const diagnostics = cx.diagnostics.filter((d) => d.code !== CASCADE);
     if (program.incomplete || diagnostics.some((d) => d.severity === 'error')) return { circuit: null, diagnostics };
@@ -68,7 +73,7 @@ export function elaborate(program: Program, options: ElaborateOptions = {}): { c
       temperature,
       time,
     };
-    return { circuit, diagnostics };
+    return vary === null ? { circuit, diagnostics } : { circuit, diagnostics, vary };
   } catch (err) {
     return { circuit: null, diagnostics: [internalError(err)] };
   }

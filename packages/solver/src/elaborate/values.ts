@@ -135,7 +135,9 @@ export function letStatement(cx: Elaboration, scope: Scope, st: LetStatement): v
   if (st.value === null) return;
   const q = evaluate(cx, scope, st.value, st.range.line, name);
   if (q === null) return;
-  scope.params.set(name, { value: q.value, unit: q.unit, line: st.range.line, range: st.name.range });
+  // A variant keeps the unit the line is written in and takes the value its `vary` line gives.
+  const value = (scope === cx.top ? cx.overrides.get(name) : undefined) ?? q.value;
+  scope.params.set(name, { value, unit: q.unit, line: st.range.line, range: st.name.range });
 }
 
 /** Looks a parameter up as seen from `line`, or says why it cannot be used. */

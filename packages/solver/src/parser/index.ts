@@ -27,6 +27,7 @@ import {
   temperatureStatement,
   timeStatement,
 } from './statements.js';
+import { varyStatement } from './vary.js';
 
 const STATEMENT_LIST = STATEMENT_WORDS.filter((w) => w !== 'end').join(', ');
 const PART_LIST = orList(PART_LETTERS.map((l) => `${l} (${PART_CLASSES[l].kind})`));
@@ -197,6 +198,8 @@ function statementOf(cur: Cursor): Statement | null {
         return retiredToleranceStatement(cur);
       case 'require':
         return requireStatement(cur);
+      case 'vary':
+        return varyStatement(cur);
     }
     const letter = partLetter(first.text);
     if (letter !== null && cur.isPunct('[', 1)) return partStatement(cur, letter);
