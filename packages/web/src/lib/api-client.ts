@@ -29,6 +29,8 @@ export interface RequestOptions {
   signal?: AbortSignal;
   /** A 401 here is an expected answer (the "who am I" check), not a lost session. */
   quietUnauthenticated?: boolean;
+  /** Headers of this call (an Idempotency-Key). */
+  headers?: Record<string, string>;
 }
 
 type Listener = () => void;
@@ -69,7 +71,7 @@ function parseJson(text: string): unknown {
 /** Fetches `path`, parses the JSON answer with `schema`; a non-2xx answer throws ApiError. */
 export async function apiRequest<T>(path: string, schema: z.ZodType<T>, options: RequestOptions = {}): Promise<T> {
   const method = options.method ?? 'GET';
-  const headers: Record<string, string> = { accept: 'application/json' };
+  const headers: Record<string, string> = { accept: 'application/json', ...options.headers };
   if (options.body !== undefined) headers['content-type'] = 'application/json';
   if (method !== 'GET') {
     const token = await ensureCsrfToken();

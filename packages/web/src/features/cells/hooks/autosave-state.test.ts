@@ -8,6 +8,9 @@ const cell = buildCell(3, 'drive in\nshow in');
 const run = (state: AutosaveState, ...events: AutosaveEvent[]) => events.reduce(autosaveReducer, state);
 const typed = (text: string): AutosaveEvent => ({ type: 'edited', text, editable: true });
 const offline = { type: 'failed', failure: { kind: 'retry', message: 'Offline', slow: false }, now: 1_000 } as const;
+let keys = 0;
+/** The timer firing, with the fresh key the hook would make. */
+const send = (): AutosaveEvent => ({ type: 'send', key: `key-${++keys}` });
 
 describe('the autosave machine', () => {
   it('opens saved, or on a draft from this browser: saved at once, or as a conflict when the cell moved on', () => {
@@ -23,20 +26,20 @@ describe('the autosave machine', () => {
   it('waits for typing to stop, then sends the text on the revision it was based on', () => {
     const pending = run(initialAutosave(cell, null), typed('drive a'));
     expect(nextSaveIn(pending, 800, 0)).toBe(800);
-    const saving = run(pending, { type: 'send' });
-    expect(saving.sending).toEqual({ text: 'drive a', baseRevision: 3 });
+    const saving = run(pending, { type: 'send', key: 'k1' });
+    expect(saving.sending).toEqual({ text: 'drive a', baseRevision: 3, key: 'k1' });
     expect(nextSaveIn(saving, 800, 0)).toBeNull();
     expect(run(saving, { type: 'stored', revision: 4, text: 'drive a' })).toMatchObject({ base: 4, sending: null, status: { kind: 'saved' } });
   });
 
   it('saves again when typing went on during a save', () => {
-    const state = run(initialAutosave(cell, null), typed('drive a'), { type: 'send' }, typed('drive ab'), { type: 'stored', revision: 4, text: 'drive a' });
+    const state = run(initialAutosave(cell, null), typed('drive a'), send(), typed('drive ab'), { type: 'stored', revision: 4, text: 'drive a' });
     expect(state.status.kind).toBe('pending');
-    expect(run(state, { type: 'send' }).sending).toEqual({ text: 'drive ab', baseRevision: 4 });
+    expect(run(state, { type: 'send', key: 'k2' }).sending).toEqual({ text: 'drive ab', baseRevision: 4, key: 'k2' });
   });
 
   it('sends nothing when the text is back to what the server has', () => {
-    const state = run(initialAutosave(cell, null), typed('x'), typed(cell.text), { type: 'send' });
+    const state = run(initialAutosave(cell, null), typed('x'), typed(cell.text), send());
     expect([state.sending, state.status.kind]).toEqual([null, 'saved']);
   });
 
@@ -44,29 +47,38 @@ describe('the autosave machine', () => {
     let state = run(initialAutosave(cell, null), typed('drive a'));
     const pauses: number[] = [];
     for (let i = 0; i < RETRY_STEPS_MS.length + 1; i += 1) {
-      state = run(state, { type: 'send' }, offline);
+      state = run(state, send(), offline);
       pauses.push(nextSaveIn(state, 800, 1_000) ?? -1);
     }
     expect(pauses).toEqual([...RETRY_STEPS_MS, RETRY_STEPS_MS.at(-1)]);
-    const signedOut = run(
-      initialAutosave(cell, null),
-      typed('drive a'),
-      { type: 'send' },
-      { ...offline, failure: { kind: 'retry', message: 'signed out', slow: true } },
-    );
+    const signedOut = run(initialAutosave(cell, null), typed('drive a'), send(), { ...offline, failure: { kind: 'retry', message: 'signed out', slow: true } });
     expect(nextSaveIn(signedOut, 800, 1_000)).toBe(10_000);
   });
 
   it('saves typing during a retry a moment after it stops, and "retry now" at once', () => {
-    const retrying = run(initialAutosave(cell, null), typed('drive a'), { type: 'send' }, offline);
+    const retrying = run(initialAutosave(cell, null), typed('drive a'), send(), offline);
     const typing = run(retrying, typed('drive ab'));
     expect([typing.status.kind, nextSaveIn(typing, 800, 1_000)]).toEqual(['retrying', 800]);
     expect(nextSaveIn(run(retrying, { type: 'retry-now' }), 800, 1_000)).toBe(0);
   });
 
+  it('retries an unanswered save with its own key, and gives changed text a new one', () => {
+    const unanswered = run(initialAutosave(cell, null), typed('drive a'), { type: 'send', key: 'first' }, offline);
+    expect(unanswered.unanswered).toEqual({ text: 'drive a', baseRevision: 3, key: 'first' });
+    expect(run(unanswered, { type: 'retry-now' }, { type: 'send', key: 'second' }).sending?.key).toBe('first');
+    expect(run(unanswered, typed('drive ab'), { type: 'send', key: 'second' }).sending).toEqual({ text: 'drive ab', baseRevision: 3, key: 'second' });
+    // Typing back to the unanswered text is that same save again.
+    expect(run(unanswered, typed('drive ab'), typed('drive a'), { type: 'send', key: 'third' }).sending?.key).toBe('first');
+    // An answer (stored, a conflict, a refusal) ends the attempt: the next save is a new one.
+    const stored = run(unanswered, { type: 'retry-now' }, send(), { type: 'stored', revision: 4, text: 'drive a' });
+    expect(stored.unanswered).toBeNull();
+    const refused = run(unanswered, { type: 'retry-now' }, send(), { type: 'failed', failure: { kind: 'refused', message: 'too large' }, now: 0 });
+    expect(refused.unanswered).toBeNull();
+  });
+
   it('holds a conflict until the person chooses, and saves "mine" on top of theirs', () => {
     const theirs = buildRevision(4, 'drive b');
-    const conflict = run(initialAutosave(cell, null), typed('drive a'), { type: 'send' }, { type: 'failed', failure: { kind: 'conflict', theirs }, now: 0 });
+    const conflict = run(initialAutosave(cell, null), typed('drive a'), send(), { type: 'failed', failure: { kind: 'conflict', theirs }, now: 0 });
     expect(conflict.status).toEqual({ kind: 'conflict', theirs });
     expect(nextSaveIn(run(conflict, typed('drive ab')), 800, 0)).toBeNull();
     const mine = run(conflict, { type: 'resolved', choice: 'mine' });
@@ -76,7 +88,7 @@ describe('the autosave machine', () => {
 
   it('treats a conflict with the very same text as saved', () => {
     const theirs = buildRevision(4, 'drive a');
-    const state = run(initialAutosave(cell, null), typed('drive a'), { type: 'send' }, { type: 'failed', failure: { kind: 'conflict', theirs }, now: 0 });
+    const state = run(initialAutosave(cell, null), typed('drive a'), send(), { type: 'failed', failure: { kind: 'conflict', theirs }, now: 0 });
     expect(state).toMatchObject({ base: 4, status: { kind: 'saved' } });
   });
 

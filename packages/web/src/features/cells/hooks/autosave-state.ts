@@ -17,10 +17,14 @@ export type SaveState =
   | { kind: 'conflict'; theirs: CellRevision }
   | { kind: 'refused'; message: string };
 
-/** A save on its way to the server: the text and the revision it was based on. */
+/**
+ * A save on its way to the server: the text, the revision it was based on, and the attempt's
+ * Idempotency-Key, which its retries reuse.
+ */
 export interface SaveRequest {
   text: string;
   baseRevision: number;
+  key: string;
 }
 
 export interface AutosaveState {
@@ -31,6 +35,8 @@ export interface AutosaveState {
   /** The revision the text on screen is based on. */
   base: number;
   sending: SaveRequest | null;
+  /** The save whose answer never came (offline, 5xx): it may have gone through, so its retry keeps its key. */
+  unanswered: SaveRequest | null;
   /** Failed tries in a row, for the pause before the next. */
   attempts: number;
   /**
@@ -46,7 +52,7 @@ export type SaveFailure = { kind: 'conflict'; theirs: CellRevision } | { kind: '
 
 export type AutosaveEvent =
   | { type: 'edited'; text: string; editable: boolean }
-  | { type: 'send' }
+  | { type: 'send'; key: string }
   | { type: 'stored'; revision: number; text: string }
   | { type: 'failed'; failure: SaveFailure; now: number }
   | { type: 'resolved'; choice: 'mine' | 'theirs' }
@@ -82,7 +88,7 @@ function revisionOf(cell: Cell): CellRevision {
  * older revision meets the newer text as a conflict; a draft that says nothing new is dropped.
  */
 export function initialAutosave(cell: Cell, draft: Draft | null): AutosaveState {
-  const base = { savedText: cell.text, base: cell.revision, sending: null, attempts: 0 };
+  const base = { savedText: cell.text, base: cell.revision, sending: null, unanswered: null, attempts: 0 };
   if (!draft || draft.text === cell.text || draft.baseRevision > cell.revision) {
     return { ...base, text: cell.text, due: 'after-typing', status: { kind: 'saved' } };
   }
@@ -92,6 +98,14 @@ export function initialAutosave(cell: Cell, draft: Draft | null): AutosaveState 
 
 /** Whether `state` holds text the server does not have yet. */
 export const isUnsaved = (state: AutosaveState) => state.text !== state.savedText;
+
+/** The save of the text on screen: a retry of the unanswered one (same key) if it is the same save, else a new attempt with `freshKey`. */
+export function saveRequestOf(state: AutosaveState, freshKey: string): SaveRequest {
+  const again = state.unanswered;
+  // A new object even for a retry: the hook sends each request it is handed once.
+  if (again && again.text === state.text && again.baseRevision === state.base) return { ...again };
+  return { text: state.text, baseRevision: state.base, key: freshKey };
+}
 
 /** The next state after `event`. */
 export function autosaveReducer(state: AutosaveState, event: AutosaveEvent): AutosaveState {
@@ -105,13 +119,13 @@ export function autosaveReducer(state: AutosaveState, event: AutosaveEvent): Aut
     case 'send':
       if (state.status.kind === 'conflict' || state.sending) return state;
       if (!isUnsaved(state)) return { ...state, status: { kind: 'saved' } };
-      return { ...state, sending: { text: state.text, baseRevision: state.base }, status: { kind: 'saving' } };
+      return { ...state, sending: saveRequestOf(state, event.key), status: { kind: 'saving' } };
     case 'stored': {
-      const next = { ...state, sending: null, attempts: 0, base: event.revision, savedText: event.text, due: 'after-typing' as const };
+      const next = { ...state, sending: null, unanswered: null, attempts: 0, base: event.revision, savedText: event.text, due: 'after-typing' as const };
       return { ...next, status: isUnsaved(next) ? { kind: 'pending' } : { kind: 'saved' } };
     }
     case 'failed':
-      return failed({ ...state, sending: null }, event.failure, event.now);
+      return failed({ ...state, sending: null, unanswered: event.failure.kind === 'retry' ? state.sending : null }, event.failure, event.now);
     case 'resolved': {
       if (state.status.kind !== 'conflict') return state;
       const { theirs } = state.status;

@@ -29,7 +29,7 @@ describe('autosave with conflicts and failures', () => {
     await act(() => vi.advanceTimersByTimeAsync(499));
     expect(save).not.toHaveBeenCalled();
     await act(() => vi.advanceTimersByTimeAsync(1));
-    expect(save).toHaveBeenCalledWith('abcdefghijkl', 7, { text: mineText, baseRevision: 3 });
+    expect(save).toHaveBeenCalledWith('abcdefghijkl', 7, { text: mineText, baseRevision: 3 }, expect.stringMatching(/^[0-9a-f]{32}$/));
     expect(result.current.state.kind).toBe('saved');
     expect(result.current.revision).toBe(4);
   });
@@ -49,7 +49,7 @@ describe('autosave with conflicts and failures', () => {
     expect(result.current.text).toBe(mineText);
     act(() => result.current.resolveConflict('mine'));
     await act(() => vi.advanceTimersByTimeAsync(0));
-    expect(save).toHaveBeenLastCalledWith('abcdefghijkl', 7, { text: mineText, baseRevision: 4 });
+    expect(save).toHaveBeenLastCalledWith('abcdefghijkl', 7, { text: mineText, baseRevision: 4 }, expect.any(String));
     expect(result.current.state.kind).toBe('saved');
     expect(result.current.revision).toBe(5);
   });
@@ -83,6 +83,8 @@ describe('autosave with conflicts and failures', () => {
     expect(JSON.parse(localStorage.getItem('rolloff.draft.abcdefghijkl.7') ?? 'null')).toEqual({ text: mineText, baseRevision: 3 });
     await act(() => vi.advanceTimersByTimeAsync(2000));
     expect(save).toHaveBeenCalledTimes(2);
+    // The retry is the same attempt, so it carries the same Idempotency-Key.
+    expect(save.mock.calls[1]![3]).toBe(save.mock.calls[0]![3]);
     expect(result.current.state.kind).toBe('saved');
     expect(localStorage.getItem('rolloff.draft.abcdefghijkl.7')).toBeNull();
   });
@@ -94,7 +96,7 @@ describe('autosave with conflicts and failures', () => {
     expect(result.current.text).toBe(mineText);
     expect(result.current.restoredDraft).toBe(true);
     await act(() => vi.advanceTimersByTimeAsync(0));
-    expect(save).toHaveBeenCalledWith('abcdefghijkl', 7, { text: mineText, baseRevision: 3 });
+    expect(save).toHaveBeenCalledWith('abcdefghijkl', 7, { text: mineText, baseRevision: 3 }, expect.stringMatching(/^[0-9a-f]{32}$/));
   });
 
   it('never saves for a reader', async () => {

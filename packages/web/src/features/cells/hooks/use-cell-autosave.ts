@@ -9,7 +9,7 @@
 import type { Cell, CellSaved } from '@rolloff/api/contract';
 import { useCallback, useEffect, useReducer, useRef } from 'react';
 import { saveCell } from '../api/save-cell';
-import { autosaveReducer, classifyFailure, initialAutosave, isUnsaved, nextSaveIn } from './autosave-state';
+import { autosaveReducer, classifyFailure, initialAutosave, isUnsaved, nextSaveIn, saveRequestOf } from './autosave-state';
 import type { Draft, SaveRequest, SaveState } from './autosave-state';
 
 export interface AutosaveOptions {
@@ -37,6 +37,9 @@ export interface Autosave {
 }
 
 const draftKey = (notebookId: string, cellId: number) => `rolloff.draft.${notebookId}.${cellId}`;
+
+/** A new save attempt's Idempotency-Key (getRandomValues works outside https too, unlike randomUUID). */
+const newSaveKey = () => Array.from(crypto.getRandomValues(new Uint8Array(16)), (byte) => byte.toString(16).padStart(2, '0')).join('');
 
 function readDraft(key: string): Draft | null {
   try {
@@ -72,7 +75,7 @@ export function useCellAutosave({ notebookId, cell, editable, onSaved, delayMs =
 
   const send = useCallback(
     (request: SaveRequest) =>
-      save(notebookId, cell.id, request).then((saved) => {
+      save(notebookId, cell.id, { text: request.text, baseRevision: request.baseRevision }, request.key).then((saved) => {
         onSavedRef.current?.(saved);
         return saved;
       }),
@@ -95,7 +98,7 @@ export function useCellAutosave({ notebookId, cell, editable, onSaved, delayMs =
   const waitMs = editable ? nextSaveIn(state, delayMs, Date.now()) : null;
   useEffect(() => {
     if (waitMs === null) return;
-    const timer = setTimeout(() => dispatch({ type: 'send' }), waitMs);
+    const timer = setTimeout(() => dispatch({ type: 'send', key: newSaveKey() }), waitMs);
     return () => clearTimeout(timer);
   }, [waitMs, state.text, state.status]);
 
@@ -125,7 +128,7 @@ export function useCellAutosave({ notebookId, cell, editable, onSaved, delayMs =
     () => () => {
       const last = latest.current;
       if (editableRef.current && nextSaveIn(last, 0, 0) !== null && isUnsaved(last)) {
-        send({ text: last.text, baseRevision: last.base }).catch(() => undefined);
+        send(saveRequestOf(last, newSaveKey())).catch(() => undefined);
       }
     },
     [],
