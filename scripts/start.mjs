@@ -67,7 +67,7 @@ await runMain(async () => {
     });
 
     step('Starting the server');
-    const api = startService('api', process.execPath, [path.join(apiDist, 'server.js')], { cwd: root, env });
+    const api = startService('api', process.execPath, [path.join(apiDist, 'cluster.js')], { cwd: root, env });
     services.push(api);
     api.exited.then(({ code }) => {
       if (!stopping) {

@@ -10,6 +10,7 @@ import { connect, disconnect } from './db/connection.js';
 import { createHttpServer } from './http-server.js';
 import { createRelay } from './mail/mailer.js';
 import { createOutbox } from './mail/outbox.js';
+import { nameWorkerInResponses } from './worker-header.js';
 
 const mail = mailConfig();
 const relay = createRelay(mail);
@@ -19,6 +20,7 @@ const app = createApp({ webDist: config.production ? config.webDist : null, outb
 const server = createHttpServer(app).listen(config.port, config.host, () => {
   console.log(`api listening on http://${config.host}:${config.port}`);
 });
+nameWorkerInResponses(server);
 server.on('error', (error: NodeJS.ErrnoException) => {
   console.error(error.code === 'EADDRINUSE' ? `Port ${config.port} is already in use (set API_PORT).` : error);
   process.exit(1);
