@@ -78,7 +78,18 @@ export interface ControlledStatement {
   value: Value | null;
   /** The part whose current controls (`igain`, `rm`). */
   control: Ident | null;
+  /** `transfer` and `poles`: the transfer function as written. */
+  response?: ResponseSpec;
   range: SourceRange;
+}
+
+/** A transfer function: an expression in s, or poles and zeros (Hz, with an optional Q) and the gain at 0 Hz. */
+export type ResponseSpec = { form: 'transfer'; expr: Value | null } | { form: 'poles'; poles: ResponseRoot[]; zeros: ResponseRoot[]; gain: Value | null };
+
+/** `1k`, or `1k q 0.7` for a pair with natural frequency 1 kHz and that Q. */
+export interface ResponseRoot {
+  f: Value;
+  q: Value | null;
 }
 
 /** `T1 [p+ p- s+ s-] turns N`: an ideal transformer. */

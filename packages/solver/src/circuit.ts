@@ -150,7 +150,21 @@ export interface LoopBreak extends ElementBase {
   to: NodeIndex;
 }
 
-export type Element = Resistor | Capacitor | Inductor | Coupling | OpAmp | Vcvs | Vccs | Cccs | Ccvs | Transformer | LoopBreak;
+/**
+ * V(op, on) = H(s)·V(cp, cn) with H(s) = num(s)/den(s), coefficients in ascending powers
+ * of s (rad/s). den is not all zeros.
+ */
+export interface TransferSource extends ElementBase {
+  kind: 'transfer';
+  op: NodeIndex;
+  on: NodeIndex;
+  cp: NodeIndex;
+  cn: NodeIndex;
+  num: number[];
+  den: number[];
+}
+
+export type Element = Resistor | Capacitor | Inductor | Coupling | OpAmp | Vcvs | Vccs | Cccs | Ccvs | Transformer | LoopBreak | TransferSource;
 
 /**
  * The stimulus. A voltage drive is an AC source V(p) − V(n) = amplitude∠phase; a current

@@ -9,6 +9,7 @@
 import type { Circuit, Element, NodeIndex, SourceRange } from './circuit.js';
 import type { Diagnostic } from './result.js';
 import { internalError } from './diagnostic.js';
+import { stampTransfer, transferUnknowns } from './mna-transfer.js';
 
 /** A current as a linear form over the unknowns: I = Σ (c0[k] + s·c1[k])·x[index[k]]. */
 export interface LinearForm {
@@ -166,6 +167,19 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
           fail(el.range, `${el.name}: the gain must be a finite number`);
           break;
         }
+        break;
+      }
+      case 'transfer': {
+        if (![el.op, el.on, el.cp, el.cn].every(nodeOk)) {
+          fail(el.range, `${el.name} names a node that does not exist`);
+          break;
+        }
+        if (el.den.length === 0 || el.den[el.den.length - 1] === 0 || !el.num.concat(el.den).every(finite)) {
+          fail(el.range, `${el.name}: a transfer function needs finite coefficients and a denominator that is not 0`);
+          break;
+        }
+        branch[index] = unknowns;
+        unknowns += transferUnknowns(el);
         break;
       }
       case 'loop-break': {
@@ -330,6 +344,9 @@ export function buildMna(circuit: Circuit): { system: MnaSystem | null; diagnost
         add(br, u(el.cn), el.gain);
         break;
       }
+      case 'transfer':
+        stampTransfer(el, branch[index], add, u);
+        break;
       case 'loop-break': {
         // A link carrying current from → to; its row V(to) − V(from) = 0 takes the test voltage.
         const br = branch[index];

@@ -135,9 +135,17 @@ export const CONTROLLED_MODES = {
   gm: 'transconductance, current gm·V(c+,c-)',
   igain: 'current gain, K times the current of a part',
   rm: 'transresistance, rm times the current of a part',
+  transfer: 'a transfer function, V(o+,o-) = H(s)·V(c+,c-) with H a ratio of polynomials in s',
+  poles: 'a transfer function by its poles, zeros and gain at 0 Hz',
 } as const;
 export type ControlledMode = keyof typeof CONTROLLED_MODES;
 export const CONTROLLED_MODE_WORDS = Object.keys(CONTROLLED_MODES) as ControlledMode[];
+
+/** The words after `poles`: `poles 1k q 0.7, 20k zeros 5k gain 20dB`. */
+export const RESPONSE_WORDS = ['zeros', 'q', 'gain'] as const;
+
+/** The complex frequency in a `transfer` expression, in rad/s. */
+export const LAPLACE_VARIABLE = 's';
 
 /** Words of `show`: what a trace is of and how it is read. */
 export const SHOW_MODES = ['loop', 'step', 'noise'] as const;

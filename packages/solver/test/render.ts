@@ -71,6 +71,8 @@ function renderProbe(p: Probe, node: (i: number) => string): string {
 function renderElement(e: Element, nodes: (...xs: number[]) => string): string {
   const tol = 'tolerance' in e && e.tolerance !== undefined ? ` tol ${num(e.tolerance * 100)}%` : '';
   switch (e.kind) {
+    case 'transfer':
+      return `${e.name} transfer ${nodes(e.op, e.on, e.cp, e.cn)} num ${e.num.map(num).join(' ')} den ${e.den.map(num).join(' ')}`;
     case 'loop-break':
       return `${e.name} loop-break ${nodes(e.from, e.to)}`;
     case 'transformer':

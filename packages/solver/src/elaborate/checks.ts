@@ -65,6 +65,9 @@ function connectivity(cx: Elaboration, shows: ShowStatement[]): void {
       case 'loop-break':
         join(e.from, e.to);
         break;
+      case 'transfer':
+        join(e.op, e.on);
+        break;
       case 'transformer':
         // Each winding's voltage is set through the other, as a source's is; its common mode is not.
         join(e.p1, e.p2);

@@ -20,6 +20,7 @@ import { formatSi } from '../units.js';
 import { GROUND, PART_CLASSES, PASSIVES } from '../vocabulary.js';
 import type { Unit } from '../vocabulary.js';
 import type { Elaboration, Scope } from './context.js';
+import { transferSource } from './transfer.js';
 import { bound, checkNamespace, evaluate, letStatement, read } from './values.js';
 import type { Slot } from './values.js';
 
@@ -307,11 +308,16 @@ function opamp(cx: Elaboration, scope: Scope, st: OpAmpStatement): void {
 function controlled(cx: Elaboration, scope: Scope, st: ControlledStatement): void {
   const name = scope.prefix + st.designator.name;
   const line = st.range.line;
-  const four = st.mode === 'vgain' || st.mode === 'gm';
+  const four = st.mode === 'vgain' || st.mode === 'gm' || st.response !== undefined;
   if (st.nodes.nodes.length !== (four ? 4 : 2)) return;
   const nodes = st.nodes.nodes.map((id) => cx.node(scope, id, name, scope.prefix === ''));
-  if (st.value === null) return;
   const where = whereIn(cx, scope);
+  if (st.response !== undefined) {
+    const element = transferSource(cx, scope, { ...st, response: st.response }, name, nodes, where);
+    if (element !== null) add(cx, element, st.designator);
+    return;
+  }
+  if (st.value === null) return;
   const slots: Record<string, Slot> = {
     vgain: { says: 'vgain is a voltage gain, in V/V or dB', units: ['dB'], convert: fromDb, example: '10' },
     gm: { says: 'gm is a transconductance, in S', units: ['S'], example: '1m' },
@@ -572,6 +578,7 @@ function articleOf(kind: Element['kind'] | 'instance'): string {
     ccvs: 'a controlled source',
     transformer: 'a transformer',
     'loop-break': 'a loop break',
+    transfer: 'a controlled source',
   };
   return names[kind];
 }

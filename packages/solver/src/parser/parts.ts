@@ -36,6 +36,7 @@ import {
 } from '../vocabulary.js';
 import type { ControlledMode, OpAmpOptionName, PartClassLetter } from '../vocabulary.js';
 import { merge, orList, show } from './cursor.js';
+import { polesAndZeros, transferExpr } from './transfer.js';
 import { replaceWith } from '../diagnostic.js';
 import type { Cursor } from './cursor.js';
 import { ident, nodeList, value } from './values.js';
@@ -253,16 +254,22 @@ function opamp(cur: Cursor, designator: Ident, nodes: NodeList): OpAmpStatement 
 
 function controlled(cur: Cursor, designator: Ident, nodes: NodeList): ControlledStatement | null {
   const word = cur.peek();
-  const hint = 'an A part is one of: A1 [o+ o- c+ c-] vgain K, A1 [o+ o- c+ c-] gm S, A1 [o+ o-] igain K of R1, A1 [o+ o-] rm Ω of R1';
+  const hint =
+    'an A part is one of: A1 [o+ o- c+ c-] vgain K, A1 [o+ o- c+ c-] gm S, A1 [o+ o-] igain K of R1, A1 [o+ o-] rm Ω of R1, A1 [o+ o- c+ c-] transfer H(s), A1 [o+ o- c+ c-] poles F, …';
   if (word === undefined || word.kind !== 'name' || !(CONTROLLED_MODE_WORDS as string[]).includes(word.text)) {
     if (word !== undefined && word.kind === 'name') {
       const near = didYouMean(word.text, CONTROLLED_MODE_WORDS);
       cur.error(word.range, 'missing-mode', `\`${word.text}\` is not a kind of controlled source`, suggestionHint(near, hint), near.fix);
     }
-    cur.error(word?.range ?? nodes.range, 'missing-mode', `${designator.name} needs vgain, gm, igain or rm after its nodes`, hint);
+    cur.error(word?.range ?? nodes.range, 'missing-mode', `${designator.name} needs ${orList(CONTROLLED_MODE_WORDS)} after its nodes`, hint);
   }
   cur.next();
   const mode = word.text as ControlledMode;
+  if (mode === 'transfer' || mode === 'poles') {
+    checkCount(cur, nodes, 4, `a transfer-function source (${mode})`, `${designator.name} [o+ o- c+ c-] ${mode} …`);
+    const response = mode === 'transfer' ? transferExpr(cur, designator.name) : polesAndZeros(cur, designator.name);
+    return { kind: 'controlled', designator, nodes, mode, value: null, control: null, response, range: cur.whole() };
+  }
   const fourNode = mode === 'vgain' || mode === 'gm';
   checkCount(
     cur,
