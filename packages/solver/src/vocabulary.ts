@@ -325,3 +325,14 @@ export function isDigitsOnly(name: string): boolean {
 export function nodeNameFor(digits: string): string {
   return digits === '0' ? GROUND : `n${digits}`;
 }
+
+/** The words after a part's nodes, by its class: the word that says what it is, and its options. */
+export const PART_WORDS: Readonly<Record<PartClassLetter, { kinds: readonly string[]; options: readonly string[] }>> = {
+  R: { kinds: [], options: PASSIVES.resistor.options },
+  C: { kinds: [], options: PASSIVES.capacitor.options },
+  L: { kinds: [], options: PASSIVES.inductor.options },
+  U: { kinds: [OPAMP_WORD], options: OPAMP_OPTION_WORDS },
+  A: { kinds: CONTROLLED_MODE_WORDS, options: [...CONNECTIVES.part, ...RESPONSE_WORDS] },
+  T: { kinds: [TURNS_WORD], options: [] },
+  J: { kinds: [BREAK_WORD], options: [] },
+};

@@ -31,6 +31,14 @@ describe('completion in circuit cells', () => {
     expect(labels('R3 [a b] ')).toEqual(expect.arrayContaining(['R', 'Ca', 'Cb', 'sqrt']));
   });
 
+  it('offers the words of transformers, loop breaks, transfer functions and the op-amp’s second pole, from the vocabulary', () => {
+    expect(labels('T1 [p gnd s gnd] ')).toContain('turns');
+    expect(labels('J1 [out n] ')).toContain('break');
+    expect(labels('A1 [o gnd c gnd] ')).toEqual(expect.arrayContaining(['transfer', 'poles']));
+    expect(labels('A1 [o gnd c gnd] poles 1k ')).toEqual(expect.arrayContaining(['zeros', 'q', 'gain']));
+    expect(labels('U2 [a b c] opamp gbw 1M ')).toContain('pole2');
+  });
+
   it('offers designators where a part is named', () => {
     expect(labels('A1 [o gnd] igain 2 of ')).toEqual(names.designators);
     expect(labels('show current ')).toEqual(names.designators);

@@ -4,7 +4,8 @@
  * options that fit where the cursor stands. Names come from the cell itself.
  */
 import type { Completion, CompletionContext, CompletionResult } from '@codemirror/autocomplete';
-import { CONNECTIVES, CONTROLLED_MODE_WORDS, GROUND, NOISE_OFF, OPAMP_OPTION_WORDS, OPAMP_WORD, PASSIVES, SHOW_MODES, TRACE_WORDS } from '@rolloff/solver';
+import { CONNECTIVES, GROUND, NOISE_OFF, PART_LETTERS, PART_WORDS, PASSIVES, SHOW_MODES, TRACE_WORDS } from '@rolloff/solver';
+import type { PartClassLetter } from '@rolloff/solver';
 import { tokenizeCell, tokenizeCellLine } from './cell-language';
 import { functionWords, measureWords, partKindWords, partLetters, statementInfo, statementWords } from './cell-words';
 
@@ -63,9 +64,8 @@ export function completionsFor(lineBefore: string, names: CellNames): Completion
       const closedBracket = tokens.some((t) => t.text === ']');
       if (!closedBracket) return [];
       if (previous === 'noise') return [option(NOISE_OFF, 'keyword', 'no thermal noise')];
-      const kinds: readonly string[] = letter === 'U' ? [OPAMP_WORD] : letter === 'A' ? CONTROLLED_MODE_WORDS : [];
-      const optionWords: readonly string[] =
-        letter === 'U' ? OPAMP_OPTION_WORDS : letter === 'A' ? CONNECTIVES.part : (Object.values(PASSIVES).find((p) => p.letter === letter)?.options ?? []);
+      const words = (PART_LETTERS as readonly string[]).includes(letter) ? PART_WORDS[letter as PartClassLetter] : { kinds: [], options: [] };
+      const [kinds, optionWords] = [words.kinds, words.options];
       return [...kinds.map((k) => option(k, 'type', 'part kind', 3)), ...values, ...optionWords.map((w) => option(w, 'keyword', 'option'))];
     }
     case 'couple':

@@ -23,6 +23,15 @@ describe('the cell language mode', () => {
     expect(styleOf('let Ca = 2*Cb', 'Cb')).toBe('variableName');
   });
 
+  it('colours the words of transformers, loop breaks and transfer functions as part kinds and options', () => {
+    expect(styleOf('T1 [p gnd s gnd] turns 2', 'turns')).toBe('typeName');
+    expect(styleOf('J1 [out n] break', 'break')).toBe('typeName');
+    expect(styleOf('A1 [o gnd i gnd] poles 1k q 0.7 zeros 5k gain 2', 'poles')).toBe('typeName');
+    expect(styleOf('A1 [o gnd i gnd] poles 1k q 0.7 zeros 5k gain 2', 'zeros')).toBe('modifier');
+    expect(styleOf('A1 [o gnd i gnd] poles 1k q 0.7 zeros 5k gain 2', 'q')).toBe('modifier');
+    expect(styleOf('U1 [p n o] opamp gbw 1M pole2 5M', 'pole2')).toBe('modifier');
+  });
+
   it('reads numbers with their SI prefix and gives the unit its own colour', () => {
     const tokens = tokenizeCellLine('U1 [b out out]  opamp  gain 100dB  gbw 1M').tokens;
     expect(tokens.map((t) => [t.text, t.style])).toEqual([

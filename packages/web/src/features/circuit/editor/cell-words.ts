@@ -6,15 +6,12 @@
 import {
   CONNECTIVES,
   CONSTANTS,
-  CONTROLLED_MODE_WORDS,
   FUNCTION_WORDS,
   MEASURE_WORDS,
   NOISE_OFF,
-  OPAMP_OPTION_WORDS,
-  OPAMP_WORD,
   PART_CLASSES,
   PART_LETTERS,
-  PASSIVE_OPTIONS,
+  PART_WORDS,
   SHOW_MODES,
   STATEMENTS,
   STATEMENT_WORDS,
@@ -32,10 +29,10 @@ export const statementInfo: Readonly<Record<StatementWord, string>> = STATEMENTS
 export const partLetters = PART_LETTERS.map((letter) => ({ letter, kind: PART_CLASSES[letter].kind, template: PART_CLASSES[letter].template }));
 
 /** Words naming a part's kind after its nodes. */
-export const partKindWords: readonly string[] = [OPAMP_WORD, ...CONTROLLED_MODE_WORDS];
+export const partKindWords: readonly string[] = [...new Set(PART_LETTERS.flatMap((letter) => PART_WORDS[letter].kinds))];
 
 /** Options written after a part's value (and `of`, which names the controlling part). */
-export const partOptionWords: readonly string[] = [...PASSIVE_OPTIONS, ...OPAMP_OPTION_WORDS, ...CONNECTIVES.part];
+export const partOptionWords: readonly string[] = [...new Set(PART_LETTERS.flatMap((letter) => PART_WORDS[letter].options))];
 
 /** Words inside show, drive, sweep, time, spread and use statements. */
 const modifierWords: readonly string[] = [...new Set<string>([...SHOW_MODES, ...TRACE_WORDS, ...Object.values(CONNECTIVES).flat(), NOISE_OFF])];
