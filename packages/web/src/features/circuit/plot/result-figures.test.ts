@@ -198,3 +198,36 @@ describe('decibelRange', () => {
     expect(decibelRange([[0, -1e6, Number.NEGATIVE_INFINITY]], [])).toEqual([-190, 10]);
   });
 });
+
+describe('the sign-off measures drawn from their fields', () => {
+  const BRIDGED_T = 'drive in\nC1 [in m] 10n\nC2 [m out] 10n\nR1 [in out] 100k\nR2 [m gnd] 1k\nshow out\n';
+
+  it('draws a loss on the gain axis turned over: min-attenuation ≥ 30 dB is gain ≤ −30 dB over its band, its worst point at −measured', () => {
+    const result = analyze(`${BRIDGED_T}require out min-attenuation >= 30 dB over 1.5k .. 1.7k\nrequire out insertion-loss <= 1 dB at 100`);
+    const [attenuation, loss] = result.requirements;
+    const figure = bodeOf(result);
+    const rects = shapesOf(figure).filter((s) => s.type === 'rect' && s.yref === 'y');
+    expect(rects.find((s) => s.x0 === 1500 && s.x1 === 1700)).toMatchObject({ y1: -30, fillcolor: testTheme.pass });
+    // insertion-loss <= 1 dB at 100 Hz: gain from −1 dB up, a narrow band around 100 Hz; it fails (1.5 dB lost).
+    expect(loss.status).toBe('fail');
+    expect(rects.find((s) => s.x0 === 100 / 1.03)).toMatchObject({ y0: -1, fillcolor: testTheme.fail });
+    const marks = figure.data.filter((d) => d.mode === 'markers');
+    expect(marks.find((d) => (d.x as number[])[0] === attenuation.worstAt)?.y).toEqual([-attenuation.measured]);
+    expect(marks.find((d) => (d.x as number[])[0] === 100)?.y).toEqual([-loss.measured]);
+  });
+
+  it('draws a notch frequency and an anti-resonance as bands of frequency, and a max-impedance limit on the impedance plot', () => {
+    const decoupling = 'C3 [p gnd] 10n esl 0.5n esr 1m\nC4 [p gnd] 1u esl 1n esr 1m\nshow impedance p\n';
+    const result = analyze(
+      `${BRIDGED_T}${decoupling}require out notch-frequency = 1.6k ± 5%\nrequire impedance p anti-resonance >= 10M\nrequire impedance p max-impedance <= 50`,
+    );
+    expect(result.requirements.map((q) => q.status)).toEqual(['pass', 'pass', 'pass']);
+    const full = (figure: Figure) => shapesOf(figure).filter((s) => s.type === 'rect' && s.yref === 'y domain');
+    expect(full(bodeOf(result))).toEqual([expect.objectContaining({ x0: 1520, x1: 1680 })]);
+    const impedance = figuresFor([{ result }], testTheme).find((f) => f.kind === 'impedance') as Figure;
+    expect(full(impedance)).toEqual([expect.objectContaining({ x0: 10e6 })]);
+    const max = result.requirements[2];
+    expect(shapesOf(impedance).find((s) => s.type === 'rect' && s.yref === 'y')).toMatchObject({ y1: 50, x0: max.over?.from, x1: max.over?.to });
+    expect(impedance.data.find((d) => d.mode === 'markers' && (d.x as number[])[0] === max.worstAt)?.y).toEqual([max.measured]);
+  });
+});

@@ -59,7 +59,38 @@ const MARKED_PEAK_DB = 0.1;
 
 /** Where a requirement of each measure is drawn; measures not listed are not drawn. */
 type Panel = 'magnitude' | 'phase' | 'frequency';
-const PANEL_OF: Partial<Record<Measure, Panel>> = { gain: 'magnitude', magnitude: 'magnitude', phase: 'phase', corner: 'frequency', crossover: 'frequency' };
+const PANEL_OF: Partial<Record<Measure, Panel>> = {
+  gain: 'magnitude',
+  'min-attenuation': 'magnitude',
+  'insertion-loss': 'magnitude',
+  magnitude: 'magnitude',
+  'max-impedance': 'magnitude',
+  phase: 'phase',
+  corner: 'frequency',
+  'lower-corner': 'frequency',
+  'upper-corner': 'frequency',
+  centre: 'frequency',
+  'peak-frequency': 'frequency',
+  'notch-frequency': 'frequency',
+  'anti-resonance': 'frequency',
+  crossover: 'frequency',
+  'phase-crossover': 'frequency',
+};
+/** The measures each plot's magnitude panel draws: the Bode plot's is in dB, the impedance plot's in the trace's unit. */
+const MAGNITUDE_MEASURES: Readonly<Record<'bode' | 'impedance', readonly Measure[]>> = {
+  bode: ['gain', 'min-attenuation', 'insertion-loss'],
+  impedance: ['magnitude', 'max-impedance'],
+};
+/** Measures of a loss in dB (−gain), drawn on the gain axis turned over. */
+const LOSS_MEASURES: readonly Measure[] = ['min-attenuation', 'insertion-loss'];
+
+/** A requirement as the gain axis reads it: a loss's band and value turned into gains. */
+function onGainAxis(placed: PlacedRequirement): PlacedRequirement {
+  const r = placed.requirement;
+  if (!LOSS_MEASURES.includes(r.measure)) return placed;
+  const turn = (v: number | null) => (v === null ? null : -v);
+  return { ...placed, requirement: { ...r, limit: -r.limit, band: { low: turn(r.band.high), high: turn(r.band.low) }, measured: -r.measured } };
+}
 
 /** Plain numbers for Plotly, with NaN and ±∞ as gaps. */
 export function finiteOrNull(values: NumberArray): (number | null)[] {
@@ -376,10 +407,10 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
     targets.push(target, target);
   }
   const placed = placeRequirements(primary).filter((p) => slots.some((s) => s.seriesIndex === 0 && s.trace === p.trace));
-  // The Bode plot's magnitude panel is in dB (gain); the impedance plot's in the trace's unit (magnitude).
-  const magnitudeMeasure: Measure = kind === 'bode' ? 'gain' : 'magnitude';
   const on = (panel: Panel) =>
-    placed.filter((p) => PANEL_OF[p.requirement.measure] === panel && (panel !== 'magnitude' || p.requirement.measure === magnitudeMeasure));
+    placed
+      .filter((p) => PANEL_OF[p.requirement.measure] === panel && (panel !== 'magnitude' || MAGNITUDE_MEASURES[kind].includes(p.requirement.measure)))
+      .map(onGainAxis);
   const limitsOn = (panel: Panel) => on(panel).flatMap((p) => limitsOf(p.requirement));
   const magnitudeRange: [number, number] =
     kind === 'bode'
