@@ -14,6 +14,7 @@ import { HazardCaution, SmallSignalNote } from './hazard-caution';
 import { LazyCircuitEditor, LazyCircuitPlots, PlotPlaceholder } from './lazy-parts';
 import { ReadoutsPanel } from './readouts-panel';
 import { RequirementBadges } from './requirement-badges';
+import { SolverFailure } from './solver-failure';
 import { TraceData } from './trace-data';
 
 export interface CircuitReaderProps {
@@ -34,7 +35,7 @@ const NO_TRACES: readonly string[] = [];
 
 /** One circuit cell, read-only, with everything a reviewer reads off it. */
 export function CircuitReader({ cellKey, text, label, filename, pins, onPick, footer }: CircuitReaderProps) {
-  const { outcome } = useAnalysis(text, { key: cellKey });
+  const { outcome, solveAnyway } = useAnalysis(text, { key: cellKey });
   const result = outcome?.ok ? outcome.result : null;
   const series = useMemo(() => (result ? [{ result }] : []), [result]);
   const traces = useMemo(() => (result ? result.traces.filter((t) => t.kind !== 'noise').map((t) => t.label) : NO_TRACES), [result]);
@@ -44,12 +45,8 @@ export function CircuitReader({ cellKey, text, label, filename, pins, onPick, fo
   return (
     <div className="space-y-3" data-testid="circuit-reader">
       <HazardCaution cautions={cautions} />
-      {outcome && !outcome.ok ? (
-        <p role="alert" className="rounded-lg border border-fail bg-fail-soft p-3 text-sm text-fail">
-          The solver could not run this cell: {outcome.message}
-        </p>
-      ) : null}
-      {result && result.traces.length > 0 ? <p className="sr-only">{plotSummary(result.traces, result.readouts)}</p> : null}
+      {outcome && !outcome.ok ? <SolverFailure outcome={outcome} onSolveAnyway={solveAnyway} /> : null}
+      {result && result.traces.length > 0 ? <p className="sr-only">{plotSummary(result.traces, result.readouts, result.variants)}</p> : null}
       {result && result.traces.length > 0 ? (
         <LazyCircuitPlots series={series} filename={filename} pins={pins} onPick={onPick} />
       ) : (
@@ -59,8 +56,8 @@ export function CircuitReader({ cellKey, text, label, filename, pins, onPick, fo
         <div className="min-w-0 space-y-3">
           {result ? (
             <>
-              <ReadoutsPanel readouts={result.readouts} />
-              <RequirementBadges requirements={result.requirements} />
+              <ReadoutsPanel readouts={result.readouts} variants={result.variants} />
+              <RequirementBadges requirements={result.requirements} variants={result.variants} />
               <TraceData result={result} />
             </>
           ) : null}

@@ -16,6 +16,7 @@ import { HazardCaution, SmallSignalNote } from './hazard-caution';
 import { LazyCircuitEditor, LazyCircuitPlots, PlotPlaceholder } from './lazy-parts';
 import { ReadoutsPanel } from './readouts-panel';
 import { RequirementBadges } from './requirement-badges';
+import { SolverFailure } from './solver-failure';
 import { TraceData } from './trace-data';
 
 export interface CircuitWorkbenchProps {
@@ -40,7 +41,7 @@ const hasErrors = (result: Result) => result.diagnostics.some((d) => d.severity 
 
 /** The editor, plots and readouts of one circuit cell. */
 export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, filename, onLeave, autoFocus, helpHref, pins }: CircuitWorkbenchProps) {
-  const { outcome, busy } = useAnalysis(text, { key: cellKey });
+  const { outcome, busy, solveAnyway } = useAnalysis(text, { key: cellKey });
   const lastGood = useRef<Result | null>(null);
   const result = outcome?.ok ? outcome.result : null;
   if (result && !hasErrors(result) && result.traces.length > 0) lastGood.current = result;
@@ -57,7 +58,7 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
     () =>
       shown ? (
         <>
-          <p className="sr-only">{plotSummary(shown.traces, shown.readouts)}</p>
+          <p className="sr-only">{plotSummary(shown.traces, shown.readouts, shown.variants)}</p>
           <LazyCircuitPlots series={series} filename={filename} pins={pins} />
         </>
       ) : null,
@@ -67,8 +68,8 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
     () =>
       shown ? (
         <>
-          <ReadoutsPanel readouts={shown.readouts} stale={stale} />
-          <RequirementBadges requirements={shown.requirements} stale={stale} />
+          <ReadoutsPanel readouts={shown.readouts} variants={shown.variants} stale={stale} />
+          <RequirementBadges requirements={shown.requirements} variants={shown.variants} stale={stale} />
           <TraceData result={shown} />
         </>
       ) : null,
@@ -102,11 +103,7 @@ export function CircuitWorkbench({ cellKey, text, onChange, readOnly, label, fil
       <div className="min-w-0 space-y-3 max-lg:contents">
         <div className="space-y-3 empty:hidden max-lg:order-1">
           <HazardCaution cautions={cautions} />
-          {outcome && !outcome.ok ? (
-            <p role="alert" className="rounded-lg border border-fail bg-fail-soft p-3 text-sm text-fail">
-              The solver could not run this cell: {outcome.message}
-            </p>
-          ) : null}
+          {outcome && !outcome.ok ? <SolverFailure outcome={outcome} onSolveAnyway={solveAnyway} /> : null}
           {stale ? <p className="text-xs text-warn">The cell has errors: showing the last result that solved.</p> : null}
         </div>
         <div

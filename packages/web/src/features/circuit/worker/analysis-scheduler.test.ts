@@ -29,6 +29,8 @@ class FakeWorker implements WorkerLike {
   }
 }
 
+const RC = 'drive in\nR1 [in out] 1k\nC1 [out gnd] 1u\nshow out';
+
 describe('the analysis scheduler', () => {
   beforeEach(() => {
     FakeWorker.made = [];
@@ -89,6 +91,41 @@ describe('the analysis scheduler', () => {
     expect(FakeWorker.made).toHaveLength(2);
     FakeWorker.made[1].answer(0);
     expect(delivered[1].ok).toBe(true);
+  });
+
+  it('stops a run past its time budget and says so, and runs the same text without a budget when asked', () => {
+    const scheduler = new AnalysisScheduler(() => new FakeWorker(), { budgetMs: 1_000 });
+    const delivered: AnalysisOutcome[] = [];
+    scheduler.submit('cell', 'huge text', (o) => delivered.push(o));
+    vi.advanceTimersByTime(999);
+    expect(FakeWorker.made[0].terminated).toBe(false);
+    vi.advanceTimersByTime(1);
+    expect(FakeWorker.made[0].terminated).toBe(true);
+    expect(delivered).toEqual([
+      {
+        ok: false,
+        text: 'huge text',
+        message: expect.stringMatching(/^solving it took longer than 1 s, so it was stopped.*make it smaller, or solve it anyway/),
+        overBudget: true,
+      },
+    ]);
+
+    scheduler.submit('cell', 'huge text', (o) => delivered.push(o), undefined, true);
+    vi.advanceTimersByTime(60_000);
+    const unbudgeted = FakeWorker.made[1];
+    expect(unbudgeted.terminated).toBe(false);
+    unbudgeted.onmessage?.({ data: { id: unbudgeted.received[0].id, ok: true, result: analyze(RC), elapsedMs: 60_000 } } as MessageEvent<AnalysisReply>);
+    expect(delivered.map((o) => o.ok)).toEqual([false, true]);
+  });
+
+  it('does not hold an answered run to the budget', () => {
+    const scheduler = new AnalysisScheduler(() => new FakeWorker(), { budgetMs: 1_000 });
+    const delivered: AnalysisOutcome[] = [];
+    scheduler.submit('cell', RC, (o) => delivered.push(o));
+    FakeWorker.made[0].answer();
+    vi.advanceTimersByTime(5_000);
+    expect(FakeWorker.made[0].terminated).toBe(false);
+    expect(delivered.map((o) => o.ok)).toEqual([true]);
   });
 
   it('delivers nothing for a released cell', () => {

@@ -2,7 +2,9 @@
  * Runs cell analyses on one Web Worker, one at a time, the newest text of each cell winning.
  * A result for a text that has since been replaced is dropped; a run that is already stale
  * and still busy after `cancelAfterMs` is cancelled by replacing the worker, so a slow
- * network never holds up the text the user is looking at.
+ * network never holds up the text the user is looking at. A run still busy after `budgetMs`
+ * is stopped the same way and reported `overBudget`, unless it was asked for without a budget
+ * (the person chose to solve that cell anyway).
  */
 import type { Result } from '@rolloff/solver';
 import type { AnalysisReply, AnalysisRequest } from './analysis-messages';
@@ -15,18 +17,25 @@ export interface WorkerLike {
   onerror: ((event: ErrorEvent) => void) | null;
 }
 
-export type AnalysisOutcome = { ok: true; text: string; result: Result; elapsedMs: number } | { ok: false; text: string; message: string };
+export type AnalysisOutcome = { ok: true; text: string; result: Result; elapsedMs: number } | { ok: false; text: string; message: string; overBudget?: true };
+
+/** How long one analysis may run in the browser before it is stopped and the person asked. */
+export const SOLVE_BUDGET_MS = 5_000;
 
 interface Job {
   id: number;
   text: string;
   maxPoints?: number;
+  /** Run without the time budget. */
+  unbudgeted: boolean;
   deliver: (outcome: AnalysisOutcome) => void;
 }
 
 export interface SchedulerOptions {
   /** How long a stale run may keep the worker busy before it is cancelled. */
   cancelAfterMs?: number;
+  /** How long any run may take before it is stopped (default `SOLVE_BUDGET_MS`). */
+  budgetMs?: number;
 }
 
 export class AnalysisScheduler {
@@ -35,6 +44,8 @@ export class AnalysisScheduler {
   private readonly latest = new Map<string, number>();
   private running: { key: string; job: Job; startedAt: number } | null = null;
   private cancelTimer: ReturnType<typeof setTimeout> | null = null;
+  private budgetTimer: ReturnType<typeof setTimeout> | null = null;
+  private readonly budgetMs: number;
   private sequence = 0;
   private readonly cancelAfterMs: number;
 
@@ -43,13 +54,17 @@ export class AnalysisScheduler {
     options: SchedulerOptions = {},
   ) {
     this.cancelAfterMs = options.cancelAfterMs ?? 250;
+    this.budgetMs = options.budgetMs ?? SOLVE_BUDGET_MS;
   }
 
-  /** Asks for `text` of cell `key` to be analysed; any older request of that cell is dropped. */
-  submit(key: string, text: string, deliver: Job['deliver'], maxPoints?: number): void {
+  /**
+   * Asks for `text` of cell `key` to be analysed; any older request of that cell is dropped.
+   * `unbudgeted` lets it run past the time budget.
+   */
+  submit(key: string, text: string, deliver: Job['deliver'], maxPoints?: number, unbudgeted = false): void {
     const id = ++this.sequence;
     this.latest.set(key, id);
-    this.pending.set(key, { id, text, maxPoints, deliver });
+    this.pending.set(key, { id, text, maxPoints, unbudgeted, deliver });
     if (this.running?.key === key) this.scheduleCancel();
     this.pump();
   }
@@ -63,6 +78,7 @@ export class AnalysisScheduler {
   /** Stops the worker and forgets everything. */
   dispose(): void {
     this.clearCancel();
+    this.clearBudget();
     this.worker?.terminate();
     this.worker = null;
     this.running = null;
@@ -92,6 +108,25 @@ export class AnalysisScheduler {
     const request: AnalysisRequest = { id: job.id, text: job.text };
     if (job.maxPoints !== undefined) request.maxPoints = job.maxPoints;
     this.ensureWorker().postMessage(request);
+    if (!job.unbudgeted) this.budgetTimer = setTimeout(() => this.overBudget(job), this.budgetMs);
+  }
+
+  /** The run of `job` took longer than the budget: stop it and say so. */
+  private overBudget(job: Job): void {
+    this.budgetTimer = null;
+    const running = this.running;
+    if (running?.job !== job) return;
+    this.replaceWorker();
+    if (this.latest.get(running.key) === job.id) {
+      const seconds = this.budgetMs / 1000;
+      job.deliver({
+        ok: false,
+        text: job.text,
+        message: `solving it took longer than ${seconds} s, so it was stopped to keep this page responsive. Its network may be very large (many block instances); make it smaller, or solve it anyway and wait.`,
+        overBudget: true,
+      });
+    }
+    this.pump();
   }
 
   private onReply(reply: AnalysisReply): void {
@@ -99,6 +134,7 @@ export class AnalysisScheduler {
     if (!running || reply.id !== running.job.id) return;
     this.running = null;
     this.clearCancel();
+    this.clearBudget();
     if (this.latest.get(running.key) === reply.id) {
       running.job.deliver(
         reply.ok
@@ -137,8 +173,14 @@ export class AnalysisScheduler {
     this.cancelTimer = null;
   }
 
+  private clearBudget(): void {
+    if (this.budgetTimer) clearTimeout(this.budgetTimer);
+    this.budgetTimer = null;
+  }
+
   private replaceWorker(): void {
     this.clearCancel();
+    this.clearBudget();
     this.worker?.terminate();
     this.worker = null;
     this.running = null;

@@ -1,9 +1,10 @@
 /**
  * `useAnalysis(key, text)`: the solver's result for a cell's text, computed in the shared
  * Web Worker at the next animation frame after the text changes. The result keeps the text
- * it belongs to, so an editor can tell whether its diagnostics still fit the document.
+ * it belongs to, so an editor can tell whether its diagnostics still fit the document. A run
+ * past the time budget is stopped; `solveAnyway` lifts the budget for this cell.
  */
-import { useEffect, useId, useMemo, useState } from 'react';
+import { useCallback, useEffect, useId, useMemo, useState } from 'react';
 import { TIMING, recordElapsed } from '../../../lib/timing';
 import { AnalysisScheduler } from './analysis-scheduler';
 import type { AnalysisOutcome, WorkerLike } from './analysis-scheduler';
@@ -22,6 +23,8 @@ export interface AnalysisState {
   outcome: AnalysisOutcome | null;
   /** True while the newest text has not been answered yet. */
   busy: boolean;
+  /** Solves this cell however long it takes, from now on (after a run was stopped for its time). */
+  solveAnyway: () => void;
 }
 
 /** Analyses `text` whenever it changes; `key` separates cells that share the worker. */
@@ -30,6 +33,7 @@ export function useAnalysis(text: string, options: { key?: string; maxPoints?: n
   const key = options.key ?? ownId;
   const [outcome, setOutcome] = useState<AnalysisOutcome | null>(null);
   const [askedFor, setAskedFor] = useState<string | null>(null);
+  const [unbudgeted, setUnbudgeted] = useState(false);
 
   useEffect(() => {
     const frame = requestAnimationFrame(() => {
@@ -42,14 +46,19 @@ export function useAnalysis(text: string, options: { key?: string; maxPoints?: n
           setOutcome(next);
         },
         options.maxPoints,
+        unbudgeted,
       );
     });
     return () => cancelAnimationFrame(frame);
-  }, [key, text, options.maxPoints]);
+  }, [key, text, options.maxPoints, unbudgeted]);
 
   useEffect(() => () => scheduler().release(key), [key]);
 
-  return { outcome, busy: askedFor !== null && outcome?.text !== askedFor };
+  const solveAnyway = useCallback(() => {
+    setUnbudgeted(true);
+    setOutcome(null);
+  }, []);
+  return { outcome, busy: askedFor !== null && outcome?.text !== askedFor, solveAnyway };
 }
 
 /** Analyses several texts at once (revisions to overlay); outcomes come back in order. */
