@@ -1,31 +1,18 @@
 /** Parts and blocks: each part line checked and added to the network, and each `use` of a block expanded in its own scope. */
 import type { Capacitor, Element, Inductor, Resistor, SourceRange } from '../circuit.js';
-import type {
-  BlockStatement,
-  ControlledStatement,
-  CoupleStatement,
-  Ident,
-  OpAmpStatement,
-  PassiveKind,
-  PassiveStatement,
-  Statement,
-  BreakStatement,
-  TransformerStatement,
-  UseStatement,
-  Value,
-} from '../ast.js';
+import type { BlockStatement, CoupleStatement, OpAmpStatement, PassiveKind, PassiveStatement, Statement, UseStatement, Value } from '../ast.js';
 import type { Quantity } from '../expr.js';
 import { suggestionHint } from '../suggest.js';
 import { formatSi } from '../units.js';
 import { GROUND, PART_CLASSES, PASSIVES } from '../vocabulary.js';
 import type { Unit } from '../vocabulary.js';
 import type { Elaboration, Scope } from './context.js';
-import { transferSource } from './transfer.js';
+import { addElement, checkTwoTerminal, fromDb, whereIn } from './elements.js';
+import { controlled, loopBreak, transformer } from './sources.js';
 import { bound, checkNamespace, evaluate, letStatement, read } from './values.js';
 import type { Slot } from './values.js';
 
 const articleOfPassive = (part: PassiveKind) => PART_CLASSES[PASSIVES[part].letter].article;
-const fromDb = (v: number, u: Unit | null) => (u === 'dB' ? 10 ** (v / 20) : v);
 
 /** Records every block by name; a second block of the same name is an error. */
 export function registerBlocks(cx: Elaboration): void {
@@ -119,27 +106,6 @@ export function partStatement(cx: Elaboration, scope: Scope, st: Statement): voi
   }
 }
 
-/** Registers an element under its full designator. */
-function add(cx: Elaboration, element: Element, designator: Ident): void {
-  const before = cx.elementNames.get(element.name);
-  if (before !== undefined) {
-    // Two names that collide only after flattening (a dotted top-level name, say).
-    cx.error(
-      designator.range,
-      'duplicate-designator',
-      `there is a part named ${element.name} already, on line ${before.line}`,
-      'every part needs a designator of its own',
-    );
-    return;
-  }
-  cx.elementNames.set(element.name, { kind: element.kind, range: designator.range, line: designator.range.line });
-  cx.elements.push(element);
-}
-
-function whereIn(cx: Elaboration, scope: Scope): string {
-  return scope.instance === '' ? '' : ` (in ${scope.instance})`;
-}
-
 function passive(cx: Elaboration, scope: Scope, st: PassiveStatement): void {
   const name = scope.prefix + st.designator.name;
   const line = st.range.line;
@@ -197,7 +163,7 @@ function passive(cx: Elaboration, scope: Scope, st: PassiveStatement): void {
   else element = { ...base, kind: 'inductor', a, b, value, dcr };
   if (a === b)
     cx.warn(st.nodes.range, 'shorted-part', `${st.designator.name} has both ends on node ${st.nodes.nodes[0].name}, so it does nothing`, 'check its nodes');
-  add(cx, element, st.designator);
+  addElement(cx, element, st.designator);
 }
 
 /** A part's tolerance as a fraction: `±1%` → 0.01; `±0.25p` on a 10 pF part → 0.025. */
@@ -302,122 +268,7 @@ function opamp(cx: Elaboration, scope: Scope, st: OpAmpStatement): void {
   if (values.pole2 !== undefined) element.pole2 = values.pole2;
   if (values.vnoise !== undefined) element.en = values.vnoise;
   if (values.inoise !== undefined) element.inoise = values.inoise;
-  add(cx, element, st.designator);
-}
-
-function controlled(cx: Elaboration, scope: Scope, st: ControlledStatement): void {
-  const name = scope.prefix + st.designator.name;
-  const line = st.range.line;
-  const four = st.mode === 'vgain' || st.mode === 'gm' || st.response !== undefined;
-  if (st.nodes.nodes.length !== (four ? 4 : 2)) return;
-  const nodes = st.nodes.nodes.map((id) => cx.node(scope, id, name, scope.prefix === ''));
-  const where = whereIn(cx, scope);
-  if (st.response !== undefined) {
-    const element = transferSource(cx, scope, { ...st, response: st.response }, name, nodes, where);
-    if (element !== null) add(cx, element, st.designator);
-    return;
-  }
-  if (st.value === null) return;
-  const slots: Record<string, Slot> = {
-    vgain: { says: 'vgain is a voltage gain, in V/V or dB', units: ['dB'], convert: fromDb, example: '10' },
-    gm: { says: 'gm is a transconductance, in S', units: ['S'], example: '1m' },
-    igain: { says: 'igain is a current gain, in A/A or dB', units: ['dB'], convert: fromDb, example: '10' },
-    rm: { says: 'rm is a transresistance, in Ω', units: ['Ω'], example: '1k' },
-  };
-  const x = read(cx, scope, st.value, line, slots[st.mode], where);
-  if (x === null) return;
-  const [op, on] = nodes;
-  if (four) {
-    const [, , cp, cn] = nodes;
-    const element: Element =
-      st.mode === 'vgain' ? { kind: 'vcvs', name, range: st.range, op, on, cp, cn, gain: x } : { kind: 'vccs', name, range: st.range, op, on, cp, cn, gm: x };
-    add(cx, element, st.designator);
-    return;
-  }
-  if (st.control === null) return;
-  const control = st.control;
-  const controlName = scope.prefix + control.name;
-  const element: Element =
-    st.mode === 'igain'
-      ? { kind: 'cccs', name, range: st.range, op, on, control: controlName, gain: x }
-      : { kind: 'ccvs', name, range: st.range, op, on, control: controlName, rm: x };
-  add(cx, element, st.designator);
-  cx.pending.push(() => checkTwoTerminal(cx, scope, control, controlName, `${st.mode} of`));
-}
-
-/** An ideal transformer: four nodes, and a turns ratio above 0. */
-function transformer(cx: Elaboration, scope: Scope, st: TransformerStatement): void {
-  const name = scope.prefix + st.designator.name;
-  if (st.nodes.nodes.length !== 4 || st.turns === null) return;
-  const [p1, p2, s1, s2] = st.nodes.nodes.map((id) => cx.node(scope, id, name, scope.prefix === ''));
-  const where = whereIn(cx, scope);
-  const turns = read(cx, scope, st.turns, st.range.line, { says: 'a turns ratio is a plain number', units: [], example: '2' }, where);
-  if (turns === null) return;
-  const hint = 'turns is the secondary’s turns per primary turn, like 10 for a 1:10 step-up or 0.1 for 10:1; to reverse a winding, swap its two nodes';
-  if (!bound(cx, st.turns, turns > 0, `a turns ratio must be more than 0; it is ${formatSi(turns)}${where}`, hint)) return;
-  const [a, , c] = st.nodes.nodes;
-  if (p1 === p2 || s1 === s2) {
-    const x = p1 === p2 ? a : c;
-    cx.error(st.nodes.range, 'shorted-part', `${st.designator.name} has both ends of a winding on node ${x.name}`, 'a winding joins two different nodes');
-    return;
-  }
-  add(cx, { kind: 'transformer', name, range: st.range, p1, p2, s1, s2, turns }, st.designator);
-}
-
-/** A loop break: two different nodes, neither of them gnd (the loop's voltages are read on both sides). */
-function loopBreak(cx: Elaboration, scope: Scope, st: BreakStatement): void {
-  const name = scope.prefix + st.designator.name;
-  if (st.nodes.nodes.length !== 2) return;
-  const [from, to] = st.nodes.nodes.map((id) => cx.node(scope, id, name, scope.prefix === ''));
-  const onGround = st.nodes.nodes.find((id) => id.name === GROUND);
-  if (onGround !== undefined) {
-    cx.error(
-      onGround.range,
-      'bad-break',
-      `a loop break cannot have an end on gnd: the loop is read as voltages on both its sides`,
-      'put it in the wire the loop’s signal runs along, like [out n]',
-    );
-    return;
-  }
-  if (from === to) {
-    cx.error(st.nodes.range, 'shorted-part', `${st.designator.name} has both ends on node ${st.nodes.nodes[0].name}`, 'a loop break joins two different nodes');
-    return;
-  }
-  add(cx, { kind: 'loop-break', name, range: st.range, from, to }, st.designator);
-}
-
-/** A part named by `of Rx`, `couple` or `show current` must be a resistor, capacitor or inductor. */
-export function checkTwoTerminal(cx: Elaboration, scope: Scope, id: Ident, full: string, what: string, only?: 'inductor'): boolean {
-  const e = cx.elementNames.get(full);
-  if (e === undefined) {
-    if (scope.designators.has(id.name) || cx.program.brokenWords.has(id.name)) return false; // its own line had an error
-    const names =
-      cx.suggestBudget <= 0
-        ? []
-        : [...cx.elementNames.entries()]
-            .filter(([n, x]) => n.startsWith(scope.prefix) && (only === undefined ? ['resistor', 'capacitor', 'inductor'].includes(x.kind) : x.kind === only))
-            .map(([n]) => n.slice(scope.prefix.length));
-    const near = cx.near(id.name, names);
-    const otherwise = `${what} names ${only === 'inductor' ? 'an inductor' : 'a resistor, capacitor or inductor'} of this network`;
-    cx.error(
-      id.range,
-      'unknown-part',
-      `there is no part named ${id.name}${scope.block !== null ? ` in block ${scope.block.name.name}` : ''}`,
-      suggestionHint(near, undefined, otherwise),
-      near.fix,
-    );
-    return false;
-  }
-  const fits = only === undefined ? e.kind === 'resistor' || e.kind === 'capacitor' || e.kind === 'inductor' : e.kind === only;
-  if (!fits) {
-    cx.error(
-      id.range,
-      'wrong-part-kind',
-      `${id.name} is ${articleOf(e.kind)}; ${what} names ${only === 'inductor' ? 'an inductor' : 'a resistor, capacitor or inductor'}`,
-    );
-    return false;
-  }
-  return true;
+  addElement(cx, element, st.designator);
 }
 
 function couple(cx: Elaboration, scope: Scope, st: CoupleStatement): void {
@@ -562,23 +413,4 @@ function checkPins(cx: Elaboration, block: BlockStatement): void {
     }
     seen.add(pin.name);
   }
-}
-
-function articleOf(kind: Element['kind'] | 'instance'): string {
-  const names: Record<Element['kind'] | 'instance', string> = {
-    instance: 'a block instance',
-    coupling: 'a coupling',
-    resistor: 'a resistor',
-    capacitor: 'a capacitor',
-    inductor: 'an inductor',
-    opamp: 'an op-amp',
-    vcvs: 'a controlled source',
-    vccs: 'a controlled source',
-    cccs: 'a controlled source',
-    ccvs: 'a controlled source',
-    transformer: 'a transformer',
-    'loop-break': 'a loop break',
-    transfer: 'a controlled source',
-  };
-  return names[kind];
 }

@@ -2,7 +2,7 @@
 import type { Probe, TraceKind, TraceSpec } from '../circuit.js';
 import type { ShowStatement, SumTerm } from '../ast.js';
 import type { Elaboration } from './context.js';
-import { checkTwoTerminal } from './parts.js';
+import { checkTwoTerminal } from './elements.js';
 import { read } from './values.js';
 import { suggestionHint } from '../suggest.js';
 

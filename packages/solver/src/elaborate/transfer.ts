@@ -11,12 +11,11 @@ import { multiply, rationalOf, trim } from '../rational.js';
 import type { Polynomial, Rational } from '../rational.js';
 import { formatSi } from '../units.js';
 import { LAPLACE_VARIABLE } from '../vocabulary.js';
-import type { Unit } from '../vocabulary.js';
 import type { Elaboration, Scope } from './context.js';
+import { fromDb } from './elements.js';
 import { bound, evaluate, read } from './values.js';
 
 const TWO_PI = 2 * Math.PI;
-const fromDb = (v: number, u: Unit | null) => (u === 'dB' ? 10 ** (v / 20) : v);
 
 /** The source's element, or null (with the reason reported). */
 export function transferSource(
