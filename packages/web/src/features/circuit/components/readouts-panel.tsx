@@ -1,18 +1,19 @@
 import { READOUT_NAMES } from '@rolloff/solver';
-import type { Readout } from '@rolloff/solver';
-import { formatReadout } from '../lib/readout-labels';
+import type { Readout, VariantResult } from '@rolloff/solver';
+import { formatReadout, shownReadouts } from '../lib/readout-labels';
+import { VariantReadouts } from './variant-readouts';
 
-/**
- * Readouts worth a line: a "peak" too small to show at the panel's hundredth of a dB is the
- * ripple of a flat passband, not a peak, so it and its frequency are left out.
- */
-export function shownReadouts(readouts: readonly Readout[]): Readout[] {
-  const flat = new Set(readouts.filter((r) => r.name === 'peak' && Math.abs(r.value) < 0.005).map((r) => r.trace));
-  return readouts.filter((r) => !(flat.has(r.trace) && (r.name === 'peak' || r.name === 'peak-frequency')));
-}
-
-/** The readouts of a cell, grouped by trace. */
-export function ReadoutsPanel({ readouts: all, stale = false }: { readouts: readonly Readout[]; stale?: boolean }) {
+/** The readouts of a cell, grouped by trace; of a cell with variants, a table per trace with a column per variant. */
+export function ReadoutsPanel({
+  readouts: all,
+  variants,
+  stale = false,
+}: {
+  readouts: readonly Readout[];
+  variants?: readonly VariantResult[];
+  stale?: boolean;
+}) {
+  if (variants !== undefined && variants.length > 0) return <VariantReadouts variants={variants} stale={stale} />;
   const readouts = shownReadouts(all);
   if (readouts.length === 0) return null;
   const traces = [...new Set(readouts.map((r) => r.trace))];

@@ -1,5 +1,5 @@
 import { STATUS_WORDS, formatSi } from '@rolloff/solver';
-import type { RequirementResult, RequirementStatus } from '@rolloff/solver';
+import type { RequirementResult, RequirementStatus, VariantResult } from '@rolloff/solver';
 import { formatValue } from '../lib/readout-labels';
 
 const BADGE_STYLE: Record<RequirementStatus, string> = {
@@ -8,10 +8,31 @@ const BADGE_STYLE: Record<RequirementStatus, string> = {
   'not-applicable': 'bg-sunken text-ink-soft',
 };
 
-function measuredText(requirement: RequirementResult): string {
-  if (requirement.status === 'not-applicable') return `not checked: ${requirement.reason ?? 'the solver gave no reason'}`;
+/** What was measured; with variants, in which variant (the one that fails by most, or comes closest). */
+function measuredText(requirement: RequirementResult, variants: readonly VariantResult[]): string {
+  const shown = requirement.variants === undefined ? undefined : variants[requirement.variants.worst];
+  const within = shown === undefined ? '' : ` with ${shown.label}`;
+  if (requirement.status === 'not-applicable') return `not checked${within}: ${requirement.reason ?? 'the solver gave no reason'}`;
   const value = formatValue(requirement.measured, requirement.unit);
-  return requirement.worstAt === null ? value : `worst ${value} at ${formatSi(requirement.worstAt, 'Hz')}`;
+  return `${requirement.worstAt === null ? value : `worst ${value} at ${formatSi(requirement.worstAt, 'Hz')}`}${within}`;
+}
+
+/** Each variant's own status of the requirement at `index`: a small badge per variant, named by its value. */
+function VariantStatuses({ index, variants }: { index: number; variants: readonly VariantResult[] }) {
+  return (
+    <ul aria-label="by variant" className="flex basis-full flex-wrap gap-1.5 pl-16">
+      {variants.map((v, i) => {
+        const own = v.requirements[index];
+        if (own === undefined) return null;
+        return (
+          <li key={i} data-testid="variant-status" data-status={own.status} className="inline-flex items-center gap-1 text-xs text-ink-soft">
+            <span className={`rounded-full px-1.5 font-semibold ${BADGE_STYLE[own.status]}`}>{STATUS_WORDS[own.status]}</span>
+            {v.label}
+          </li>
+        );
+      })}
+    </ul>
+  );
 }
 
 /** "all pass", "1 of 3 fail", "1 of 3 fail, 1 n/a". */
@@ -24,14 +45,25 @@ function summary(requirements: readonly RequirementResult[]): string {
   return parts.join(', ');
 }
 
-/** Each requirement of a cell as a pass, fail or n/a badge with what was measured. */
-export function RequirementBadges({ requirements, stale = false }: { requirements: readonly RequirementResult[]; stale?: boolean }) {
+/**
+ * Each requirement of a cell as a pass, fail or n/a badge with what was measured; with
+ * variants, the badge is over every variant, and each variant's own status follows.
+ */
+export function RequirementBadges({
+  requirements,
+  variants = [],
+  stale = false,
+}: {
+  requirements: readonly RequirementResult[];
+  variants?: readonly VariantResult[];
+  stale?: boolean;
+}) {
   if (requirements.length === 0) return null;
   return (
     <section aria-label="Requirements" className={`rounded-lg border border-rule bg-panel p-3 ${stale ? 'opacity-60' : ''}`}>
       <h3 className="mb-2 text-xs font-semibold uppercase tracking-wide text-ink-faint">Requirements · {summary(requirements)}</h3>
       <ul className="space-y-1.5">
-        {requirements.map((r) => (
+        {requirements.map((r, index) => (
           <li
             key={r.line}
             data-testid="requirement"
@@ -44,8 +76,9 @@ export function RequirementBadges({ requirements, stale = false }: { requirement
             </span>
             <code className="font-mono text-ink">{r.text.replace(/^require\s+/, '')}</code>
             <span className="text-ink-faint">
-              line {r.line} · {measuredText(r)}
+              line {r.line} · {measuredText(r, variants)}
             </span>
+            {r.variants !== undefined && variants.length > 0 ? <VariantStatuses index={index} variants={variants} /> : null}
           </li>
         ))}
       </ul>

@@ -1,8 +1,7 @@
 import { formatSi } from '@rolloff/solver';
 import type { Readout } from '@rolloff/solver';
 import { describe, expect, it } from 'vitest';
-import { shownReadouts } from '../components/readouts-panel';
-import { formatReadout, formatValue } from './readout-labels';
+import { formatReadout, formatValue, shownReadouts } from './readout-labels';
 
 describe('readouts on screen', () => {
   it('write levels and angles to a hundredth, and other values with SI prefixes', () => {

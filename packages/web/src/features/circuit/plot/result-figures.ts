@@ -15,6 +15,7 @@ import { loopMarginMarks } from './loop-margins';
 import { plotText } from './plot-text';
 import { pinMarkers } from './plot-pins';
 import type { PlotPin, PlotTarget } from './plot-pins';
+import { variantShade } from './variant-shades';
 
 /** Colours and font of the plots, read from the palette so light and dark both work. */
 export interface PlotTheme {
@@ -169,8 +170,8 @@ function axisStyle(theme: PlotTheme) {
 }
 
 function frequencyAxis(theme: PlotTheme, frequencies: NumberArray, anchor: 'y' | 'y2') {
-  const first = frequencies[0];
-  const last = frequencies[frequencies.length - 1];
+  const first = Math.min(...frequencies);
+  const last = Math.max(...frequencies);
   const range: [number, number] | undefined = first > 0 && last > first ? [Math.log10(first), Math.log10(last)] : undefined;
   return { ...axisStyle(theme), type: 'log' as const, anchor, title: { text: 'frequency (Hz)' }, exponentformat: 'SI' as const, range };
 }
@@ -183,8 +184,11 @@ function labelSide(frequency: number, frequencies: NumberArray): { xanchor: 'lef
   return where > 0.75 ? { xanchor: 'right', xshift: -4 } : { xanchor: 'left', xshift: 4 };
 }
 
-/** A vertical dotted marker with its value written at the top of the magnitude panel. */
-function frequencyMarkers(readouts: Readout[], traceColour: (trace: string) => string | null, theme: PlotTheme, frequencies: NumberArray) {
+/**
+ * A vertical dotted marker with its value written at the top of the magnitude panel; without
+ * `labelled` (the variants of a cell, whose values the readouts table lists) the line alone.
+ */
+function frequencyMarkers(readouts: Readout[], traceColour: (trace: string) => string | null, theme: PlotTheme, frequencies: NumberArray, labelled = true) {
   const shapes: Partial<Shape>[] = [];
   const annotations: Partial<Annotations>[] = [];
   const byTrace = new Map<string, Readout[]>();
@@ -209,6 +213,7 @@ function frequencyMarkers(readouts: Readout[], traceColour: (trace: string) => s
       }
       if (!(at > 0) || !Number.isFinite(at)) continue;
       shapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: at, x1: at, y0: 0, y1: 1, line: { color: colour, width: 1, dash: 'dot' } });
+      if (!labelled) continue;
       annotations.push({
         xref: 'x',
         yref: 'y domain',
@@ -347,21 +352,41 @@ interface TraceSlot {
   seriesIndex: number;
   trace: TraceResult;
   colour: string;
+  /** The frequencies the trace is drawn over: its result's, or its variant's own. */
+  frequencies: NumberArray;
+  /** Which variant of a cell with a `vary` line (0 for the first and for a cell without one). */
+  variant: number;
+  /** The variant's name ("Rload = 10 Ω"), or null without variants. */
+  variantLabel: string | null;
+  readouts: Readout[];
 }
 
-/** Traces of the kinds a figure draws, with a colour per label shared across series. */
+/**
+ * Traces of the kinds a figure draws, with a colour per label shared across series; the
+ * variants of a cell each get a shade of their trace's colour.
+ */
 function slotsOf(series: PlotSeries[], kinds: (kind: TraceResult['kind']) => boolean, theme: PlotTheme): TraceSlot[] {
   const colours = new Map<string, string>();
   const slots: TraceSlot[] = [];
   series.forEach((s, seriesIndex) => {
-    for (const trace of s.result.traces) {
-      if (!kinds(trace.kind)) continue;
-      if (!colours.has(trace.label)) colours.set(trace.label, colourOf(theme, colours.size));
-      slots.push({ series: s, seriesIndex, trace, colour: colours.get(trace.label) as string });
-    }
+    const variants = s.result.variants ?? [{ label: null, frequencies: s.result.frequencies, traces: s.result.traces, readouts: s.result.readouts }];
+    variants.forEach((v, variant) => {
+      for (const trace of v.traces) {
+        if (!kinds(trace.kind)) continue;
+        if (!colours.has(trace.label)) colours.set(trace.label, colourOf(theme, colours.size));
+        const colour = variantShade(colours.get(trace.label) as string, theme.panel, variant, variants.length);
+        slots.push({ series: s, seriesIndex, trace, colour, frequencies: v.frequencies, variant, variantLabel: v.label, readouts: v.readouts });
+      }
+    });
   });
   return slots;
 }
+
+/** The first series' slots that carry its markers, margins and pins: those of its first variant. */
+const isPrimary = (slot: TraceSlot) => slot.seriesIndex === 0 && slot.variant === 0;
+
+/** A trace's legend entry: "out", or "out · Rload = 10 Ω" for a variant. */
+const slotLabel = (slot: TraceSlot) => (slot.variantLabel === null ? slot.trace.label : `${slot.trace.label} · ${slot.variantLabel}`);
 
 function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme: PlotTheme, pins: readonly PlotPin[]): Figure | null {
   const slots = slotsOf(series, kind === 'bode' ? (k) => BODE_KINDS.has(k) : (k) => k === 'impedance', theme);
@@ -370,15 +395,16 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
   const frequencies = primary.frequencies;
   const data: Partial<ScatterData>[] = [];
   const targets: (PlotTarget | null)[] = [];
-  for (const { series: s, seriesIndex, trace, colour } of slots) {
-    const x = finiteOrNull(s.result.frequencies);
-    const customdata = hoverData(s.result.frequencies, trace, kind === 'bode' ? 'dB' : 'linear');
+  for (const slot of slots) {
+    const { series: s, trace, colour } = slot;
+    const x = finiteOrNull(slot.frequencies);
+    const customdata = hoverData(slot.frequencies, trace, kind === 'bode' ? 'dB' : 'linear');
     const line = { color: colour, width: 2, dash: s.dash ?? 'solid' };
-    const group = `${s.name ?? ''}:${trace.label}`;
+    const group = `${s.name ?? ''}:${slotLabel(slot)}`;
     data.push({
       type: 'scatter',
       mode: 'lines',
-      name: legendName(s, trace.label),
+      name: legendName(s, slotLabel(slot)),
       legendgroup: group,
       x,
       y: finiteOrNull(kind === 'bode' ? trace.magnitudeDb : trace.magnitude),
@@ -391,7 +417,7 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
     data.push({
       type: 'scatter',
       mode: 'lines',
-      name: legendName(s, trace.label),
+      name: legendName(s, slotLabel(slot)),
       legendgroup: group,
       showlegend: false,
       x,
@@ -402,11 +428,11 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
       customdata,
       hovertemplate: HOVER,
     });
-    // Only the primary series can be pinned: the others are earlier revisions for comparison.
-    const target: PlotTarget | null = seriesIndex === 0 ? { kind: 'trace', trace: trace.label } : null;
+    // Only the primary series (its first variant) can be pinned: the others are earlier revisions, or other variants, for comparison.
+    const target: PlotTarget | null = isPrimary(slot) ? { kind: 'trace', trace: trace.label } : null;
     targets.push(target, target);
   }
-  const placed = placeRequirements(primary).filter((p) => slots.some((s) => s.seriesIndex === 0 && s.trace === p.trace));
+  const placed = placeRequirements(primary).filter((p) => slots.some((s) => isPrimary(s) && s.trace.label === p.trace.label));
   const on = (panel: Panel) =>
     placed
       .filter((p) => PANEL_OF[p.requirement.measure] === panel && (panel !== 'magnitude' || MAGNITUDE_MEASURES[kind].includes(p.requirement.measure)))
@@ -429,10 +455,17 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
   const magnitudeAxis: [number, number] = kind === 'bode' ? magnitudeRange : [10 ** magnitudeRange[0], 10 ** magnitudeRange[1]];
   const magnitudeShading = requirementShapes(on('magnitude'), 'y', magnitudeAxis, theme);
   const phaseShading = requirementShapes(on('phase'), 'y2', phase, theme);
-  const primaryColour = (label: string) => slots.find((s) => s.seriesIndex === 0 && s.trace.label === label)?.colour ?? null;
-  const markers = frequencyMarkers(primary.readouts, primaryColour, theme, frequencies);
+  const primaryColour = (label: string) => slots.find((s) => isPrimary(s) && s.trace.label === label)?.colour ?? null;
+  const axisFrequencies = slots.flatMap((s) => (s.frequencies.length > 0 ? [s.frequencies[0], s.frequencies[s.frequencies.length - 1]] : []));
+  // Variants of the cell: each one's corners and crossovers as lines in its shade, their values in the readouts table.
+  const variants = [...new Set(slots.filter((s) => s.seriesIndex === 0).map((s) => s.variant))];
+  const variantMarkers = (variant: number) => {
+    const own = slots.filter((s) => s.seriesIndex === 0 && s.variant === variant);
+    return frequencyMarkers(own[0].readouts, (label) => own.find((s) => s.trace.label === label)?.colour ?? null, theme, axisFrequencies, false);
+  };
+  const markers = variants.length > 1 ? mergeMarks(variants.map(variantMarkers)) : frequencyMarkers(primary.readouts, primaryColour, theme, frequencies);
   const impedanceMarkers = kind === 'impedance' ? minimumImpedanceMarkers(primary.readouts, primaryColour, theme) : { points: [], annotations: [] };
-  const primarySlots = slots.filter((s) => s.seriesIndex === 0);
+  const primarySlots = slots.filter(isPrimary);
   const margins = primarySlots.map((s) => loopMarginMarks(s.trace, primary.readouts, frequencies, s.colour, theme.panel));
   const pinned = pinMarkers(
     pins,
@@ -445,7 +478,7 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
   targets.push(...marks.map(() => null), ...pinned.targets);
   const layout: Partial<Layout> = {
     ...baseLayout(theme),
-    xaxis: frequencyAxis(theme, frequencies, 'y2'),
+    xaxis: frequencyAxis(theme, axisFrequencies, 'y2'),
     yaxis: {
       ...axisStyle(theme),
       domain: [0.42, 1],
@@ -463,6 +496,10 @@ function gainPhaseFigure(kind: 'bode' | 'impedance', series: PlotSeries[], theme
     annotations: [...markers.annotations, ...margins.flatMap((m) => m.annotations), ...impedanceMarkers.annotations, ...pinned.annotations],
   };
   return { kind, title: kind === 'bode' ? 'Bode plot' : 'Impedance', data, layout, targets };
+}
+
+function mergeMarks(marks: { shapes: Partial<Shape>[]; annotations: Partial<Annotations>[] }[]) {
+  return { shapes: marks.flatMap((m) => m.shapes), annotations: marks.flatMap((m) => m.annotations) };
 }
 
 /** Log-axis range (in decades) around positive data and limits. */
@@ -508,14 +545,14 @@ function minimumImpedanceMarkers(readouts: Readout[], traceColour: (trace: strin
 function noiseFigure(series: PlotSeries[], theme: PlotTheme): Figure | null {
   const slots = slotsOf(series, (k) => k === 'noise', theme);
   if (slots.length === 0) return null;
-  const data: Partial<ScatterData>[] = slots.map(({ series: s, trace, colour }) => ({
+  const data: Partial<ScatterData>[] = slots.map((slot) => ({
     type: 'scatter',
     mode: 'lines',
-    name: legendName(s, trace.label),
-    x: finiteOrNull(s.result.frequencies),
-    y: finiteOrNull(trace.magnitude),
-    line: { color: colour, width: 2, dash: s.dash ?? 'solid' },
-    customdata: Array.from(s.result.frequencies, (f, i) => [formatSi(f, 'Hz'), formatSi(trace.magnitude[i], 'V')]),
+    name: legendName(slot.series, slotLabel(slot)),
+    x: finiteOrNull(slot.frequencies),
+    y: finiteOrNull(slot.trace.magnitude),
+    line: { color: slot.colour, width: 2, dash: slot.series.dash ?? 'solid' },
+    customdata: Array.from(slot.frequencies, (f, i) => [formatSi(f, 'Hz'), formatSi(slot.trace.magnitude[i], 'V')]),
     hovertemplate: '%{customdata[0]}<br>%{customdata[1]}/√Hz<extra>%{fullData.name}</extra>',
   }));
   const layout: Partial<Layout> = {

@@ -13,8 +13,9 @@ function buffersOf(result: Result): ArrayBuffer[] {
   const add = (values: ArrayLike<number>) => {
     if (values instanceof Float64Array && values.buffer instanceof ArrayBuffer) buffers.add(values.buffer);
   };
-  add(result.frequencies);
-  for (const trace of result.traces) [trace.re, trace.im, trace.magnitude, trace.magnitudeDb, trace.phaseDeg, trace.groupDelay].forEach(add);
+  const traces = [...result.traces, ...(result.variants ?? []).flatMap((v) => v.traces)];
+  [result.frequencies, ...(result.variants ?? []).map((v) => v.frequencies)].forEach(add);
+  for (const trace of traces) [trace.re, trace.im, trace.magnitude, trace.magnitudeDb, trace.phaseDeg, trace.groupDelay].forEach(add);
   for (const step of result.steps) [step.times, step.values].forEach(add);
   for (const band of result.envelope) [band.minDb, band.maxDb, band.minPhaseDeg, band.maxPhaseDeg].forEach(add);
   return [...buffers];
