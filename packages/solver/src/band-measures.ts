@@ -26,17 +26,18 @@ export type Measured = { value: number; worstAt: number | null } | { notApplicab
 const TRANSFER_ONLY = new Set<BandMeasure>(['ripple', 'min-attenuation', 'insertion-loss', 'notch-depth', 'notch-frequency']);
 
 /**
- * The measure over [from, to] (from = to = F for `insertion-loss … at F`). `level` is the
- * trace's passband level in dB (NaN where it has none) and `shape` what the readouts found.
+ * The measure over [from, to] (from = to = F for `insertion-loss … at F`); `written` says
+ * whether the requirement gave that range (else it is the sweep). `level` is the trace's
+ * passband level in dB (NaN where it has none) and `shape` what the readouts found.
  */
-export function bandMeasure(measure: BandMeasure, view: TraceView, from: number, to: number, level: number, shape: Shape): Measured {
+export function bandMeasure(measure: BandMeasure, view: TraceView, from: number, to: number, written: boolean, level: number, shape: Shape): Measured {
   const label = view.trace.result.label;
   const na = (why: string): Measured => ({ notApplicable: why });
   if (view.trace.result.kind === 'impedance' && TRANSFER_ONLY.has(measure)) {
     return na(`${label} is an impedance, and ${measure} is a measure of a transfer in dB: require its magnitude, min-impedance or max-impedance`);
   }
   if (!(from <= to)) return na('the range of this requirement is empty');
-  const range = `${formatSi(from, 'Hz')} .. ${formatSi(to, 'Hz')}`;
+  const range = written ? `${formatSi(from, 'Hz')} .. ${formatSi(to, 'Hz')}` : 'the sweep';
   const singular = (e: Extreme): Measured => na(`${label} has no value at ${formatSi(e.at, 'Hz')}: the network is singular there`);
   switch (measure) {
     case 'ripple':
@@ -64,7 +65,10 @@ export function bandMeasure(measure: BandMeasure, view: TraceView, from: number,
       if (dip === null) return na(`${label} has no notch in ${range}: its lowest point there is at an end`);
       if (Number.isNaN(dip.value)) return singular(dip);
       if (measure === 'notch-frequency') return { value: dip.at, worstAt: null };
-      if (Number.isNaN(level)) return na(`${label} is ${shape}, so it has no passband level to measure the depth of its notch from`);
+      if (Number.isNaN(level)) {
+        const what = view.trace.result.kind === 'loop' ? 'a loop gain' : shape;
+        return na(`${label} is ${what}, so it has no passband level to measure the depth of its notch from: require its gain at the notch`);
+      }
       return { value: level - dip.value, worstAt: dip.at };
     }
     case 'max-impedance':

@@ -1,11 +1,11 @@
 /**
  * Checking `require` lines. Pointwise measures (gain, phase, delay, magnitude) are checked
  * at the true worst value over the range (`extremeOver`: the ends and every extremum,
- * between grid points too, from exact solves), or at the one `at` frequency; the measures of
- * a band or a feature (ripple, notch, anti-resonance, …) are read by `bandMeasure`; the
- * other single-number measures compare the trace's readout. A value that does not exist (a trace that is zero
- * everywhere, a singular point, a readout the trace does not have) is never a pass: the
- * requirement is not applicable, and says why.
+ * between grid points too, from exact solves), or at the one `at` frequency; the measures
+ * of a band or a feature (ripple, notch, anti-resonance, …) are read by `bandMeasure`; the
+ * other single-number measures compare the trace's readout. A value that does not exist (a
+ * trace that is zero everywhere, a singular point, a readout the trace does not have) is
+ * never a pass: the requirement is not applicable, and says why.
  */
 import type { Circuit, Measure, RequirementSpec } from './circuit.js';
 import type { Diagnostic, Readout, ReadoutId, RequirementResult } from './result.js';
@@ -153,7 +153,8 @@ function measure(circuit: Circuit, req: RequirementSpec, band: RequirementResult
     const grid = analysis.frequencies;
     const from = req.at ?? req.over?.from ?? grid[0];
     const to = req.at ?? req.over?.to ?? grid[grid.length - 1];
-    return bandMeasure(req.measure as BandMeasure, new TraceView(analysis, trace), from, to, own?.level ?? NaN, own?.shape ?? 'unknown');
+    const written = req.at !== undefined || req.over !== undefined;
+    return bandMeasure(req.measure as BandMeasure, new TraceView(analysis, trace), from, to, written, own?.level ?? NaN, own?.shape ?? 'unknown');
   }
 
   const name = READOUT_OF[req.measure]!;

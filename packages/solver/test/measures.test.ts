@@ -296,10 +296,17 @@ describe('notch depth and frequency', () => {
     notApplicable(analyze(`${BRIDGED_T}require out notch-frequency >= 1k over 2k .. 3k`), /no notch in 2 kHz .. 3 kHz/);
   });
 
+  it('n/a with the reason: a loop gain has no passband level to measure a notch’s depth from', () => {
+    notApplicable(
+      analyze(`${BRIDGED_T.replace('show out', 'show loop out')}require loop notch-depth >= 20 dB`),
+      /loop out is a loop gain, so it has no passband level/,
+    );
+  });
+
   it('n/a with the reason: a low-pass has no notch', () => {
     notApplicable(
       analyze('drive in\nR1 [in out] 1k\nC1 [out gnd] 100n\nshow out\nrequire out notch-depth >= 20 dB'),
-      /no notch in .*lowest point there is at an end/,
+      /no notch in the sweep: its lowest point there is at an end/,
     );
   });
 });
