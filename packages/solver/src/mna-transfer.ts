@@ -9,9 +9,9 @@ import type { TransferSource } from './circuit.js';
 
 type Add = (row: number, col: number, k0: number, k1?: number) => void;
 
-/** The count of unknowns the source needs: its states, then its output current. */
+/** The count of unknowns the source needs: max(m, 1) states, then its output current. */
 export function transferUnknowns(el: TransferSource): number {
-  return Math.max(el.num.length, el.den.length, 2) - 1 + 1;
+  return Math.max(el.num.length, el.den.length, 2);
 }
 
 /** The frequency scale ω0 of a polynomial: |c_low/c_high|^(1/(high − low)) over its non-zero coefficients, else 1. */

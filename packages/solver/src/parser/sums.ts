@@ -1,5 +1,5 @@
 /** Sums and scales of traces in a `show` line (`out + a`, `2 * out`, `out - 0.5 * a`), and the canonical words of a trace. */
-import type { SumTerm, TraceExpr } from '../ast.js';
+import type { SumTerm, TraceExpr, Value } from '../ast.js';
 import type { Token } from '../lexer.js';
 import type { Cursor } from './cursor.js';
 import { show } from './cursor.js';
@@ -27,7 +27,7 @@ export function sumExpr(cur: Cursor): TraceExpr {
   let sign: 1 | -1 = 1;
   if (cur.isPunct('-') || cur.isPunct('+')) sign = (cur.next() as Token).punct === '-' ? -1 : 1;
   for (;;) {
-    let factor = null;
+    let factor: Value | null = null;
     const t = cur.peek();
     if (t === undefined) cur.error(cur.here(), 'missing-node', `a node is missing after ${show(cur.tokens[cur.pos - 1])}`, SUM_HINT);
     const after = cur.peek(2);
