@@ -10,12 +10,13 @@ import type { Express } from 'express';
 import { csrfCheck, csrfCookie } from './auth/csrf.js';
 import { createAuth } from './auth/setup.js';
 import { setCellCheckBudget } from './cell-check-pool.js';
-import { authConfig, mailConfig, secureCookies } from './config.js';
-import type { AuthConfig, CellCheckConfig } from './config.js';
+import { authConfig, mailConfig, rateLimitConfig, secureCookies } from './config.js';
+import type { AuthConfig, CellCheckConfig, RateLimitConfig } from './config.js';
 import { connect } from './db/connection.js';
 import { errorMiddleware, unknownRoute } from './errors.js';
 import type { AppMail } from './mail/notifier.js';
 import type { Outbox } from './mail/outbox.js';
+import { createLimiters } from './rate-limit/limiters.js';
 import { adminRouter } from './routes/admin/router.js';
 import { authRouter } from './routes/auth/router.js';
 import { devMailRouter } from './routes/dev-mail/router.js';
@@ -37,9 +38,18 @@ export interface AppOptions {
   mailStandinUrl?: string | null;
   /** The budget of the server's cell checks; by default read from the environment (see config.ts). */
   cellCheck?: CellCheckConfig;
+  /** The rate limits; by default read from the environment (see config.ts). */
+  rateLimits?: RateLimitConfig;
 }
 
-export function createApp({ webDist, auth: settings = authConfig(), outbox, mailStandinUrl = mailConfig().standinUrl, cellCheck }: AppOptions): Express {
+export function createApp({
+  webDist,
+  auth: settings = authConfig(),
+  outbox,
+  mailStandinUrl = mailConfig().standinUrl,
+  cellCheck,
+  rateLimits = rateLimitConfig(),
+}: AppOptions): Express {
   if (cellCheck) setCellCheckBudget(cellCheck);
   const app = express();
   app.disable('x-powered-by');
@@ -54,11 +64,15 @@ export function createApp({ webDist, auth: settings = authConfig(), outbox, mail
 
   const auth = createAuth(settings, connect);
   const checkCsrf = csrfCheck(settings.publicUrl, settings.sessionSecret);
+  const limits = createLimiters(rateLimits, connect);
+  app.use('/auth/github', limits.signIn);
   app.use(['/api', '/auth', '/dev/mail'], auth.session, auth.passport.initialize(), auth.passport.session());
   app.use('/auth/logout', checkCsrf);
   app.use('/auth', authRouter(auth));
 
   const api = express.Router();
+  api.use(limits.writes);
+  api.use(['/notebooks', '/users'], limits.reads);
   api.use(checkCsrf);
   // Cell text is capped at 64 KiB by the schemas; the body limit leaves room for JSON escapes.
   api.use(express.json({ limit: '1mb' }));

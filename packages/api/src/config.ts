@@ -227,3 +227,38 @@ export function cellCheckConfig(env: NodeJS.ProcessEnv = process.env): CellCheck
     threads: positiveInt(env.CELL_CHECK_THREADS, availableParallelism()),
   };
 }
+
+/** A limit on one kind of request: hits allowed per window, per client address and per signed-in user; 0 means no limit. */
+export interface RequestLimit {
+  windowMs: number;
+  perAddress: number;
+  perUser: number;
+}
+
+/**
+ * The rate limits (rate-limit/limiters.ts), counted in MariaDB so every process shares them.
+ * Generous for people, and for a test suite whose every client is one loopback address.
+ */
+export interface RateLimitConfig {
+  /** Sign-in starts and callbacks, per address (nobody is signed in yet): `RATE_LIMIT_SIGN_IN` a minute. */
+  signIn: RequestLimit;
+  /** Every POST, PUT, PATCH and DELETE under /api: `RATE_LIMIT_WRITES` a minute per user, `RATE_LIMIT_WRITES_PER_ADDRESS` per address. */
+  writes: RequestLimit;
+  /** Reads of notebooks (lists, searches, whole notebooks, histories) and of people: `RATE_LIMIT_READS`, `RATE_LIMIT_READS_PER_ADDRESS`. */
+  reads: RequestLimit;
+}
+
+/** A whole number of at least 0 from the environment, else `fallback`. */
+function count(value: string | undefined, fallback: number): number {
+  const n = Number(value);
+  return value !== undefined && value !== '' && Number.isInteger(n) && n >= 0 ? n : fallback;
+}
+
+export function rateLimitConfig(env: NodeJS.ProcessEnv = process.env): RateLimitConfig {
+  const minute = 60_000;
+  return {
+    signIn: { windowMs: minute, perAddress: count(env.RATE_LIMIT_SIGN_IN, 200), perUser: 0 },
+    writes: { windowMs: minute, perAddress: count(env.RATE_LIMIT_WRITES_PER_ADDRESS, 1200), perUser: count(env.RATE_LIMIT_WRITES, 120) },
+    reads: { windowMs: minute, perAddress: count(env.RATE_LIMIT_READS_PER_ADDRESS, 3000), perUser: count(env.RATE_LIMIT_READS, 600) },
+  };
+}

@@ -5,7 +5,8 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ACQUIRE_TIMEOUT } from './db/request-timeouts.js';
 
-export type ErrorId = 'not_found' | 'validation' | 'conflict' | 'unauthenticated' | 'forbidden' | 'too_large' | 'key_reused' | 'unavailable' | 'internal';
+export type ErrorId =
+  'not_found' | 'validation' | 'conflict' | 'unauthenticated' | 'forbidden' | 'too_large' | 'key_reused' | 'rate_limited' | 'unavailable' | 'internal';
 
 const statusOf: Record<ErrorId, number> = {
   not_found: 404,
@@ -15,6 +16,7 @@ const statusOf: Record<ErrorId, number> = {
   forbidden: 403,
   too_large: 413,
   key_reused: 422,
+  rate_limited: 429,
   unavailable: 503,
   internal: 500,
 };

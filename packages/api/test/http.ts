@@ -5,8 +5,8 @@
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { createApp } from '../src/app.js';
-import { cellCheckConfig, oauthConfig } from '../src/config.js';
-import type { AuthConfig, CellCheckConfig, OutboxTiming } from '../src/config.js';
+import { cellCheckConfig, oauthConfig, rateLimitConfig } from '../src/config.js';
+import type { AuthConfig, CellCheckConfig, OutboxTiming, RateLimitConfig } from '../src/config.js';
 import { connect } from '../src/db/connection.js';
 import { createRelay } from '../src/mail/mailer.js';
 import { createOutbox } from '../src/mail/outbox.js';
@@ -47,6 +47,8 @@ export interface TestServerOptions {
   devMail?: boolean;
   /** Changes to the budget of the server's cell checks. */
   cellCheck?: Partial<CellCheckConfig>;
+  /** Changes to the rate limits (the rate-limit tests set low ones). */
+  rateLimits?: Partial<RateLimitConfig>;
 }
 
 /** The outbox's pace in tests: retries within milliseconds, the claim of a message long enough for any test. */
@@ -75,6 +77,7 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     outbox,
     mailStandinUrl: options.devMail ? mailboxUrl : null,
     cellCheck: { ...cellCheckConfig(), ...options.cellCheck },
+    rateLimits: { ...rateLimitConfig(), ...options.rateLimits },
   });
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));

@@ -37,6 +37,7 @@ describe('the migrations', () => {
         'mail_log',
         'idempotency_keys',
         'mail_outbox',
+        'rate_limits',
       ]),
     );
   });
@@ -136,6 +137,9 @@ describe('the migrations', () => {
     // the outbox's due messages in order; what was sent or failed in the last day
     expect(index('mail_outbox', 'nextAttemptAt')).toBeDefined();
     expect(index('mail_log', 'status,finishedAt')).toBeDefined();
+    // one rate-limit counter per limiter and client; a limiter's windows long past, to prune
+    expect(index('rate_limits', 'limiter,clientKey')).toMatchObject({ indexName: 'PRIMARY' });
+    expect(index('rate_limits', 'limiter,windowStart')).toBeDefined();
   });
 
   it('refuse what the API never writes: a pin at 0 Hz, on a revision its cell does not have, an unknown review state', async () => {

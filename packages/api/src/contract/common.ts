@@ -49,6 +49,7 @@ export const ErrorIdSchema = z.enum([
   'forbidden',
   'too_large',
   'key_reused',
+  'rate_limited',
   'unavailable',
   'internal',
 ]);

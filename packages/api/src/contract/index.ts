@@ -31,6 +31,10 @@
  * when a reviewer decides, to the earlier people of a pin thread on a reply, and to a person
  * given a role in a notebook; never to someone who turned that kind off in their settings.
  *
+ * Sign-in, writes and reads of notebooks and people are rate-limited per address and per user:
+ * past a limit the answer is 429 `rate_limited` with a `Retry-After` header (seconds), and
+ * `details` says the limit, the window and the wait.
+ *
  * A notebook the caller may not read answers 404 `not_found`, exactly like one that does not
  * exist; one the caller may read but not change answers 403 `forbidden`.
  *

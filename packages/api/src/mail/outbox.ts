@@ -95,6 +95,8 @@ export function createOutbox({ database, relay, timing }: OutboxOptions): Outbox
    */
   let relayDown = true;
   let saidDown = false;
+  /** The last failure of a pass (the database away, say), logged once until a pass succeeds. */
+  let lastPassError = '';
 
   async function claim(db: DataSource): Promise<Claimed[]> {
     // READ COMMITTED: the claim locks only the rows it takes, no gaps that would hold up new mail.
@@ -175,10 +177,13 @@ export function createOutbox({ database, relay, timing }: OutboxOptions): Outbox
           noteRelay(!outcome.ok && outcome.unreachable, outcome.ok ? '' : outcome.error);
           await finish(db, mail, outcome);
         }
-        if (claimed.length < batch && !(await probe(db))) return;
+        if (claimed.length < batch && !(await probe(db))) break;
       }
+      lastPassError = '';
     } catch (error) {
-      console.error('mail: the outbox pass failed:', (error as Error).message);
+      const message = (error as Error).message;
+      if (message !== lastPassError) console.error('mail: the outbox pass failed (it is tried again on the next one):', message);
+      lastPassError = message;
     } finally {
       relay.release();
     }

@@ -6,6 +6,7 @@ import { Notebook } from './notebook.js';
 import { NotebookMember } from './notebook-member.js';
 import { NotebookVersion, NotebookVersionCell } from './notebook-version.js';
 import { Pin, PinComment } from './pin.js';
+import { RateLimitCounter } from './rate-limit-counter.js';
 import { Review, ReviewAssignment, ReviewDecision } from './review.js';
 import { Session } from './session.js';
 import { User } from './user.js';
@@ -29,6 +30,7 @@ export const entities = [
   UserMailSettings,
   MailLogEntry,
   MailOutboxEntry,
+  RateLimitCounter,
 ];
 
 export {
@@ -42,6 +44,7 @@ export {
   NotebookVersionCell,
   Pin,
   PinComment,
+  RateLimitCounter,
   Review,
   ReviewAssignment,
   ReviewDecision,

@@ -14,6 +14,7 @@ import { AddRevisionMessage1764633600012 } from './1764633600012-add-revision-me
 import { LanguageUpdate1764633600013 } from './1764633600013-language-update.js';
 import { AddCellTitle1764633600014 } from './1764633600014-add-cell-title.js';
 import { CreateMailOutbox1764633600030 } from './1764633600030-create-mail-outbox.js';
+import { CreateRateLimits1764633600031 } from './1764633600031-create-rate-limits.js';
 import { CreateIdempotencyKeys1764633600040 } from './1764633600040-create-idempotency-keys.js';
 
 /**
@@ -37,5 +38,6 @@ export const migrations = [
   LanguageUpdate1764633600013,
   AddCellTitle1764633600014,
   CreateMailOutbox1764633600030,
+  CreateRateLimits1764633600031,
   CreateIdempotencyKeys1764633600040,
 ];
