@@ -10,6 +10,7 @@ import { solveCircuit } from './analysis.js';
 import type { SolveOptions } from './analysis.js';
 import { computeReadouts } from './readouts.js';
 import { checkRequirements } from './requirements.js';
+import { analyzeSteps } from './step-results.js';
 import { traceDiagnostics } from './trace-checks.js';
 import { internalError } from './diagnostic.js';
 import { combineVariants, pointShare } from './variants.js';
@@ -46,13 +47,14 @@ export function analyzeCircuit(circuit: Circuit, options: AnalyzeOptions & Solve
     }
     const perTrace = analysis.traces.map((t) => computeReadouts(analysis, t));
     const checked = checkRequirements(circuit, analysis, perTrace);
+    const timed = analyzeSteps(circuit, analysis.evaluator.system, checked.results);
     return {
-      diagnostics: [...diagnostics, ...traceDiagnostics(circuit, analysis), ...checked.diagnostics],
+      diagnostics: [...diagnostics, ...traceDiagnostics(circuit, analysis), ...checked.diagnostics, ...timed.diagnostics],
       frequencies: analysis.frequencies,
       traces: analysis.traces.map((t) => t.result),
-      readouts: perTrace.flatMap((r) => r.readouts),
-      requirements: checked.results,
-      steps: [],
+      readouts: [...perTrace.flatMap((r) => r.readouts), ...timed.readouts],
+      requirements: timed.requirements,
+      steps: timed.steps,
       poles: [],
       zeros: [],
       envelope: [],

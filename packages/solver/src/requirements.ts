@@ -57,7 +57,8 @@ export function checkRequirements(
     const r = checkOne(circuit, req, analysis, readouts);
     results.push(r.result);
     const where = { line: req.range.line, column: req.range.column, endColumn: req.range.endColumn };
-    // A requirement on a step or noise trace is not evaluated yet; the elaborator says so on its line.
+    // A requirement on a step trace is checked by step-results.ts, which says what it cannot check;
+    // one on a noise trace is not evaluated yet, and the elaborator says so on its line.
     const said = circuit.traces[req.trace]?.kind === 'step' || circuit.traces[req.trace]?.kind === 'noise';
     if (r.warning && !said) diagnostics.push({ severity: 'warning', ...where, message: r.warning, code: 'requirement-not-checked' });
     const m = r.result.measured;
@@ -138,11 +139,9 @@ function passes(band: RequirementResult['band'], m: number): boolean {
 
 function measure(circuit: Circuit, req: RequirementSpec, band: RequirementResult['band'], analysis: AcAnalysis | null, readouts: TraceReadouts[]): Measured {
   const notApplicable = (why: string): Measured => ({ notApplicable: why });
-  if (req.measure === 'settling' || req.measure === 'overshoot') {
-    return notApplicable(`${req.measure} needs the step response, which is not computed yet`);
-  }
   const spec = circuit.traces[req.trace];
   if (!spec) return notApplicable('this requirement names a trace that does not exist');
+  if (spec.kind === 'step') return notApplicable(`${spec.label} is a step response, checked in the time domain`);
   const trace = analysis?.traces.find((t) => t.plan.specIndex === req.trace);
   if (!analysis || !trace) return notApplicable(`the trace ${spec.label} has no AC result`);
   const where = MEASURE_WHERE[req.measure];

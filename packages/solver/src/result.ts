@@ -67,7 +67,12 @@ export type ReadoutId =
   | 'phase-margin'
   | 'phase-crossover'
   | 'gain-margin'
-  | 'min-impedance';
+  | 'min-impedance'
+  | 'final'
+  | 't63'
+  | 'rise-time'
+  | 'settling'
+  | 'overshoot';
 
 /**
  * The one name of each readout wherever a person reads it: the readouts panel, the plot's
@@ -89,6 +94,11 @@ export const READOUT_NAMES: Readonly<Record<ReadoutId, string>> = {
   'phase-crossover': 'phase crossover',
   'gain-margin': 'gain margin',
   'min-impedance': 'minimum impedance',
+  final: 'final value',
+  t63: 't63',
+  'rise-time': 'rise time',
+  settling: 'settling time',
+  overshoot: 'overshoot',
 };
 
 export interface Readout {
@@ -163,8 +173,17 @@ export interface RequirementResult {
   variants?: { worst: number; failed: number[] };
 }
 
+/**
+ * A `show step` trace: the response to a step of the drive from 0 to its amplitude at t = 0,
+ * at rest before it; at t = 0 the value just after the step.
+ */
 export interface StepResult {
   label: string;
+  /** The expression as written in the `show step` line. */
+  expr: string;
+  /** "V", "A", or "V/V" for a ratio of two node voltages. */
+  unit: string;
+  /** Seconds, evenly spaced over the window. */
   times: NumberArray;
   values: NumberArray;
 }

@@ -165,7 +165,8 @@ export const CONNECTIVES = {
 
 /**
  * What a requirement measures, with the unit of its value: '' for a plain number (Q), null
- * for the trace's own unit (magnitude). Every readout a trace shows is a measure too.
+ * for the trace's own unit (magnitude, a step's final value and its value at a time). Every
+ * readout a trace shows is a measure too.
  */
 export const MEASURES = {
   gain: 'dB',
@@ -189,6 +190,10 @@ export const MEASURES = {
   'gain-margin': 'dB',
   settling: 's',
   overshoot: '%',
+  final: null,
+  t63: 's',
+  'rise-time': 's',
+  value: null,
   ripple: 'dB',
   'min-attenuation': 'dB',
   'insertion-loss': 'dB',
@@ -203,7 +208,7 @@ export type Measure = keyof typeof MEASURES;
 /**
  * Where a measure is read: `point`, at each point (`over` a range or `at` one frequency,
  * else over the whole sweep); `band`, one number over the band it needs (`over`); `at`, at
- * the one frequency it needs; `within`, one feature (a notch, an anti-resonance) of the
+ * the one frequency it needs (for `value` of a step, the one time); `within`, one feature (a notch, an anti-resonance) of the
  * sweep or of the band an optional `over` gives; `trace`, one number for the whole trace.
  */
 export type MeasureWhere = 'point' | 'band' | 'at' | 'within' | 'trace';
@@ -229,6 +234,10 @@ export const MEASURE_WHERE: Readonly<Record<Measure, MeasureWhere>> = {
   'gain-margin': 'trace',
   settling: 'trace',
   overshoot: 'trace',
+  final: 'trace',
+  t63: 'trace',
+  'rise-time': 'trace',
+  value: 'at',
   ripple: 'band',
   'min-attenuation': 'band',
   'insertion-loss': 'at',
@@ -247,6 +256,10 @@ export const MEASURE_TRACE: Readonly<Partial<Record<Measure, 'loop' | 'step' | '
   'gain-margin': 'loop',
   settling: 'step',
   overshoot: 'step',
+  final: 'step',
+  t63: 'step',
+  'rise-time': 'step',
+  value: 'step',
   'min-impedance': 'impedance',
   'max-impedance': 'impedance',
   'anti-resonance': 'impedance',

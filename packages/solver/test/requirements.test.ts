@@ -102,14 +102,6 @@ require loop d gain-margin >= 10 dB
     expect(r.requirements[0].status).toBe('not-applicable');
     expect(r.diagnostics.find((d) => d.line === 7 && d.severity === 'warning')!.message).toContain('a lower and an upper corner');
   });
-
-  it('settling and overshoot are not computed yet: not applicable, never a pass', () => {
-    const r = analyze(RC + 'show step out\nrequire "step out" overshoot <= 5%');
-    expect(r.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
-    expect(r.requirements[0].status).toBe('not-applicable');
-    expect(Number.isNaN(r.requirements[0].measured)).toBe(true);
-    expect(r.diagnostics.some((d) => d.severity === 'warning' && d.line === 9)).toBe(true);
-  });
 });
 
 describe('what a requirement result carries', () => {

@@ -28,7 +28,7 @@ export function requireStatement(cx: Elaboration, st: RequireStatement, shows: S
       st.measure.range,
       'wrong-measure',
       `${measure} is a frequency-domain measure; ${trace.label} is a step response`,
-      'a step response takes settling and overshoot',
+      'a step response takes final, t63, rise-time, settling, overshoot and value … at T',
     );
     return null;
   }
@@ -93,17 +93,15 @@ export function requireStatement(cx: Elaboration, st: RequireStatement, shows: S
     spec.over = over;
   }
   if (st.at !== null) {
-    const f = read(cx, cx.top, st.at, line, hz);
-    if (f === null) return null;
-    if (!bound(cx, st.at, f >= 0, 'a frequency cannot be negative')) return null;
-    spec.at = f;
+    // A step response is read at a time, everything else at a frequency.
+    const step = trace.kind === 'step';
+    const at = read(cx, cx.top, st.at, line, step ? { says: 'a step response is read at a time, in s', units: ['s'], example: '5m' } : hz);
+    if (at === null) return null;
+    if (!bound(cx, st.at, at >= 0, step ? 'a time cannot be negative: the step is at 0 s' : 'a frequency cannot be negative')) return null;
+    spec.at = at;
   }
-  if (trace.kind === 'step' || trace.kind === 'noise') {
-    cx.warn(
-      st.range,
-      'not-available',
-      `requirements on ${trace.kind === 'step' ? 'step responses' : 'noise'} are not available yet: this one is checked but not evaluated`,
-    );
+  if (trace.kind === 'noise') {
+    cx.warn(st.range, 'not-available', 'requirements on noise are not available yet: this one is checked but not evaluated');
   }
   return spec;
 }
@@ -160,7 +158,8 @@ function placeFits(cx: Elaboration, st: RequireStatement, measure: Measure, wher
     return false;
   }
   if (where === 'at' && st.at === null) {
-    cx.error(st.over?.range ?? st.range, 'missing-frequency', `${measure} is read at one frequency, so it needs one`, write(' at F'));
+    const one = measure === 'value' ? 'time' : 'frequency';
+    cx.error(st.over?.range ?? st.range, `missing-${one}`, `${measure} is read at one ${one}, so it needs one`, write(measure === 'value' ? ' at T' : ' at F'));
     return false;
   }
   if ((where === 'trace' && (st.over !== null || st.at !== null)) || (where === 'within' && st.at !== null)) {
@@ -184,7 +183,13 @@ function measureSlot(measure: Measure, trace: TraceSpec): Slot {
   const unit = MEASURES[measure];
   if (unit === null) {
     const units: Unit[] =
-      trace.unit === 'Ω' || trace.unit === 'V/A' ? ['Ω'] : trace.unit === 'A/V' || trace.unit === 'A/A' ? ['A'] : trace.unit === 'V/√Hz' ? ['V'] : [];
+      trace.unit === 'Ω' || trace.unit === 'V/A'
+        ? ['Ω']
+        : trace.unit === 'A/V' || trace.unit === 'A/A' || trace.unit === 'A'
+          ? ['A']
+          : trace.unit === 'V/√Hz' || trace.unit === 'V'
+            ? ['V']
+            : [];
     return { says: `the magnitude of ${trace.label} is in ${trace.unit}`, units, unit: trace.unit };
   }
   const { in: written, units, example } = MEASURE_UNIT_WORDS[unit];

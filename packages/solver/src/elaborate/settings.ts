@@ -141,7 +141,7 @@ function noteDcPoint(cx: Elaboration, range: SourceRange): void {
   );
 }
 
-/** The time window of a `time` line (checked, not computed yet). */
+/** The time window of a `time` line, for step traces. */
 export function timeStatement(cx: Elaboration, st: TimeStatement): Circuit['time'] {
   const line = st.range.line;
   const s: Slot = { says: 'a time window is in s', units: ['s'], example: '10m' };
@@ -167,12 +167,6 @@ export function timeStatement(cx: Elaboration, st: TimeStatement): Circuit['time
     if (n === null) return null;
     points = n;
   }
-  cx.warn(
-    st.range,
-    'not-available',
-    'the time window is not available yet: it is for step responses, which a later version adds',
-    'the line is checked but has no effect',
-  );
   return points === undefined ? { from, to } : { from, to, points };
 }
 

@@ -112,14 +112,9 @@ export function showStatement(cx: Elaboration, st: ShowStatement): TraceSpec | n
       cx.warn(st.range, 'not-available', 'noise results are not available yet: this trace is checked but not computed', 'a later version adds output noise');
       break;
     case 'step':
+      // The response to a step of the drive's own amplitude: in V or A, not per unit of drive.
       kind = 'step';
-      unit = e.kind === 'ratio' ? 'V/V' : e.kind === 'current' ? (current ? 'A/A' : 'A/V') : current ? 'V/A' : 'V/V';
-      cx.warn(
-        st.range,
-        'not-available',
-        'step responses are not available yet: this trace is checked but not computed',
-        'a later version adds the time domain',
-      );
+      unit = e.kind === 'ratio' ? 'V/V' : e.kind === 'current' ? 'A' : 'V';
       break;
     default:
       if (e.kind === 'impedance') {
