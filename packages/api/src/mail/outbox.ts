@@ -181,7 +181,9 @@ export function createOutbox({ database, relay, timing }: OutboxOptions): Outbox
       }
       lastPassError = '';
     } catch (error) {
-      const message = (error as Error).message;
+      const { message, code, driverError } = error as Error & { code?: string; driverError?: { code?: string } };
+      // Another process took the same rows at the same moment (a Galera cluster refuses one claim at commit): the next pass tries again.
+      if ((code ?? driverError?.code) === 'ER_LOCK_DEADLOCK') return;
       if (message !== lastPassError) console.error('mail: the outbox pass failed (it is tried again on the next one):', message);
       lastPassError = message;
     } finally {
@@ -243,8 +245,8 @@ export function createOutbox({ database, relay, timing }: OutboxOptions): Outbox
       const db = await database();
       const since = new Date(Date.now() - day);
       const [counts]: { queued: string; oldestQueuedAt: Date | null; sent: string; failed: string }[] = await db.query(
-        `SELECT (SELECT COUNT(*) FROM mail_log WHERE status = 'queued') AS queued,
-                (SELECT MIN(createdAt) FROM mail_log WHERE status = 'queued') AS oldestQueuedAt,
+        `SELECT (SELECT COUNT(*) FROM mail_outbox) AS queued,
+                (SELECT MIN(l.createdAt) FROM mail_outbox o JOIN mail_log l ON l.id = o.mailLogId) AS oldestQueuedAt,
                 (SELECT COUNT(*) FROM mail_log WHERE status = 'sent' AND finishedAt >= ?) AS sent,
                 (SELECT COUNT(*) FROM mail_log WHERE status = 'failed' AND finishedAt >= ?) AS failed`,
         [since, since],
