@@ -100,8 +100,14 @@ export function innerExtreme(view: TraceView, measure: PointMeasure, from: numbe
   const samples = sampleRange(view, measure, from, to);
   const missing = samples.find((s) => Number.isNaN(s.m));
   if (missing) return { value: NaN, at: missing.f };
+  // A grid point better than both neighbours counts too: refinement cannot start from an exact null, whose slope has no value.
+  const inner: Extreme[] = [];
+  for (let q = 1; q + 1 < samples.length; q++) {
+    const m = samples[q].m;
+    if (better(want, m, samples[q - 1].m) && better(want, m, samples[q + 1].m)) inner.push({ value: m, at: samples[q].f });
+  }
   let best: Extreme | null = null;
-  for (const e of refinedExtrema(view, measure, samples, want)) {
+  for (const e of [...inner, ...refinedExtrema(view, measure, samples, want)]) {
     if (e.at > from && e.at < to && (best === null || better(want, e.value, best.value))) best = e;
   }
   return best;

@@ -403,3 +403,15 @@ describe('a range measure is never better than a 10× finer sweep sees', { timeo
     );
   });
 });
+
+describe('a notch on a sweep point', () => {
+  it('is never read shallower than the sweep point itself, and a flat response has no notch [TT-a: the twin-T null at 1/(2πRC) on the grid]', () => {
+    const f0 = 1 / (TWO_PI * 10e3 * 10e-9);
+    const fs = [100, 500, 1000, f0, 2000, 5000, 10000].map((f) => f.toPrecision(17)).join(', ');
+    const r = run(`${TWIN_T}sweep at ${fs}\nrequire out notch-depth >= 60 dB\nrequire out notch-frequency = 1591.5 ± 0.1%`);
+    const [depth, frequency] = r.requirements;
+    expect(depth.measured).toBeGreaterThanOrEqual(-r.traces[0].magnitudeDb[3]);
+    expect(rel(frequency.measured, f0)).toBeLessThan(1e-9);
+    notApplicable(analyze('drive in\nR1 [in out] 1k\nR2 [out gnd] 1k\nshow out\nrequire out notch-depth >= 1 dB'), /no notch in the sweep/);
+  });
+});
