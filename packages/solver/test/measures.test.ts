@@ -349,8 +349,12 @@ describe('maximum impedance and its anti-resonance', () => {
     }
   });
 
-  it('n/a with the reason: one capacitor has no anti-resonance', () => {
+  it('n/a with the reason: one capacitor has no peak, so no max-impedance and no anti-resonance', () => {
     notApplicable(analyze('C1 [a gnd] 1u esl 1n esr 1m\nshow impedance a\nrequire impedance a max-impedance <= 1'), /no peak \(anti-resonance\)/);
+    notApplicable(
+      analyze('C1 [a gnd] 1u esl 1n esr 1m\nshow impedance a\nrequire impedance a anti-resonance >= 1M'),
+      /no peak \(anti-resonance\) in the sweep/,
+    );
   });
 });
 
