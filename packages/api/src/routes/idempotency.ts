@@ -45,7 +45,8 @@ async function keep(request: KeyedRequest, answer: Answer): Promise<void> {
   try {
     await recordAnswer((await connect()).manager, request, answer.status, answer.body);
   } catch (error) {
-    if ((error as { code?: string; driverError?: { code?: string } }).driverError?.code !== 'ER_DUP_ENTRY') throw error;
+    const failure = error as { code?: string; driverError?: { code?: string } };
+    if ((failure.code ?? failure.driverError?.code) !== 'ER_DUP_ENTRY') throw error;
   }
 }
 
