@@ -10,9 +10,9 @@ import { ensureDebianPackages } from './system.mjs';
 import { isPortFree, requireFreePort } from './ports.mjs';
 import { startService } from './run.mjs';
 
-const SERVER_CANDIDATES = ['mariadbd', '/usr/sbin/mariadbd', 'mysqld', '/usr/sbin/mysqld'];
+export const SERVER_CANDIDATES = ['mariadbd', '/usr/sbin/mariadbd', 'mysqld', '/usr/sbin/mysqld'];
 
-function findBinary(candidates) {
+export function findBinary(candidates) {
   for (const candidate of candidates) {
     if (candidate.includes('/') ? existsSync(candidate) : spawnSync('sh', ['-c', `command -v ${candidate}`]).status === 0) {
       return candidate;
@@ -27,20 +27,20 @@ export async function ensureMariadbInstalled() {
   await ensureDebianPackages({ 'mariadb-install-db': 'mariadb-server' }, 'the private MariaDB server');
 }
 
-function tail(file, lines) {
+export function tail(file, lines) {
   if (!existsSync(file)) return '(no error log was written)';
   return readFileSync(file, 'utf8').trimEnd().split('\n').slice(-lines).join('\n');
 }
 
 // Unix socket paths are limited to about 107 bytes; fall back to the temp folder.
-function socketPath(dataDir) {
+export function socketPath(dataDir) {
   const inside = path.join(dataDir, 'mariadb.sock');
   if (inside.length < 100) return inside;
   const hash = createHash('sha1').update(dataDir).digest('hex').slice(0, 12);
   return path.join(os.tmpdir(), `rolloff-${hash}.sock`);
 }
 
-function client(socket, sql) {
+export function client(socket, sql) {
   return spawnSync('mariadb', ['--no-defaults', `--socket=${socket}`, '-uroot', '-e', sql], { encoding: 'utf8' });
 }
 

@@ -4,6 +4,7 @@
  */
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ACQUIRE_TIMEOUT } from './db/request-timeouts.js';
+import { isRetryable } from './db/retryable.js';
 
 export type ErrorId =
   'not_found' | 'validation' | 'conflict' | 'unauthenticated' | 'forbidden' | 'too_large' | 'key_reused' | 'rate_limited' | 'unavailable' | 'internal';
@@ -75,12 +76,21 @@ function fromBodyParser(error: BodyParserError): ApiError | null {
 const unreachable = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'PROTOCOL_CONNECTION_LOST', 'ER_CON_COUNT_ERROR']);
 /** The time limits of db/request-timeouts.ts: the pool's, the driver's and MariaDB's own. */
 const tooSlow = new Set([ACQUIRE_TIMEOUT, 'PROTOCOL_SEQUENCE_TIMEOUT', 'ER_STATEMENT_TIMEOUT']);
+/** MariaDB errors mysql2 gives no code name, by number: 1969 is max_statement_time's. */
+const unnamed: Record<number, string> = { 1969: 'ER_STATEMENT_TIMEOUT' };
 
-/** A database that cannot be reached is a 503 the client may retry, not an internal error. */
-function fromDatabase(error: { code?: string; driverError?: { code?: string } } | null): ApiError | null {
-  const code = error?.code ?? error?.driverError?.code;
+interface DatabaseError {
+  code?: string;
+  errno?: number;
+  driverError?: { code?: string; errno?: number };
+}
+
+/** A database that cannot be reached, is too slow or too busy is a 503 the client may retry, not an internal error. */
+function fromDatabase(error: DatabaseError | null): ApiError | null {
+  const code = error?.code ?? error?.driverError?.code ?? unnamed[error?.errno ?? error?.driverError?.errno ?? 0];
   if (code && unreachable.has(code)) return unavailable('The database is not answering; try again in a moment.');
   if (code && tooSlow.has(code)) return unavailable('The database did not answer in time; try again in a moment.');
+  if (isRetryable(error)) return unavailable('The database was too busy to finish this; nothing was changed. Try again in a moment.');
   return null;
 }
 
@@ -93,7 +103,7 @@ export const errorMiddleware: ErrorRequestHandler = (error: unknown, _req, res, 
     if (!res.writableEnded) res.destroy();
     return;
   }
-  const known = error instanceof ApiError ? error : (fromBodyParser(error as BodyParserError) ?? fromDatabase(error as { code?: string }));
+  const known = error instanceof ApiError ? error : (fromBodyParser(error as BodyParserError) ?? fromDatabase(error as DatabaseError));
   if (!known) {
     console.error(error);
     res.status(500).json({ error: 'internal', message: 'Something went wrong on our side.' });

@@ -1,6 +1,7 @@
 /** The database handle services take, and transactions with a retry on deadlock. */
 import { DataSource } from 'typeorm';
 import type { EntityManager } from 'typeorm';
+import { isRetryable } from '../db/retryable.js';
 
 /**
  * What a service runs on: the DataSource (each service call is its own transaction), or the
@@ -13,16 +14,18 @@ export function managerOf(db: Database): EntityManager {
   return db instanceof DataSource ? db.manager : db;
 }
 
-const retryable = new Set(['ER_LOCK_DEADLOCK', 'ER_LOCK_WAIT_TIMEOUT']);
-
-function isRetryable(error: unknown): boolean {
-  const e = error as { code?: string; driverError?: { code?: string } };
-  return retryable.has(e?.code ?? '') || retryable.has(e?.driverError?.code ?? '');
-}
+/**
+ * How often a refused transaction is tried in all, and the longest pause between tries. On one
+ * server a deadlock is rare; on a Galera cluster every commit that loses the race for a row
+ * another node changed first is refused the same way, so a busy notebook sees several in a row.
+ */
+export const transactionRetry = { attempts: 8, maxPauseMs: 250 };
 
 /**
- * Runs `work` in one transaction; a deadlock victim is retried a few times. Inside a
- * transaction that is already open, `work` simply joins it.
+ * Runs `work` in one transaction. A transaction refused as a deadlock victim (or, on a Galera
+ * cluster, by certification at commit, which reports the same error) was rolled back whole,
+ * so it is run again, whole, after a random pause that grows with each try. Inside a
+ * transaction that is already open, `work` simply joins it (and the outer one is retried).
  */
 export async function inTransaction<T>(db: Database, work: (manager: EntityManager) => Promise<T>): Promise<T> {
   if (!(db instanceof DataSource)) {
@@ -32,8 +35,9 @@ export async function inTransaction<T>(db: Database, work: (manager: EntityManag
     try {
       return await db.transaction(work);
     } catch (error) {
-      if (attempt >= 4 || !isRetryable(error)) throw error;
-      await new Promise((resolve) => setTimeout(resolve, 5 + Math.random() * 20 * attempt));
+      if (attempt >= transactionRetry.attempts || !isRetryable(error)) throw error;
+      const ceiling = Math.min(transactionRetry.maxPauseMs, 10 * 2 ** attempt);
+      await new Promise((resolve) => setTimeout(resolve, Math.random() * ceiling));
     }
   }
 }
