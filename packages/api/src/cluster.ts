@@ -65,9 +65,7 @@ function runPrimary(count: number): void {
     const how = signal ? `signal ${signal}` : `exit code ${code}`;
     earlyDeaths = listened === null || Date.now() - listened < restartPolicy.earlyDeathMs ? earlyDeaths + 1 : 0;
     if (earlyDeaths >= restartPolicy.maxEarlyDeaths) {
-      console.error(
-        `Server workers keep stopping as they start (${earlyDeaths} times in a row, the last with ${how}); ` + 'giving up. The messages above say why.',
-      );
+      console.error(`Server workers keep stopping as they start (${earlyDeaths} times in a row, the last with ${how}); giving up. The messages above say why.`);
       stop(1);
       return;
     }
