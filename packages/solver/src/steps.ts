@@ -10,7 +10,7 @@ import { createLinearSolver } from './linear-solver.js';
 import { descriptorSystem, readStep } from './time-system.js';
 import type { DescriptorSystem, StepReader } from './time-system.js';
 import { diagnostic, internalError } from './diagnostic.js';
-import { integrateStep } from './time-response.js';
+import { RELATIVE_TOLERANCE, integrateStep } from './time-response.js';
 import { naturalTime } from './time-window.js';
 import { formatSi } from './units.js';
 
@@ -98,6 +98,19 @@ export function solveSteps(circuit: Circuit, mna: MnaSystem, extraTimes: number[
       if (extraSet.has(t)) at[r].set(t, v);
     });
   });
+  if (run.ok && run.tolerance > RELATIVE_TOLERANCE) {
+    diagnostics.push(
+      diagnostic(
+        first,
+        'step-tolerance',
+        `the step response rings for so long in its window that it is computed to about ${run.tolerance.toExponential(0)} of its size, not 1e-9`,
+        {
+          severity: 'info',
+          hint: 'a shorter time window is computed more exactly',
+        },
+      ),
+    );
+  }
   if (!run.ok) {
     diagnostics.push(
       diagnostic(first, 'step-failed', `the step response stops early: ${run.reason}`, { severity: 'warning', hint: 'the points after that have no value' }),

@@ -28,7 +28,14 @@ const BDF_A = 1 / (GAMMA * (2 - GAMMA));
 const BDF_B = ((1 - GAMMA) * (1 - GAMMA)) / (GAMMA * (2 - GAMMA));
 
 /** Each step's local error, relative to the size of the state it is in. */
-const RELATIVE_TOLERANCE = 1e-9;
+export const RELATIVE_TOLERANCE = 1e-9;
+/**
+ * Steps an integration may take before it loosens its tolerance tenfold (pro rata over the
+ * time it has covered), down to `LOOSEST_TOLERANCE`: a response that rings for thousands of
+ * periods in its window is drawn in a moment, a little less exactly, rather than in minutes.
+ */
+const STEP_BUDGET = 100_000;
+const LOOSEST_TOLERANCE = 1e-5;
 /** A state below this fraction of the largest of its group is measured against that fraction. */
 const ERROR_FLOOR = 1e-6;
 /** The start's backward-Euler steps, as a fraction of the last time asked for. */
@@ -38,7 +45,8 @@ const MAX_HALVINGS = 60;
 /** Factored matrices kept at once. */
 const MAX_MATRICES = 48;
 
-export type Integration = { ok: true } | { ok: false; reason: string };
+/** `tolerance`: the loosest relative tolerance the steps kept to. */
+export type Integration = { ok: true; tolerance: number } | { ok: false; reason: string };
 
 /**
  * Integrates from rest and calls `visit(k, z)` with the state at each `times[k]` (ascending,
@@ -76,6 +84,10 @@ export function integrateStep(
   for (; k < times.length && times[k] <= t; k++) visit(k, z);
   let segment = NaN;
   let depth = 0;
+  let tolerance = RELATIVE_TOLERANCE;
+  let steps = 0;
+  const from = t;
+  const span = end - from;
   for (; k < times.length; k++) {
     const length = times[k] - t;
     // Equal output intervals differ in their last bits; one length keeps the factored matrices in use.
@@ -97,7 +109,11 @@ export function integrateStep(
       const halfDeriv = half === null ? null : work.rate(half);
       const two = half === null || halfDeriv === null ? null : work.trBdf2(half, halfDeriv, h / 2);
       if (full === null || two === null) return { ok: false, reason: 'the network’s equations are singular in the time domain' };
-      const error = work.error(full, two);
+      if (++steps > STEP_BUDGET * Math.max(0.1, (t + done * segment - from) / span) && tolerance < LOOSEST_TOLERANCE) {
+        tolerance *= 10;
+        steps = 0;
+      }
+      const error = work.error(full, two) * (RELATIVE_TOLERANCE / tolerance);
       if (!Number.isFinite(error)) return { ok: false, reason: 'the response grows without bound: the network is unstable' };
       if (error > 1) {
         if (++depth > MAX_HALVINGS) return { ok: false, reason: 'the time steps became too small to follow the response' };
@@ -113,7 +129,7 @@ export function integrateStep(
     t = times[k];
     visit(k, z);
   }
-  return { ok: true };
+  return { ok: true, tolerance };
 }
 
 /** The arithmetic of one integration: factored matrices by coefficient, work vectors, error scales. */

@@ -17,6 +17,8 @@ const KRYLOV = 12;
 const SHIFT = 1e-9;
 /** A mode this close to s = 0 (in units of the shift) integrates rather than decays. */
 const ZERO_MODE = 10;
+/** A Ritz value μ below this fraction of the largest is a mode at s = ∞. */
+const INFINITE_MODE = 1e-9;
 /** A lightly damped mode counts with at most this many of its periods (÷ 2π) as its time constant. */
 const MAX_Q_TIME = 100;
 
@@ -53,9 +55,11 @@ export function naturalTime(system: DescriptorSystem): { tau: number | null; gro
   const mu = ritzValues(apply, apply(start), Math.min(KRYLOV, n));
   let slowest: number | null = null;
   let growing = false;
+  // μ ≈ 0 is s = ∞: an algebraic unknown, not a mode (rounding gives it any sign).
+  const largest = mu.reduce((a, m) => Math.max(a, Math.hypot(m.re, m.im)), 0);
   for (const m of mu) {
     const size = m.re * m.re + m.im * m.im;
-    if (!(size > 0)) continue;
+    if (!(Math.sqrt(size) > INFINITE_MODE * largest)) continue;
     // s = σ − 1/μ
     const re = sigma - m.re / size;
     const im2 = m.im / size;

@@ -146,3 +146,84 @@ show step d
     expect(readout(r, 'step d', 'overshoot').value).toBe(0);
   });
 });
+
+describe('a series RLC, underdamped', () => {
+  // R = 100 Ω, L = 10 mH, C = 1 µF: ωn = 1/√(LC) = 10⁴ rad/s, ζ = (R/2)·√(C/L) = 0.5.
+  const zeta = 0.5;
+  const wn = 1e4;
+  const wd = wn * Math.sqrt(1 - zeta * zeta);
+  const cell = 'drive in\nR1 [in a] 100\nL1 [a b] 10m\nC1 [b gnd] 1u\nshow step b\n';
+
+  it('follows the second-order step to 1e-6 of its final value [textbook: y = 1 − e^(−ζωn·t)·(cos ωd·t + ζ/√(1−ζ²)·sin ωd·t)]', () => {
+    const s = step(run(cell + 'time 0 .. 2m, 801 points\n'), 'step b');
+    const exact = (t: number): number => 1 - Math.exp(-zeta * wn * t) * (Math.cos(wd * t) + (zeta / Math.sqrt(1 - zeta * zeta)) * Math.sin(wd * t));
+    for (let k = 0; k < s.times.length; k++) expect(Math.abs(s.values[k] - exact(s.times[k]))).toBeLessThan(1e-6);
+  });
+
+  it('overshoots by exp(−πζ/√(1−ζ²)) = 16.3034 % [textbook second-order step overshoot]', () => {
+    const r = run(cell);
+    const expected = 100 * Math.exp((-Math.PI * zeta) / Math.sqrt(1 - zeta * zeta));
+    expect(rel(readout(r, 'step b', 'overshoot').value, expected)).toBeLessThan(1e-6);
+    expect(readout(r, 'step b', 'overshoot').unit).toBe('%');
+    expect(rel(readout(r, 'step b', 'final').value, 1)).toBeLessThan(1e-12);
+  });
+});
+
+describe('an op-amp with its gain–bandwidth pole', () => {
+  it('a follower steps as one pole at GBW·(1 + 1/G) [from A(s) = G/(1 + s·G/ωt): H = A/(1 + A), a first-order step]', () => {
+    const G = 1e5;
+    const wt = 2 * Math.PI * 1e6;
+    const r = run('drive in\nU1 [in out out] opamp gain 100dB gbw 1M\nshow step out\n');
+    const s = step(r, 'step out');
+    const k = G / (1 + G);
+    const rate = (wt * (1 + G)) / G;
+    expect(worstError(s, (t) => k * (1 - Math.exp(-rate * t)))).toBeLessThan(1e-6);
+    expect(rel(readout(r, 'step out', 't63').value, 1 / rate)).toBeLessThan(1e-6);
+    expect(rel(s.times[s.times.length - 1], 10 / rate)).toBeLessThan(1e-6);
+  });
+
+  it('a second pole adds the overshoot of a second-order loop [textbook: ωt·p2 loop, ζ = ½·√(p2/ωt)]', () => {
+    // A(s) = ωt/(s·(1 + s/p2)) around unity feedback: s² + p2·s + ωt·p2, so ωn = √(ωt·p2), ζ = p2/(2ωn).
+    const wt = 2 * Math.PI * 1e6;
+    const p2 = 2 * Math.PI * 1e6;
+    const zeta = p2 / (2 * Math.sqrt(wt * p2));
+    const r = run('drive in\nU1 [in out out] opamp gbw 1M pole2 1M\nshow step out\n');
+    const expected = 100 * Math.exp((-Math.PI * zeta) / Math.sqrt(1 - zeta * zeta));
+    expect(rel(readout(r, 'step out', 'overshoot').value, expected)).toBeLessThan(1e-6);
+  });
+});
+
+describe('coupled inductors', () => {
+  it('follow the two-mesh solution [textbook coupled meshes, K·i′ = u − R·i, solved with Sylvester’s formula for e^(At)]', () => {
+    const [L1, L2, k, R1, R2] = [1e-3, 1e-3, 0.98, 50, 1e3];
+    const M = k * Math.sqrt(L1 * L2);
+    const r = run(
+      `drive in\nR1 [in p] 50\nL1 [p gnd] 1m\nL2 [s gnd] 1m\ncouple L1 L2 0.98\nR2 [s gnd] 1k\nshow step s\nshow step current L1\ntime 0 .. 200u, 401 points\n`,
+    );
+    // A = −K⁻¹·R with K = [[L1, M], [M, L2]], R = diag(R1, R2); x∞ = (1/R1, 0); x(t) = x∞ − e^(At)·x∞.
+    const det = L1 * L2 - M * M;
+    const a = [
+      [(-L2 * R1) / det, (M * R2) / det],
+      [(M * R1) / det, (-L1 * R2) / det],
+    ];
+    const tr = a[0][0] + a[1][1];
+    const dt = a[0][0] * a[1][1] - a[0][1] * a[1][0];
+    const l1 = tr / 2 + Math.sqrt((tr * tr) / 4 - dt);
+    const l2 = tr / 2 - Math.sqrt((tr * tr) / 4 - dt);
+    const x = (t: number): number[] => {
+      const e1 = Math.exp(l1 * t);
+      const e2 = Math.exp(l2 * t);
+      const m = (i: number, j: number): number => (e1 * (a[i][j] - (i === j ? l2 : 0)) - e2 * (a[i][j] - (i === j ? l1 : 0))) / (l1 - l2);
+      const xi = 1 / R1;
+      return [xi - m(0, 0) * xi, -m(1, 0) * xi];
+    };
+    const i1 = step(r, 'step current L1');
+    const vs = step(r, 'step s');
+    expect(i1.unit).toBe('A');
+    for (let q = 0; q < i1.times.length; q++) {
+      const [c1, c2] = x(i1.times[q]);
+      expect(Math.abs(i1.values[q] - c1)).toBeLessThan(1e-6 / R1);
+      expect(Math.abs(vs.values[q] - -R2 * c2)).toBeLessThan(1e-6);
+    }
+  });
+});
