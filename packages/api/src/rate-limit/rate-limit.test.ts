@@ -2,6 +2,7 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { ErrorBodySchema } from '../contract/common.js';
 import type { RateLimitConfig } from '../config.js';
 import { connect, disconnect } from '../db/connection.js';
+import { createDataSource } from '../db/data-source.js';
 import { Client, signedIn } from '../../test/client.js';
 import type { Reply } from '../../test/client.js';
 import { buildUser } from '../../test/factories.js';
@@ -96,5 +97,17 @@ describe('rate limits', () => {
     await new Promise((resolve) => setTimeout(resolve, 350));
     expect((await store.increment('ip:192.0.2.1')).totalHits).toBe(1);
     expect(await store.get('ip:192.0.2.2')).toBeUndefined();
+  });
+
+  it('count every hit once when two processes hit at the same moment', async () => {
+    const other = createDataSource();
+    await other.initialize();
+    const options = { windowMs: minute } as Parameters<MariaDbStore['init']>[0];
+    const stores = [new MariaDbStore('test-race', connect), new MariaDbStore('test-race', async () => other)];
+    stores.forEach((store) => store.init(options));
+    const hits = await Promise.all(Array.from({ length: 40 }, (_, i) => stores[i % 2]!.increment('user:1')));
+    await other.destroy();
+    // Each hit saw its own count: none lost, none counted twice.
+    expect(hits.map((hit) => hit.totalHits).toSorted((a, b) => a - b)).toEqual(Array.from({ length: 40 }, (_, i) => i + 1));
   });
 });
