@@ -2,8 +2,10 @@
 /**
  * The `rolloff` command line.
  *
- *   rolloff solve FILE|- [--json | --csv] [--trace LABEL]
+ *   rolloff solve FILE|- [--json | --csv [--time]] [--trace LABEL]
  *   rolloff check FILE|- [--json]
+ *
+ * `--csv` prints the frequency table; with `--time`, the step traces' table instead.
  *
  * Exit status: 0 no errors and every requirement passes; 1 a requirement fails (or cannot
  * be checked); 2 errors in the cell (printed to stderr as FILE:LINE:COL: error: MESSAGE);
@@ -12,15 +14,17 @@
 import { readFileSync } from 'node:fs';
 import { analyze } from './analyze.js';
 import type { Result } from './result.js';
-import { requirementText, toCsv, toJson, toText } from './output.js';
+import { requirementText, toCsv, toJson, toStepCsv, toText } from './output.js';
 
-const USAGE = `usage: rolloff solve FILE|- [--json | --csv] [--trace LABEL]
+const USAGE = `usage: rolloff solve FILE|- [--json | --csv [--time]] [--trace LABEL]
        rolloff check FILE|- [--json]`;
 
 interface Args {
   command: 'solve' | 'check';
   file: string;
   format: 'text' | 'json' | 'csv';
+  /** With --csv: the step traces' table (one row per time) instead of the frequency table. */
+  time: boolean;
   trace?: string;
 }
 
@@ -34,9 +38,13 @@ function parseArgs(argv: string[]): Args {
   let file: string | undefined;
   let format: Args['format'] = 'text';
   let trace: string | undefined;
+  let time = false;
   for (let i = 0; i < rest.length; i++) {
     const a = rest[i];
-    if (a === '--json' || a === '--csv') {
+    if (a === '--time') {
+      if (command === 'check') throw new UsageError('check prints no traces, so --time does not apply');
+      time = true;
+    } else if (a === '--json' || a === '--csv') {
       const f = a === '--json' ? 'json' : 'csv';
       if (format !== 'text' && format !== f) throw new UsageError('choose one of --json and --csv');
       if (command === 'check' && f === 'csv') throw new UsageError('check prints no traces, so --csv does not apply');
@@ -55,7 +63,8 @@ function parseArgs(argv: string[]): Args {
     }
   }
   if (file === undefined) throw new UsageError('no input: give a file, or - for standard input');
-  return { command, file, format, trace };
+  if (time && format !== 'csv') throw new UsageError('--time chooses the CSV table of the step traces: use it with --csv');
+  return { command, file, format, time, trace };
 }
 
 function exitCode(result: Result): number {
@@ -92,8 +101,8 @@ function main(argv: string[]): number {
     if (d.hint) process.stderr.write(`${name}:${d.line}:${d.column}: note: ${d.hint}\n`);
   }
   if (args.trace !== undefined && !result.diagnostics.some((d) => d.severity === 'error')) {
-    if (!result.traces.some((t) => t.label === args.trace)) {
-      const labels = result.traces.map((t) => `"${t.label}"`).join(', ');
+    if (!result.traces.some((t) => t.label === args.trace) && !result.steps.some((t) => t.label === args.trace)) {
+      const labels = [...result.traces, ...result.steps].map((t) => `"${t.label}"`).join(', ');
       process.stderr.write(`rolloff: no trace labelled "${args.trace}"${labels ? `; the traces are ${labels}` : ''}\n`);
       return 3;
     }
@@ -108,7 +117,7 @@ function main(argv: string[]): number {
   } else if (args.format === 'json') {
     process.stdout.write(toJson(result, { trace: args.trace }) + '\n');
   } else if (args.format === 'csv') {
-    process.stdout.write(toCsv(result, { trace: args.trace }));
+    process.stdout.write(args.time ? toStepCsv(result, { trace: args.trace }) : toCsv(result, { trace: args.trace }));
   } else if (!result.diagnostics.some((d) => d.severity === 'error')) {
     process.stdout.write(toText(result, { trace: args.trace }));
   }

@@ -18,5 +18,5 @@ export { DEFAULT_MAX_POINTS } from './sweep.js';
 export { analyze } from './analyze.js';
 export { HAZARDOUS_VOLTAGE } from './cautions.js';
 export { FIRST_EXAMPLE } from './examples.js';
-export { toCsv, toJson } from './output.js';
+export { toCsv, toJson, toStepCsv } from './output.js';
 export { formatReading, formatSi, parseSi } from './units.js';

@@ -1,6 +1,6 @@
 /**
  * Printing a Result: the contract's JSON (plain arrays, non-finite numbers as null, stable
- * ids), CSV (one row per frequency) and a short text report in the screens' words. Pure
+ * ids), CSV (one row per frequency, or per time for the step traces) and a short text report in the screens' words. Pure
  * functions, usable by the command line and by the API's exports alike.
  */
 import type { Readout, RequirementResult, Result, TraceResult, VariantResult } from './result.js';
@@ -12,7 +12,7 @@ export interface OutputOptions {
   trace?: string;
 }
 
-/** The result with only the chosen trace (in every variant too), or unchanged without a choice. */
+/** The result with only the chosen trace (in every variant too; a step trace too), or unchanged without a choice. */
 export function selectTrace(result: Result, label: string | undefined): Result {
   if (label === undefined) return result;
   const only = <T extends { traces: TraceResult[]; readouts: Readout[] }>(r: T): T => ({
@@ -20,7 +20,8 @@ export function selectTrace(result: Result, label: string | undefined): Result {
     traces: r.traces.filter((t) => t.label === label),
     readouts: r.readouts.filter((x) => x.trace === label),
   });
-  return result.variants === undefined ? only(result) : { ...only(result), variants: result.variants.map(only) };
+  const steps = result.steps.filter((s) => s.label === label);
+  return result.variants === undefined ? { ...only(result), steps } : { ...only(result), steps, variants: result.variants.map(only) };
 }
 
 /**
@@ -67,6 +68,21 @@ export function toCsv(result: Result, options: OutputOptions = {}): string {
   const lines = [header.map(csvField).join(',')];
   for (let k = 0; k < frequencies.length; k++) {
     lines.push(columns.map((c) => (Number.isFinite(c[k]) ? String(c[k]) : '')).join(','));
+  }
+  return lines.join('\n') + '\n';
+}
+
+/**
+ * The step traces' table, one row per time: `time (s)`, then `LABEL (UNIT)` for each step
+ * trace (they share one time axis). Only a header when the cell shows no step.
+ */
+export function toStepCsv(result: Result, options: OutputOptions = {}): string {
+  const r = selectTrace(result, options.trace);
+  const header = ['time (s)', ...r.steps.map((s) => `${s.label} (${s.unit})`)];
+  const times = r.steps[0]?.times ?? [];
+  const lines = [header.map(csvField).join(',')];
+  for (let k = 0; k < times.length; k++) {
+    lines.push([times[k], ...r.steps.map((s) => s.values[k])].map((v) => (Number.isFinite(v) ? String(v) : '')).join(','));
   }
   return lines.join('\n') + '\n';
 }
@@ -124,6 +140,14 @@ export function toText(result: Result, options: OutputOptions & { readouts?: boo
     for (const t of r.traces) {
       lines.push(`${t.label}  (${t.kind}, ${t.unit})`);
       const rs = r.readouts.filter((x) => x.trace === t.label);
+      if (rs.length === 0) lines.push('  no readouts');
+      const width = Math.max(0, ...rs.map((x) => READOUT_NAMES[x.name].length));
+      for (const x of rs) lines.push(`  ${READOUT_NAMES[x.name].padEnd(width)}  ${readoutText(x)}`);
+    }
+    for (const s of r.steps) {
+      const t = s.times;
+      lines.push(`${s.label}  (step, ${s.unit}${t.length > 0 ? `, ${formatSi(t[0], 's')} .. ${formatSi(t[t.length - 1], 's')}, ${t.length} points` : ''})`);
+      const rs = r.readouts.filter((x) => x.trace === s.label);
       if (rs.length === 0) lines.push('  no readouts');
       const width = Math.max(0, ...rs.map((x) => READOUT_NAMES[x.name].length));
       for (const x of rs) lines.push(`  ${READOUT_NAMES[x.name].padEnd(width)}  ${readoutText(x)}`);
