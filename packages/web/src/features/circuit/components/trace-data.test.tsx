@@ -45,6 +45,19 @@ describe('reading the curves without the plot', () => {
     expect(table.querySelector('caption')?.textContent).toContain('rows 51–100');
   });
 
+  it('reads each variant of a cell with a vary line, chosen by name', async () => {
+    const result = analyze(`let R = 1k\ndrive in\nR1 [in out] R\nC1 [out gnd] 159.155n\nshow out\nsweep at 100, 1k, 10k\nvary R over 1k, 10k\n`);
+    render(<TraceData result={result} />);
+    await userEvent.click(screen.getByText(/Read the curves/));
+    const field = screen.getByLabelText(/^Value at a frequency/);
+    await userEvent.type(field, '1k');
+    // R = 1 kΩ puts the corner at 1 kHz: −3.01 dB there; R = 10 kΩ puts it at 100 Hz, and a
+    // first-order low-pass a decade above its corner is −20.04 dB (common practice).
+    expect(screen.getByTestId('value-at-frequency').textContent).toContain('-3.01 dB');
+    await userEvent.selectOptions(screen.getByLabelText('Variant'), result.variants![1].label);
+    expect(screen.getByTestId('value-at-frequency').textContent).toContain('-20.04 dB');
+  });
+
   it('sums the plots up in words from the readouts', () => {
     const result = rc('sweep 10 .. 100k');
     expect(plotSummary(result.traces, result.readouts)).toMatch(/^The plots show out: .*corner 1 kHz/i);

@@ -31,7 +31,10 @@ function nearestPoint(frequencies: NumberArray, hz: number | null): number {
 }
 
 /** Each trace's level and phase at `hz`, in words. */
-export function valuesInWords(result: Pick<Result, 'frequencies' | 'traces'>, hz: number): string {
+/** What is read off: the whole result's curves, or one variant's. */
+type Curves = Pick<Result, 'frequencies' | 'traces'>;
+
+export function valuesInWords(result: Curves, hz: number): string {
   const { frequencies } = result;
   if (frequencies.length === 0) return 'The cell has no sweep.';
   if (hz < frequencies[0] || hz > frequencies[frequencies.length - 1]) {
@@ -49,7 +52,7 @@ export function valuesInWords(result: Pick<Result, 'frequencies' | 'traces'>, hz
 }
 
 /** The value of every trace at a frequency the designer types or steps to. */
-function ValueAtFrequency({ result }: { result: Result }) {
+function ValueAtFrequency({ result }: { result: Curves }) {
   const id = useId();
   const [text, setText] = useState('');
   const read = text.trim() ? readFrequency(text) : null;
@@ -88,7 +91,7 @@ function ValueAtFrequency({ result }: { result: Result }) {
 }
 
 /** The traces at the sweep points, a page of rows at a time. */
-function TracesTable({ result }: { result: Result }) {
+function TracesTable({ result }: { result: Curves }) {
   const [page, setPage] = useState(0);
   const columns = useMemo(() => result.traces.map((trace) => ({ trace, level: levelOf(trace) })), [result.traces]);
   const count = result.frequencies.length;
@@ -152,15 +155,45 @@ function TracesTable({ result }: { result: Result }) {
   );
 }
 
+/** A cell with a `vary` line: which variant's curves are read. */
+function VariantChoice({ result, chosen, onChoose }: { result: Result; chosen: number; onChoose: (index: number) => void }) {
+  const id = useId();
+  return (
+    <div className="flex flex-wrap items-center gap-2">
+      <label htmlFor={id} className="text-ink-soft">
+        Variant
+      </label>
+      <select
+        id={id}
+        value={chosen}
+        onChange={(event) => onChoose(Number(event.target.value))}
+        className="rounded-md border border-rule bg-panel px-2 py-1 text-sm"
+      >
+        {result.variants!.map((variant, index) => (
+          <option key={variant.label} value={index}>
+            {variant.label}
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}
+
 /** "Read the curves": values at a frequency and the data table, folded away until opened. */
 export function TraceData({ result }: { result: Result }) {
-  if (result.traces.length === 0 || result.frequencies.length === 0) return null;
+  const [choice, setChosen] = useState(0);
+  // A new result may have fewer variants than the one the choice was made on.
+  const chosen = Math.min(choice, (result.variants?.length ?? 1) - 1);
+  const variant = result.variants?.[chosen];
+  const curves: Curves = variant ?? result;
+  if (curves.traces.length === 0 || curves.frequencies.length === 0) return null;
   return (
     <details className="rounded-lg border border-rule bg-panel text-sm" data-testid="trace-data">
       <summary className="cursor-pointer px-3 py-1.5 text-ink-soft">Read the curves: values at a frequency and a data table</summary>
       <div className="space-y-4 px-3 pb-3">
-        <ValueAtFrequency result={result} />
-        <TracesTable result={result} />
+        {result.variants ? <VariantChoice result={result} chosen={chosen} onChoose={setChosen} /> : null}
+        <ValueAtFrequency result={curves} />
+        <TracesTable key={chosen} result={curves} />
       </div>
     </details>
   );
