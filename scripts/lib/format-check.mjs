@@ -4,10 +4,11 @@
 import { execFileSync } from 'node:child_process';
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
-import * as prettier from 'prettier';
 
 /** Checks the project's tracked and new files; returns the counts and the unformatted paths. */
 export async function checkFormatting(root) {
+  // Imported here, not at the top: `npm test` loads this module before it installs packages.
+  const prettier = await import('prettier');
   const listed = execFileSync('git', ['ls-files', '--cached', '--others', '--exclude-standard', '-z'], { cwd: root, encoding: 'utf8' });
   // A file deleted but not yet staged is still listed; it has nothing to check.
   const files = listed.split('\0').filter((file) => file && existsSync(path.join(root, file)));
