@@ -78,7 +78,7 @@ await runMain(async () => {
     if (!(await waitForPort(apiPort, 20_000))) fail('The server did not start listening within 20 s.');
     ok(`Rolloff is running: open ${publicUrl}/  (Ctrl-C stops it)`);
     if (signIn.service) info('Sign in with the local stand-in: pick one of the demo team, or type a new login.');
-    if (mail.service) info(`E-mail goes to the local mail stand-in: read it at ${publicUrl}/dev/mail`);
+    if (mail.service) info(`E-mail goes to the local mail stand-in: read it at ${publicUrl}/dev/mail, signed in as a site admin`);
   } catch (error) {
     await shutdown();
     throw error;
