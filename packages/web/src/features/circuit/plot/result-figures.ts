@@ -576,16 +576,18 @@ function stepFigure(series: PlotSeries[], theme: PlotTheme): Figure | null {
         x: finiteOrNull(step.times),
         y: finiteOrNull(step.values),
         line: { color: colours.get(step.label), width: 2, dash: s.dash ?? 'solid' },
-        customdata: Array.from(step.times, (t, i) => [formatSi(t, 's'), formatSi(step.values[i], '')]),
+        customdata: Array.from(step.times, (t, i) => [formatSi(t, 's'), formatSi(step.values[i], step.unit)]),
         hovertemplate: 't = %{customdata[0]}<br>%{customdata[1]}<extra>%{fullData.name}</extra>',
       });
     }
   }
   if (data.length === 0) return null;
+  // Step traces are in V or A (V/V for a ratio): the axis names the unit when they share one.
+  const units = new Set(series.flatMap((s) => s.result.steps.map((step) => step.unit)));
   const layout: Partial<Layout> = {
     ...baseLayout(theme),
     xaxis: { ...axisStyle(theme), title: { text: 'time (s)' }, exponentformat: 'SI' },
-    yaxis: { ...axisStyle(theme), title: { text: 'step response' } },
+    yaxis: { ...axisStyle(theme), title: { text: units.size === 1 ? `step response (${[...units][0]})` : 'step response' }, exponentformat: 'SI' },
   };
   return { kind: 'step', title: 'Step response', data, layout, targets: data.map(() => null) };
 }
