@@ -5,10 +5,9 @@
  * It is second order and L-stable: stiff modes decay without ringing, which the trapezoidal
  * rule alone would leave on read currents and algebraic nodes.
  *
- * Step size: every step is checked by step doubling (one step of h against two of h/2; for a
- * second-order method the two-step result is off by about a third of their difference), and
- * each output interval is walked in steps of its length / 2^k, halved on a failed check and
- * doubled when the error is well inside the tolerance. Step sizes therefore repeat, and each
+ * Step size: every step's local error is estimated against a third-order quadrature over its
+ * three points (`ESTIMATE`), and each output interval is walked in steps of its length / 2^k,
+ * halved when the estimate is over the tolerance and doubled when it is well inside it. Step sizes therefore repeat, and each
  * matrix E + c·F is factored once and kept (a few dozen at most).
  *
  * The start: the response jumps at t = 0 where a node is tied to the drive without a
@@ -26,6 +25,15 @@ const GAMMA = 2 - Math.SQRT2;
 /** BDF2 stage: z₁ = A·z_γ − B·z₀ + d·h·z₁′. */
 const BDF_A = 1 / (GAMMA * (2 - GAMMA));
 const BDF_B = ((1 - GAMMA) * (1 - GAMMA)) / (GAMMA * (2 - GAMMA));
+
+/**
+ * The weights of the third-order quadrature over the step's three points 0, γ and 1: the
+ * second-order step is compared with it for an estimate of its local error (as Hosea and
+ * Shampine's TR-BDF2 does), at the cost of one more solve with the step's matrix.
+ */
+const W_GAMMA = 1 / (6 * GAMMA * (1 - GAMMA));
+const W_ONE = 0.5 - 1 / (6 * (1 - GAMMA));
+const ESTIMATE = [1 - W_GAMMA - W_ONE, W_GAMMA, W_ONE] as const;
 
 /** Each step's local error, relative to the size of the state it is in. */
 export const RELATIVE_TOLERANCE = 1e-9;
@@ -104,26 +112,23 @@ export function integrateStep(
         continue;
       }
       const h = segment * part;
-      const full = work.trBdf2(z, deriv, h);
-      const half = full === null ? null : work.trBdf2(z, deriv, h / 2);
-      const halfDeriv = half === null ? null : work.rate(half);
-      const two = half === null || halfDeriv === null ? null : work.trBdf2(half, halfDeriv, h / 2);
-      if (full === null || two === null) return { ok: false, reason: 'the network’s equations are singular in the time domain' };
+      const next = work.trBdf2(z, deriv, h);
+      if (next === null) return { ok: false, reason: 'the network’s equations are singular in the time domain' };
       if (++steps > STEP_BUDGET * Math.max(0.1, (t + done * segment - from) / span) && tolerance < LOOSEST_TOLERANCE) {
         tolerance *= 10;
         steps = 0;
       }
-      const error = work.error(full, two) * (RELATIVE_TOLERANCE / tolerance);
+      const error = work.error(next.error, next.z) * (RELATIVE_TOLERANCE / tolerance);
       if (!Number.isFinite(error)) return { ok: false, reason: 'the response grows without bound: the network is unstable' };
       if (error > 1) {
         if (++depth > MAX_HALVINGS) return { ok: false, reason: 'the time steps became too small to follow the response' };
         continue;
       }
-      z = two;
-      deriv = work.rate(z);
+      z = next.z;
+      deriv = next.rate;
       work.remember(z);
       done += part;
-      // Doubling h multiplies a second-order method's local error by 8; keep a margin.
+      // Doubling h multiplies the local error (third order in h) by 8; keep a margin.
       if (error < 0.05 && depth > 0 && (done / (2 * part)) % 1 === 0) depth--;
     }
     t = times[k];
@@ -175,8 +180,11 @@ class Stepper {
     return this.solve(h, rhs);
   }
 
-  /** One TR-BDF2 step of size h from z₀, where E·z₀′ = r₀. */
-  trBdf2(z0: Float64Array, r0: Float64Array, h: number): Float64Array | null {
+  /**
+   * One TR-BDF2 step of size h from z₀, where E·z₀′ = r₀: the new state, its rate, and an
+   * estimate of the step's local error (see `ESTIMATE`).
+   */
+  trBdf2(z0: Float64Array, r0: Float64Array, h: number): { z: Float64Array; rate: Float64Array; error: Float64Array } | null {
     const { system, rhs, tmp } = this;
     const c = D * h;
     const b = system.b;
@@ -189,26 +197,35 @@ class Stepper {
     for (let i = 0; i < tmp.length; i++) tmp[i] = BDF_A * zg[i] - BDF_B * z0[i];
     multiply(system, system.e, tmp, rhs);
     for (let i = 0; i < rhs.length; i++) rhs[i] += c * b[i];
-    return this.solve(c, rhs);
+    const z1 = this.solve(c, rhs);
+    if (z1 === null) return null;
+    // The error: E·(z₁ − z₀) against h·(w₀·r₀ + w_γ·r_γ + w₁·r₁), filtered by the step's own matrix.
+    const rg = this.rate(zg);
+    const r1 = this.rate(z1);
+    for (let i = 0; i < tmp.length; i++) tmp[i] = z1[i] - z0[i];
+    multiply(system, system.e, tmp, rhs);
+    for (let i = 0; i < rhs.length; i++) rhs[i] -= h * (ESTIMATE[0] * r0[i] + ESTIMATE[1] * rg[i] + ESTIMATE[2] * r1[i]);
+    const error = this.solve(c, rhs);
+    return error === null ? null : { z: z1, rate: r1, error };
   }
 
-  /** The larger local error of the differential unknowns, in units of the tolerance. */
-  error(full: Float64Array, two: Float64Array): number {
+  /** The largest local error of the differential unknowns, in units of the tolerance. */
+  error(estimate: Float64Array, z: Float64Array): number {
     const { differential, group } = this.system;
     const floor = [0, 0];
-    for (let i = 0; i < two.length; i++) {
-      const m = Math.max(this.peak[i], Math.abs(two[i]));
+    for (let i = 0; i < z.length; i++) {
+      const m = Math.max(this.peak[i], Math.abs(z[i]));
       if (m > floor[group[i]]) floor[group[i]] = m;
     }
     floor[0] = Math.max(floor[0], this.groupPeak[0]) * ERROR_FLOOR;
     floor[1] = Math.max(floor[1], this.groupPeak[1]) * ERROR_FLOOR;
     let worst = 0;
-    for (let i = 0; i < two.length; i++) {
+    for (let i = 0; i < z.length; i++) {
       if (differential[i] === 0) continue;
-      const d = Math.abs(two[i] - full[i]) / 3;
-      if (Number.isNaN(d) || !Number.isFinite(two[i])) return Infinity;
+      const d = Math.abs(estimate[i]);
+      if (Number.isNaN(d) || !Number.isFinite(z[i])) return Infinity;
       if (d === 0) continue;
-      const scale = Math.max(this.peak[i], Math.abs(two[i]), floor[group[i]]);
+      const scale = Math.max(this.peak[i], Math.abs(z[i]), floor[group[i]]);
       const e = d / (RELATIVE_TOLERANCE * scale);
       if (e > worst) worst = e;
     }
