@@ -110,6 +110,9 @@ function settingsAndRequirements(
         }
         timeLine = st.range.line;
         time = timeStatement(cx, st);
+        if (time !== null && !shows.some((show) => show.mode === 'step')) {
+          cx.warn(st.range, 'time-unused', 'this time window has no step trace to apply to', 'show a step response with show step EXPR');
+        }
         break;
       case 'temperature': {
         if (temperatureLine !== 0) {
