@@ -148,9 +148,12 @@ export interface RequirementResult {
    * written); null for the other single-number measures and for `at`.
    */
   over: { from: number; to: number } | null;
-  /** The one frequency (Hz) of `require … at F`, else null. */
+  /** The one frequency (Hz) of `require … at F` (the one time, in s, of a step trace's `value … at T`), else null. */
   at: number | null;
-  /** Unit of `limit`, `band` and `measured`: "dB", "deg", "s", "Hz", "%", "Ω", "dB/decade", "" (Q), or the trace's unit for `magnitude`. */
+  /**
+   * Unit of `limit`, `band` and `measured`: "dB", "deg", "s", "Hz", "%", "Ω", "dB/decade", "" (Q), or the trace's unit
+   * for `magnitude` and a step trace's `final` and `value` ("V", "A").
+   */
   unit: string;
   /**
    * The worst measured value (or the value of a single-number measure); NaN when not
