@@ -124,6 +124,11 @@ function refinedExtrema(view: TraceView, measure: PointMeasure, samples: Sample[
       const m = samples[q].m;
       if (!better(want, samples[q - 1].m, m) && !better(want, samples[q + 1].m, m)) candidates.push({ lo: q - 1, hi: q + 1, promise: sign * m });
     }
+    // Without slopes, a peak in the first or last interval leaves no sample better than both
+    // its neighbours (the samples can rise all the way to the range's end): search those too.
+    const last = samples.length - 1;
+    const ends = last >= 1 ? [0, last - 1] : [];
+    for (const lo of ends) candidates.push({ lo, hi: lo + 1, promise: sign * Math.max(sign * samples[lo].m, sign * samples[lo + 1].m) });
   } else {
     for (let q = 0; q + 1 < samples.length; q++) {
       // Rising into the interval and falling out of it (for a maximum): an extremum inside.

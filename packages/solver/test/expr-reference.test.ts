@@ -103,7 +103,7 @@ describe('expressions against mathjs evaluate', () => {
         expect('value' in ours ? ours.value + 0 : ours.error).toBe((theirs.value as number) + 0);
         expect(ours).toMatchObject({ unit: null });
       }),
-      { numRuns: 400, seed: 20261202 },
+      { numRuns: 400 },
     );
     // Most generated expressions have a value, so values are what is compared.
     expect(compared).toBeGreaterThan(200);

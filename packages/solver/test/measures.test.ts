@@ -406,6 +406,25 @@ describe('a range measure is never better than a 10× finer sweep sees', { timeo
       { numRuns: 40 },
     );
   });
+
+  it('delay variation finds a delay peak in the last interval of its band, where no sweep point stands out (found by the property above)', () => {
+    // A series RLC band-pass (Q = 1 at f0 = 503.29 Hz) whose band ends just past the delay
+    // peak: the coarse sweep's points rise all the way to the band's end.
+    const body = 'drive in\nL1 [in a] 0.1\nC1 [a out] 1u\nR1 [out gnd] 316.22776601683796\nshow out\n';
+    const f0 = 503.2921210448704;
+    const range = `over ${num(f0 * 10 ** -0.0923)} .. ${num(f0 * 10 ** (0.0923 * 1.3))}`;
+    const coarse = run(`${body}sweep ${num(f0 / 100)} .. ${num(f0 * 100)}, 10/decade\nrequire out delay-variation <= 0 ${range}\n`);
+    // The independent value: a sweep 100 times finer (1 000 points a decade).
+    const fine = run(`${body}sweep ${num(f0 / 100)} .. ${num(f0 * 100)}, 1000/decade\nrequire out delay-variation <= 0 ${range}\n`);
+    const [from, to] = [f0 * 10 ** -0.0923, f0 * 10 ** (0.0923 * 1.3)];
+    const delays = Array.from(fine.frequencies.keys())
+      .filter((k) => fine.frequencies[k] >= from && fine.frequencies[k] <= to)
+      .map((k) => fine.traces[0].groupDelay[k]);
+    const spread = Math.max(...delays) - Math.min(...delays);
+    expect(coarse.requirements[0].measured).toBeGreaterThanOrEqual(spread * (1 - 1e-9));
+    // And it does not depend on the sweep: the fine sweep's own refined value is the same.
+    expect(coarse.requirements[0].measured).toBeCloseTo(fine.requirements[0].measured!, 9);
+  });
 });
 
 describe('a notch on a sweep point', () => {

@@ -76,6 +76,16 @@ describe('robustness', { timeout: 30_000 }, () => {
     );
   });
 
+  it('a gain in dB beyond what a number holds is an error on its value, not a fault (found by the property above)', () => {
+    // 10100 dB is 10^505 V/V, past the largest double (about 1.8e308; IEEE 754).
+    const text = CELL.replace('gain 100dB', 'gain 10100dB');
+    const r = analyze(text);
+    wellFormed(r);
+    const problem = r.diagnostics.find((d) => d.code === 'value-out-of-range');
+    expect(problem?.message).toBe('`10100dB` is too large to compute (beyond ±1.8e308)');
+    expect([problem?.line, text.split('\n')[problem!.line - 1].slice(problem!.column - 1, problem!.endColumn - 1)]).toEqual([7, '10100dB']);
+  });
+
   it('a malformed network becomes error diagnostics, not an exception', () => {
     const bad: Circuit = net().vdrive('in').R('R1', 'in', 'out', NaN).v('out', 'out').build();
     const r = analyzeCircuit(bad);

@@ -230,15 +230,26 @@ export function evaluate(cx: Elaboration, scope: Scope, v: Value, line: number, 
 export function read(cx: Elaboration, scope: Scope, v: Value, line: number, slot: Slot, where = ''): number | null {
   const q = evaluate(cx, scope, v, line);
   if (q === null) return null;
-  if (q.unit === 'compound' || q.unit === null) return slot.convert ? slot.convert(q.value, null) : q.value;
-  if (slot.units.includes(q.unit)) return slot.convert ? slot.convert(q.value, q.unit) : q.value;
+  const unit = q.unit === 'compound' || q.unit === null ? null : q.unit;
+  if (unit === null || slot.units.includes(unit)) {
+    const x = slot.convert ? slot.convert(q.value, unit) : q.value;
+    // A conversion can leave the numbers a computer holds (10 000 dB is 10^500).
+    if (Number.isFinite(x)) return x;
+    cx.error(
+      v.range,
+      'value-out-of-range',
+      `${v.kind === 'number' ? `\`${v.text}\`` : 'this value'} is too large to compute (beyond ±1.8e308)${where}`,
+      'write a smaller value',
+    );
+    return null;
+  }
   const range = v.kind === 'number' && v.unitRange !== undefined ? v.unitRange : v.range;
-  const written = v.kind === 'number' ? `\`${v.text}\`` : v.kind === 'name' ? `${v.name} (in ${q.unit})` : `this expression (in ${q.unit})`;
-  if (q.unit === 'K' && v.kind === 'number' && v.unitRange !== undefined && !slot.units.includes('K')) {
+  const written = v.kind === 'number' ? `\`${v.text}\`` : v.kind === 'name' ? `${v.name} (in ${unit})` : `this expression (in ${unit})`;
+  if (unit === 'K' && v.kind === 'number' && v.unitRange !== undefined && !slot.units.includes('K')) {
     cx.error(range, 'unit-mismatch', `\`K\` is kelvin, not kilo`, 'use k for kilo', replaceWith('k'));
     return null;
   }
-  const quantity = QUANTITY_OF[q.unit] ?? q.unit;
+  const quantity = QUANTITY_OF[unit] ?? unit;
   const example = slot.example !== undefined ? `, like ${slot.example}` : '';
   cx.error(
     range,
