@@ -51,6 +51,17 @@ export interface TestServerOptions {
   rateLimits?: Partial<RateLimitConfig>;
 }
 
+// Every test file signs in and writes from 127.0.0.1 against one database, so the product's
+// per-address limits would count the whole suite's requests together: test servers run
+// without limits (0 turns one off) unless a test sets its own, as the rate-limit tests do.
+const noRateLimits = rateLimitConfig({
+  RATE_LIMIT_SIGN_IN: '0',
+  RATE_LIMIT_WRITES: '0',
+  RATE_LIMIT_WRITES_PER_ADDRESS: '0',
+  RATE_LIMIT_READS: '0',
+  RATE_LIMIT_READS_PER_ADDRESS: '0',
+});
+
 /** The outbox's pace in tests: retries within milliseconds, the claim of a message long enough for any test. */
 export const testOutboxTiming: OutboxTiming = { pollMs: 200, firstRetryMs: 20, maxRetryMs: 200, giveUpAfterMs: 60_000, probeMs: 20, leaseMs: 60_000 };
 
@@ -77,7 +88,7 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     outbox,
     mailStandinUrl: options.devMail ? mailboxUrl : null,
     cellCheck: { ...cellCheckConfig(), ...options.cellCheck },
-    rateLimits: { ...rateLimitConfig(), ...options.rateLimits },
+    rateLimits: { ...noRateLimits, ...options.rateLimits },
   });
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));

@@ -12,6 +12,12 @@ describe('note cells', () => {
     expect(container.querySelectorAll('li')).toHaveLength(2);
   });
 
+  it('let the keyboard reach a code block, which may scroll sideways', () => {
+    const { container } = render(<MarkdownView text={'```\nR1 [in a] 10k\n```'} />);
+    expect(container.querySelector('pre')?.getAttribute('tabindex')).toBe('0');
+    expect(container.querySelector('pre code')?.textContent).toBe('R1 [in a] 10k\n');
+  });
+
   it('never render raw HTML or script links', () => {
     const { container } = render(
       <MarkdownView text={'<script>window.hacked = true</script>\n\n<b onclick="x()">bold</b> [run](javascript:alert(1)) <img src=x onerror="alert(1)">'} />,

@@ -45,6 +45,9 @@ const link: Components['a'] = ({ href, children }) => (
   </a>
 );
 
+/** A code block that scrolls sideways can be reached and scrolled with the keyboard (WCAG 2.1.1). */
+export const codeBlock: Components['pre'] = ({ children }) => <pre tabIndex={0}>{children}</pre>;
+
 /**
  * Markdown people wrote (note cells, pin comments, review messages and summaries), rendered
  * safely: raw HTML is dropped (never rendered), and react-markdown's URL check keeps
@@ -54,7 +57,7 @@ const link: Components['a'] = ({ href, children }) => (
 export function MarkdownView({ text, compact = false, topLevel = 3 }: { text: string; compact?: boolean; topLevel?: number }) {
   return (
     <div className={compact ? 'rolloff-prose rolloff-prose-compact' : 'rolloff-prose'}>
-      <Markdown skipHtml components={{ ...demotedHeadings(topLevel), a: link }}>
+      <Markdown skipHtml components={{ ...demotedHeadings(topLevel), a: link, pre: codeBlock }}>
         {text}
       </Markdown>
     </div>

@@ -4,7 +4,7 @@
  * build time; until the solver ships it, the page says so.
  */
 import Markdown from 'react-markdown';
-import { demotedHeadings, headingAnchor } from '../../../components/ui/markdown-view';
+import { codeBlock, demotedHeadings, headingAnchor } from '../../../components/ui/markdown-view';
 
 const files = import.meta.glob<string>('../../../../../solver/LANGUAGE.md', { query: '?raw', import: 'default', eager: true });
 const reference: string | undefined = Object.values(files)[0];
@@ -18,7 +18,7 @@ export function sectionsOf(markdown: string): { title: string; anchor: string }[
 }
 
 // The page's H1 names the reference, so the file's own headings start at h2.
-const headings = demotedHeadings(2);
+const components = { ...demotedHeadings(2), pre: codeBlock };
 
 /** The rendered language reference. */
 export function LanguageReference() {
@@ -44,7 +44,7 @@ export function LanguageReference() {
         </ol>
       </nav>
       <article className="rolloff-prose max-w-3xl" data-testid="language-reference">
-        <Markdown skipHtml components={headings}>
+        <Markdown skipHtml components={components}>
           {reference}
         </Markdown>
       </article>
