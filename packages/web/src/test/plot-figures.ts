@@ -2,7 +2,7 @@
 import type { Shape } from 'plotly.js-basic-dist-min';
 import type { PlotPin } from '../features/circuit/plot/plot-pins';
 import { figuresFor } from '../features/circuit/plot/result-figures';
-import type { Figure, PlotSeries, PlotTheme } from '../features/circuit/plot/result-figures';
+import type { Figure, PlotSeries, PlotTheme } from '../features/circuit/plot/figure-style';
 
 /** A theme whose every colour differs, so a test can tell which one a mark got. */
 export const testTheme: PlotTheme = {

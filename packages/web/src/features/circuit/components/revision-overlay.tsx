@@ -3,7 +3,7 @@
  * the others dashed, so a change in the response shows at a glance.
  */
 import { useMemo } from 'react';
-import type { PlotSeries } from '../plot/result-figures';
+import type { PlotSeries } from '../plot/figure-style';
 import { useAnalyses } from '../worker/use-analysis';
 import { LazyCircuitPlots, PlotPlaceholder } from './lazy-parts';
 

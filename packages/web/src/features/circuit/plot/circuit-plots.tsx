@@ -13,7 +13,7 @@ import type { ChartHandle } from './plotly-chart';
 import { usePlotTheme } from './plot-theme';
 import { PlotToolbar, saveText } from './plot-toolbar';
 import { figuresFor } from './result-figures';
-import type { Figure, PlotSeries } from './result-figures';
+import type { Figure, PlotSeries } from './figure-style';
 
 export interface CircuitPlotsProps {
   series: PlotSeries[];

@@ -7,7 +7,7 @@
  */
 import type { Layout, ScatterData } from 'plotly.js-basic-dist-min';
 import { fromPlotText } from './plot-text';
-import type { Figure } from './result-figures';
+import type { Figure } from './figure-style';
 
 type AxisKey = 'xaxis' | 'yaxis' | 'yaxis2';
 

@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { bodeFigure, shapesOf } from '../../../test/plot-figures';
 import { loopMarginMarks, marginReference, marginText } from './loop-margins';
-import type { Figure } from './result-figures';
+import type { Figure } from './figure-style';
 
 /**
  * The follower loop of reference-values.md §9 (OA-PM): L(s) = 10⁵ / ((1 + s/2π·10)(1 + s/2π·10⁶)),

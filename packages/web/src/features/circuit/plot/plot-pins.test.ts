@@ -4,7 +4,7 @@ import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { bodeFigure, testTheme } from '../../../test/plot-figures';
 import { readPlotPick } from './plot-pins';
 import type { PlotPin } from './plot-pins';
-import type { Figure } from './result-figures';
+import type { Figure } from './figure-style';
 import { valueAtFrequency } from './trace-at';
 
 const result = analyze(FIRST_EXAMPLE);

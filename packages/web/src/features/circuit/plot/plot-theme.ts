@@ -3,7 +3,7 @@
  * dark theme; re-read whenever the theme changes.
  */
 import { useEffect, useState } from 'react';
-import type { PlotTheme } from './result-figures';
+import type { PlotTheme } from './figure-style';
 
 /** Reads the current palette from the document. */
 export function readPlotTheme(): PlotTheme {

@@ -7,7 +7,7 @@ import { bodeFigure } from '../../../test/plot-figures';
 import CircuitPlots from './circuit-plots';
 import { readPlotTheme } from './plot-theme';
 import { figuresFor } from './result-figures';
-import type { Figure } from './result-figures';
+import type { Figure } from './figure-style';
 
 // Plotly cannot draw in jsdom (no SVG geometry): the chart's calls to it are recorded instead.
 const plotly = vi.hoisted(() => ({

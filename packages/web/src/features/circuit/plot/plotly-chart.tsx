@@ -10,7 +10,7 @@ import { useEffect, useImperativeHandle, useRef } from 'react';
 import type { Ref } from 'react';
 import { TIMING } from '../../../lib/timing';
 import type { ClickedPoint } from './plot-pins';
-import type { Figure } from './result-figures';
+import type { Figure } from './figure-style';
 
 export interface ChartHandle {
   /** Saves the figure as a PNG or SVG file. */

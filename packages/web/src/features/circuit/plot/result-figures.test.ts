@@ -4,8 +4,10 @@ import { describe, expect, it } from 'vitest';
 import { FIRST_EXAMPLE } from '@rolloff/solver';
 import { bodeFigure, shapesOf, testTheme } from '../../../test/plot-figures';
 import { figureCsv } from './figure-csv';
-import { decibelRange, figuresFor, finiteOrNull, placeRequirements } from './result-figures';
-import type { Figure } from './result-figures';
+import { decibelRange, finiteOrNull } from './figure-style';
+import { figuresFor } from './result-figures';
+import { placeRequirements } from './requirement-marks';
+import type { Figure } from './figure-style';
 
 const bodeOf = (result: Result): Figure => bodeFigure([{ result }]);
 

@@ -2,7 +2,8 @@ import { analyze } from '@rolloff/solver';
 import { describe, expect, it } from 'vitest';
 import { testTheme } from '../../../test/plot-figures';
 import { figureCsv } from './figure-csv';
-import { figuresFor, finiteOrNull } from './result-figures';
+import { figuresFor } from './result-figures';
+import { finiteOrNull } from './figure-style';
 
 const CELL = `drive in 2
 R1 [in out] 1k

@@ -1,7 +1,7 @@
 import { analyze } from '@rolloff/solver';
 import { describe, expect, it } from 'vitest';
 import { bodeFigure, shapesOf, testTheme } from '../../../test/plot-figures';
-import { finiteOrNull } from './result-figures';
+import { finiteOrNull } from './figure-style';
 import { variantShade } from './variant-shades';
 
 /** An RC low-pass varied over three loads; corners 3.18 kHz, 1.75 kHz and 1.61 kHz. */
