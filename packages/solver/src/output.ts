@@ -3,7 +3,7 @@
  * ids), CSV (one row per frequency, or per time for the step traces) and a short text report in the screens' words. Pure
  * functions, usable by the command line and by the API's exports alike.
  */
-import type { Readout, RequirementResult, Result, TraceResult, VariantResult } from './result.js';
+import type { Readout, RequirementResult, Result, StepResult, TraceResult, VariantResult } from './result.js';
 import { READOUT_NAMES, STATUS_WORDS } from './result.js';
 import { formatReading, formatSi } from './units.js';
 
@@ -15,13 +15,13 @@ export interface OutputOptions {
 /** The result with only the chosen trace (in every variant too; a step trace too), or unchanged without a choice. */
 export function selectTrace(result: Result, label: string | undefined): Result {
   if (label === undefined) return result;
-  const only = <T extends { traces: TraceResult[]; readouts: Readout[] }>(r: T): T => ({
+  const only = <T extends { traces: TraceResult[]; readouts: Readout[]; steps: StepResult[] }>(r: T): T => ({
     ...r,
     traces: r.traces.filter((t) => t.label === label),
     readouts: r.readouts.filter((x) => x.trace === label),
+    steps: r.steps.filter((s) => s.label === label),
   });
-  const steps = result.steps.filter((s) => s.label === label);
-  return result.variants === undefined ? { ...only(result), steps } : { ...only(result), steps, variants: result.variants.map(only) };
+  return result.variants === undefined ? only(result) : { ...only(result), variants: result.variants.map(only) };
 }
 
 /**

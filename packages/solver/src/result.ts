@@ -219,6 +219,8 @@ export interface VariantResult {
   readouts: Readout[];
   /** This variant's own result of each requirement, in the order of `Result.requirements`. */
   requirements: RequirementResult[];
+  /** This variant's step responses, one per `show step` line. */
+  steps: StepResult[];
 }
 
 /**

@@ -88,6 +88,7 @@ export function combineVariants(variants: readonly CompiledVariant[], results: r
     traces: results[i].traces,
     readouts: results[i].readouts,
     requirements: results[i].requirements,
+    steps: results[i].steps,
   }));
   return {
     ...first,

@@ -38,6 +38,9 @@ function expectSameAsWritten(variant: NonNullable<Result['variants']>[number], a
   });
   expect(variant.readouts).toEqual(alone.readouts);
   expect(variant.requirements).toEqual(alone.requirements);
+  expect(variant.steps.map((st) => [st.label, Array.from(st.times), Array.from(st.values)])).toEqual(
+    alone.steps.map((st) => [st.label, Array.from(st.times), Array.from(st.values)]),
+  );
 }
 
 describe('each variant is the cell with the value written in', () => {
@@ -60,6 +63,17 @@ describe('each variant is the cell with the value written in', () => {
     values.forEach((value, i) => expectSameAsWritten(result.variants![i], analyze(rc('1k', String(value), ''))));
     // The 10 µF variant's corner is at 15.9 Hz: its own default sweep reaches lower than the 1 nF variant's.
     expect(result.variants![2].frequencies[0]).toBeLessThan(result.variants![0].frequencies[0]);
+  });
+
+  it('step responses too: each variant has its own, and an RC’s t63 is its RC (the time constant, common practice)', () => {
+    const extra = 'show step out\ntime 0 .. 5m, 500 points';
+    const result = analyze(rc('1k', '100n', `${extra}\nvary R over 1k, 10k`));
+    expect(errors(result)).toEqual([]);
+    expect(result.variants!.map((v) => v.steps.map((st) => st.label))).toEqual([['step out'], ['step out']]);
+    ['1k', '10k'].forEach((written, i) => expectSameAsWritten(result.variants![i], analyze(rc(written, '100n', extra))));
+    const t63 = result.variants!.map((v) => v.readouts.find((x) => x.name === 't63')!.value);
+    expect(t63[0]).toBeCloseTo(100e-6, 9);
+    expect(t63[1]).toBeCloseTo(1e-3, 8);
   });
 
   it('a parameter that others are computed from: they follow it', () => {

@@ -39,4 +39,12 @@ describe('the step figure of a result', () => {
     const only = analyze('drive in\nR1 [in out] 1k\nC1 [out gnd] 1u\nshow step out\n');
     expect(figuresFor([{ result: only }], testTheme).map((f) => f.kind)).toContain('step');
   });
+
+  it('draws each variant’s step traces of a cell with a vary line, named by their value', () => {
+    const varied = analyze(`let R = 1k\n${CELL.replace('R1 [in out] 1k', 'R1 [in out] R')}vary R over 1k, 10k\n`);
+    const steps = figuresFor([{ result: varied }], testTheme).find((f) => f.kind === 'step')!;
+    expect(steps.data.map((d) => d.name)).toEqual(['step out · R = 1k', 'step out · R = 10k']);
+    expect(steps.data.map((d) => d.y)).toEqual(varied.variants!.map((v) => finiteOrNull(v.steps[0].values)));
+    expect(steps.data[0].line?.color).not.toBe(steps.data[1].line?.color);
+  });
 });

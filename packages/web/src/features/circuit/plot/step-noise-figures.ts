@@ -4,6 +4,7 @@ import type { Layout, ScatterData } from 'plotly.js-basic-dist-min';
 import { finiteOrNull, colourOf, legendName, baseLayout, axisStyle, frequencyAxis } from './figure-style';
 import type { PlotTheme, PlotSeries, Figure } from './figure-style';
 import { slotsOf, slotLabel } from './trace-slots';
+import { variantShade } from './variant-shades';
 
 export function noiseFigure(series: PlotSeries[], theme: PlotTheme): Figure | null {
   const slots = slotsOf(series, (k) => k === 'noise', theme);
@@ -30,19 +31,23 @@ export function stepFigure(series: PlotSeries[], theme: PlotTheme): Figure | nul
   const data: Partial<ScatterData>[] = [];
   const colours = new Map<string, string>();
   for (const s of series) {
-    for (const step of s.result.steps) {
-      if (!colours.has(step.label)) colours.set(step.label, colourOf(theme, colours.size));
-      data.push({
-        type: 'scatter',
-        mode: 'lines',
-        name: legendName(s, step.label),
-        x: finiteOrNull(step.times),
-        y: finiteOrNull(step.values),
-        line: { color: colours.get(step.label), width: 2, dash: s.dash ?? 'solid' },
-        customdata: Array.from(step.times, (t, i) => [formatSi(t, 's'), formatSi(step.values[i], step.unit)]),
-        hovertemplate: 't = %{customdata[0]}<br>%{customdata[1]}<extra>%{fullData.name}</extra>',
-      });
-    }
+    // A cell with a vary line: each variant's step traces, in shades of the trace's colour.
+    const variants = s.result.variants ?? [{ label: null, steps: s.result.steps }];
+    variants.forEach((variant, index) => {
+      for (const step of variant.steps) {
+        if (!colours.has(step.label)) colours.set(step.label, colourOf(theme, colours.size));
+        data.push({
+          type: 'scatter',
+          mode: 'lines',
+          name: legendName(s, variant.label === null ? step.label : `${step.label} · ${variant.label}`),
+          x: finiteOrNull(step.times),
+          y: finiteOrNull(step.values),
+          line: { color: variantShade(colours.get(step.label) as string, theme.panel, index, variants.length), width: 2, dash: s.dash ?? 'solid' },
+          customdata: Array.from(step.times, (t, i) => [formatSi(t, 's'), formatSi(step.values[i], step.unit)]),
+          hovertemplate: 't = %{customdata[0]}<br>%{customdata[1]}<extra>%{fullData.name}</extra>',
+        });
+      }
+    });
   }
   if (data.length === 0) return null;
   // Step traces are in V or A (V/V for a ratio): the axis names the unit when they share one.
