@@ -12,6 +12,7 @@ import type { OutboxTiming } from '../config.js';
 import type { MailKind } from '../contract/settings.js';
 import type { MailStatus } from '../contract/mail-status.js';
 import { MailLogEntry } from '../db/entities/mail-log-entry.js';
+import { runAgainIfRefused } from '../db/retryable.js';
 import type { Relay, SendOutcome } from './mailer.js';
 
 export interface QueuedMail {
@@ -100,49 +101,56 @@ export function createOutbox({ database, relay, timing }: OutboxOptions): Outbox
 
   async function claim(db: DataSource): Promise<Claimed[]> {
     // READ COMMITTED: the claim locks only the rows it takes, no gaps that would hold up new mail.
-    return db.transaction('READ COMMITTED', async (manager) => {
-      const due: { id: number }[] = await manager.query(
-        `SELECT mailLogId AS id FROM mail_outbox
+    return runAgainIfRefused(() =>
+      db.transaction('READ COMMITTED', async (manager) => {
+        const due: { id: number }[] = await manager.query(
+          `SELECT mailLogId AS id FROM mail_outbox
           WHERE nextAttemptAt <= UTC_TIMESTAMP(3) AND (claimedUntil IS NULL OR claimedUntil <= UTC_TIMESTAMP(3))
           ORDER BY nextAttemptAt LIMIT ? FOR UPDATE SKIP LOCKED`,
-        [batch],
-      );
-      if (due.length === 0) return [];
-      const ids = due.map((row) => row.id);
-      await manager.query('UPDATE mail_outbox SET claimedUntil = DATE_ADD(UTC_TIMESTAMP(3), INTERVAL ? MICROSECOND) WHERE mailLogId IN (?)', [
-        timing.leaseMs * 1000,
-        ids,
-      ]);
-      return manager.query(
-        `SELECT l.id, l.toAddress, l.subject, l.attempts, l.createdAt, o.body
+          [batch],
+        );
+        if (due.length === 0) return [];
+        const ids = due.map((row) => row.id);
+        await manager.query('UPDATE mail_outbox SET claimedUntil = DATE_ADD(UTC_TIMESTAMP(3), INTERVAL ? MICROSECOND) WHERE mailLogId IN (?)', [
+          timing.leaseMs * 1000,
+          ids,
+        ]);
+        return manager.query(
+          `SELECT l.id, l.toAddress, l.subject, l.attempts, l.createdAt, o.body
            FROM mail_outbox o JOIN mail_log l ON l.id = o.mailLogId WHERE o.mailLogId IN (?) ORDER BY o.nextAttemptAt`,
-        [ids],
-      );
-    });
+          [ids],
+        );
+      }),
+    );
   }
 
   /** Records one attempt: sent or given up on (the outbox row goes), or scheduled again. */
   async function finish(db: DataSource, mail: Claimed, outcome: SendOutcome): Promise<void> {
     const attempts = mail.attempts + 1;
-    await db.transaction(async (manager) => {
-      if (outcome.ok) {
-        await manager.query('DELETE FROM mail_outbox WHERE mailLogId = ?', [mail.id]);
-        await manager.update(MailLogEntry, { id: mail.id }, { status: 'sent', attempts, error: null, finishedAt: new Date() });
-        return;
-      }
-      const expired = Date.now() - new Date(mail.createdAt).getTime() >= timing.giveUpAfterMs;
-      if (outcome.permanent || expired) {
-        const why = outcome.permanent ? `refused: ${outcome.error}` : `gave up after ${attempts} attempts: ${outcome.error}`;
-        await manager.query('DELETE FROM mail_outbox WHERE mailLogId = ?', [mail.id]);
-        await manager.update(MailLogEntry, { id: mail.id }, { status: 'failed', attempts, error: why.slice(0, 1000), finishedAt: new Date() });
-        return;
-      }
-      await manager.query(
-        'UPDATE mail_outbox SET claimedUntil = NULL, nextAttemptAt = DATE_ADD(UTC_TIMESTAMP(3), INTERVAL ? MICROSECOND) WHERE mailLogId = ?',
-        [retryDelay(timing, attempts) * 1000, mail.id],
-      );
-      await manager.update(MailLogEntry, { id: mail.id }, { attempts, error: outcome.error.slice(0, 1000) });
-    });
+    // Each branch writes the same rows whatever ran before, so a transaction refused as a
+    // deadlock (or by a Galera cluster at commit) is simply run again: a claim left in place
+    // would send the message a second time once its lease ran out.
+    await runAgainIfRefused(() =>
+      db.transaction(async (manager) => {
+        if (outcome.ok) {
+          await manager.query('DELETE FROM mail_outbox WHERE mailLogId = ?', [mail.id]);
+          await manager.update(MailLogEntry, { id: mail.id }, { status: 'sent', attempts, error: null, finishedAt: new Date() });
+          return;
+        }
+        const expired = Date.now() - new Date(mail.createdAt).getTime() >= timing.giveUpAfterMs;
+        if (outcome.permanent || expired) {
+          const why = outcome.permanent ? `refused: ${outcome.error}` : `gave up after ${attempts} attempts: ${outcome.error}`;
+          await manager.query('DELETE FROM mail_outbox WHERE mailLogId = ?', [mail.id]);
+          await manager.update(MailLogEntry, { id: mail.id }, { status: 'failed', attempts, error: why.slice(0, 1000), finishedAt: new Date() });
+          return;
+        }
+        await manager.query(
+          'UPDATE mail_outbox SET claimedUntil = NULL, nextAttemptAt = DATE_ADD(UTC_TIMESTAMP(3), INTERVAL ? MICROSECOND) WHERE mailLogId = ?',
+          [retryDelay(timing, attempts) * 1000, mail.id],
+        );
+        await manager.update(MailLogEntry, { id: mail.id }, { attempts, error: outcome.error.slice(0, 1000) });
+      }),
+    );
   }
 
   function noteRelay(down: boolean, error = ''): void {

@@ -1,7 +1,8 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { buildUser } from '../../test/factories.js';
 import { connect, disconnect } from '../db/connection.js';
-import { inTransaction, transactionRetry } from './db.js';
+import { transactionRetry } from '../db/retryable.js';
+import { inTransaction } from './db.js';
 
 afterAll(async () => {
   await disconnect();

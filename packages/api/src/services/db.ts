@@ -1,7 +1,7 @@
 /** The database handle services take, and transactions with a retry on deadlock. */
 import { DataSource } from 'typeorm';
 import type { EntityManager } from 'typeorm';
-import { isRetryable } from '../db/retryable.js';
+import { runAgainIfRefused } from '../db/retryable.js';
 
 /**
  * What a service runs on: the DataSource (each service call is its own transaction), or the
@@ -15,13 +15,6 @@ export function managerOf(db: Database): EntityManager {
 }
 
 /**
- * How often a refused transaction is tried in all, and the longest pause between tries. On one
- * server a deadlock is rare; on a Galera cluster every commit that loses the race for a row
- * another node changed first is refused the same way, so a busy notebook sees several in a row.
- */
-export const transactionRetry = { attempts: 8, maxPauseMs: 250 };
-
-/**
  * Runs `work` in one transaction. A transaction refused as a deadlock victim (or, on a Galera
  * cluster, by certification at commit, which reports the same error) was rolled back whole,
  * so it is run again, whole, after a random pause that grows with each try. Inside a
@@ -31,15 +24,7 @@ export async function inTransaction<T>(db: Database, work: (manager: EntityManag
   if (!(db instanceof DataSource)) {
     return db.queryRunner?.isTransactionActive ? work(db) : db.transaction(work);
   }
-  for (let attempt = 1; ; attempt++) {
-    try {
-      return await db.transaction(work);
-    } catch (error) {
-      if (attempt >= transactionRetry.attempts || !isRetryable(error)) throw error;
-      const ceiling = Math.min(transactionRetry.maxPauseMs, 10 * 2 ** attempt);
-      await new Promise((resolve) => setTimeout(resolve, Math.random() * ceiling));
-    }
-  }
+  return runAgainIfRefused(() => db.transaction(work));
 }
 
 /** mysql2 returns COUNT(*) and other BIGINTs as strings under TypeORM's settings. */
