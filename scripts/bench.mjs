@@ -9,7 +9,7 @@ import { takeLock } from './lib/lock.mjs';
 import { fail, runMain, step } from './lib/log.mjs';
 import { requireFreePort, waitForPort } from './lib/ports.mjs';
 import { apiDist, installAndBuild, migrate, root, seedDemoData, startDatabase } from './lib/prepare.mjs';
-import { run, startService } from './lib/run.mjs';
+import { run, startService, stopAllOnSignal } from './lib/run.mjs';
 import { requireMailStandinPorts, startMail } from './lib/mail.mjs';
 import { requireStandinPort, startSignIn } from './lib/sign-in.mjs';
 
@@ -34,18 +34,7 @@ await runMain(async () => {
   rmSync(dataDir, { recursive: true, force: true });
   const db = await startDatabase({ dataDir, port: dbPort, database: 'rolloff_bench' });
   const services = [];
-  let interrupted = false;
-  const stopOnSignal = () => {
-    if (interrupted) return;
-    interrupted = true;
-    void (async () => {
-      for (const service of [...services].reverse()) await service.stop();
-      await db.stop();
-      process.exit(130);
-    })();
-  };
-  process.on('SIGINT', stopOnSignal);
-  process.on('SIGTERM', stopOnSignal);
+  stopAllOnSignal(services, () => db.stop());
   const env = { ...process.env, ...db.env, TURBO_TELEMETRY_DISABLED: '1', TURBO_NO_UPDATE_NOTIFIER: '1', SESSION_SECRET: 'bench-session-secret' };
   try {
     await migrate(env);

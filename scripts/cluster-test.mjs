@@ -9,7 +9,7 @@ import { takeLock } from './lib/lock.mjs';
 import { fail, info, ok, runMain, step, warn } from './lib/log.mjs';
 import { requireFreePort, waitForPort } from './lib/ports.mjs';
 import { apiDist, installAndBuild, migrate, root, seedDemoData } from './lib/prepare.mjs';
-import { startService } from './lib/run.mjs';
+import { startService, stopAllOnSignal } from './lib/run.mjs';
 import { requireMailStandinPorts, startMail } from './lib/mail.mjs';
 import { requireStandinPort, startSignIn } from './lib/sign-in.mjs';
 import { startGaleraCluster } from './lib/galera.mjs';
@@ -46,18 +46,7 @@ await runMain(async () => {
     password: process.env.DB_PASSWORD ?? 'rolloff-local',
   });
   const services = [];
-  let interrupted = false;
-  const stopOnSignal = () => {
-    if (interrupted) return;
-    interrupted = true;
-    void (async () => {
-      for (const service of [...services].reverse()) await service.stop();
-      await cluster.stop();
-      process.exit(130);
-    })();
-  };
-  process.on('SIGINT', stopOnSignal);
-  process.on('SIGTERM', stopOnSignal);
+  stopAllOnSignal(services, () => cluster.stop());
   const [first, second, third] = cluster.nodes;
   const base = { ...process.env, SESSION_SECRET: 'cluster-session-secret' };
   let failures = 0;

@@ -11,7 +11,7 @@ import { takeLock } from './lib/lock.mjs';
 import { fail, info, ok, runMain, step, warn } from './lib/log.mjs';
 import { requireFreePort, waitForPort } from './lib/ports.mjs';
 import { apiDist, installAndBuild, migrate, root, seedDemoData, startDatabase } from './lib/prepare.mjs';
-import { startService } from './lib/run.mjs';
+import { startService, stopAllOnSignal } from './lib/run.mjs';
 import { requireMailStandinPorts, startMail } from './lib/mail.mjs';
 import { requireStandinPort, startSignIn } from './lib/sign-in.mjs';
 
@@ -57,18 +57,7 @@ await runMain(async () => {
   rmSync(dataDir, { recursive: true, force: true });
   const db = await startDatabase({ dataDir, port: dbPort, database: 'rolloff_load' });
   const services = [];
-  let interrupted = false;
-  const stopOnSignal = () => {
-    if (interrupted) return;
-    interrupted = true;
-    void (async () => {
-      for (const service of [...services].reverse()) await service.stop();
-      await db.stop();
-      process.exit(130);
-    })();
-  };
-  process.on('SIGINT', stopOnSignal);
-  process.on('SIGTERM', stopOnSignal);
+  stopAllOnSignal(services, () => db.stop());
   const env = { ...process.env, ...db.env, SESSION_SECRET: 'load-session-secret' };
   const loadBefore = os.loadavg();
   const rows = [];

@@ -10,7 +10,7 @@ import { fail, info, runMain, step } from './lib/log.mjs';
 import { requireFreePort, waitForPort } from './lib/ports.mjs';
 import { checkFormatting } from './lib/format-check.mjs';
 import { apiDist, installAndBuild, migrate, root, seedDemoData, startDatabase } from './lib/prepare.mjs';
-import { run, startService } from './lib/run.mjs';
+import { run, startService, stopAllOnSignal } from './lib/run.mjs';
 import { requireMailStandinPorts, startMail } from './lib/mail.mjs';
 import { defaultAdminLogins, requireStandinPort, startSignIn } from './lib/sign-in.mjs';
 
@@ -59,18 +59,7 @@ await runMain(async () => {
   const db = await startDatabase({ dataDir, port: dbPort, database: 'rolloff_test' });
   const services = [];
   // Ctrl-C: stop what this run started (the stand-in, the server, MariaDB) before leaving.
-  let interrupted = false;
-  const stopOnSignal = () => {
-    if (interrupted) return;
-    interrupted = true;
-    void (async () => {
-      for (const service of [...services].reverse()) await service.stop();
-      await db.stop();
-      process.exit(130);
-    })();
-  };
-  process.on('SIGINT', stopOnSignal);
-  process.on('SIGTERM', stopOnSignal);
+  stopAllOnSignal(services, () => db.stop());
   const env = {
     ...process.env,
     ...db.env,

@@ -52,3 +52,23 @@ export function startService(name, command, args, options = {}) {
   };
   return service;
 }
+
+/**
+ * Ctrl-C or SIGTERM: stops what a script started, the services newest first, then `stopLast`
+ * (the database under them), and exits 130. `services` is read when the signal comes, so the
+ * script pushes to it as it starts each one.
+ */
+export function stopAllOnSignal(services, stopLast) {
+  let interrupted = false;
+  const stop = () => {
+    if (interrupted) return;
+    interrupted = true;
+    void (async () => {
+      for (const service of [...services].reverse()) await service.stop();
+      await stopLast();
+      process.exit(130);
+    })();
+  };
+  process.on('SIGINT', stop);
+  process.on('SIGTERM', stop);
+}
